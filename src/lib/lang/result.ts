@@ -1,0 +1,110 @@
+/**
+ * The result shapes of POST /api/eval (../shared/spec/API.md). Shared by the evaluator, the server and the UI,
+ * so it imports nothing. Every field API.md names is required; extra fields are allowed.
+ */
+export type Order = number | 'exact';
+
+export interface ScalarResult {
+	kind: 'scalar';
+	label: string;
+	value: number;
+	order: Order;
+	unit?: string;
+	latex?: string;
+	warning?: string;
+	/** named side values a later `#n.field` may reference (e.g. T, mu) */
+	fields?: Record<string, number>;
+}
+export interface RecordResult {
+	kind: 'record';
+	label: string;
+	fields: Record<string, number>;
+	latex?: string;
+	warning?: string;
+}
+export interface TableResult {
+	kind: 'table';
+	label: string;
+	columns: string[];
+	rows: (number | string | null)[][];
+	/** plot hints: which column is x, whether a plot was asked, the validity region per order column */
+	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string };
+	warning?: string;
+}
+export interface SeriesResult {
+	kind: 'series';
+	label: string;
+	terms: { k: number; coeff: number; latex: string }[];
+	latex: string;
+	order?: Order;
+	warning?: string;
+}
+export interface CheckResult {
+	kind: 'check';
+	label: string;
+	pass: boolean;
+	lhs: number;
+	rhs: number;
+	residual: number;
+	tolerance: number;
+	order?: Order;
+	warning?: string;
+}
+export interface NoteResult {
+	kind: 'note';
+	text: string;
+}
+export type Result = ScalarResult | RecordResult | TableResult | SeriesResult | CheckResult | NoteResult;
+
+/** A bulk as the pad keeps it: its name and the parameters given to `use`. */
+export interface BulkState {
+	name: string;
+	params: Record<string, number | string>;
+}
+
+/** How entropies are reported (`units …`). G is Newton's constant in units L = 1. */
+export type UnitsState =
+	| { system: 'geo'; G: number }
+	| { system: 'cft'; c: number }
+	| { system: 'sym'; N: number };
+
+/** What a later line may reference from an earlier step: `#n` is value, `#n.field` a field. */
+export interface StepRef {
+	value?: number;
+	fields: Record<string, number>;
+}
+
+/** A value kept by `let`. */
+export type LetValue = { value?: number; fields: Record<string, number> };
+
+/** Everything a line needs from its pad. Plain JSON, so it can cross into a worker thread. */
+export interface PadContext {
+	bulk: BulkState;
+	units: UnitsState;
+	refs: Record<number, StepRef>;
+	lets: Record<string, LetValue>;
+	/** approved macros by name: parameter defaults and body lines with `{param}` placeholders */
+	macros?: Record<string, { params: Record<string, string>; body: string[] }>;
+	/** datasets by name: numeric columns from an uploaded CSV */
+	datasets?: Record<string, { columns: string[]; rows: number[][] }>;
+}
+
+/** The outcome of one line: results in order, and the pad state after it. */
+export interface LineOutcome {
+	results: Result[];
+	bulk: BulkState;
+	units: UnitsState;
+	lets: Record<string, LetValue>;
+	/** the main value and fields this step exposes to `#n` */
+	ref: StepRef;
+}
+
+/** A language or engine error that points at the offending characters of the line. */
+export interface LineErrorShape {
+	message: string;
+	start: number;
+	end: number;
+	hint?: string;
+	/** 'language' → HTTP 400; 'limit' → HTTP 422 */
+	code: 'language' | 'limit';
+}
