@@ -22,6 +22,7 @@ export default defineConfig({
 					name: 'api',
 					environment: 'node',
 					include: ['tests/api/**/*.test.ts'],
+					globalSetup: ['tests/helpers/server-setup.ts'],
 					fileParallelism: false,
 					testTimeout: 30_000,
 					hookTimeout: 240_000
@@ -33,6 +34,7 @@ export default defineConfig({
 					name: 'e2e',
 					environment: 'node',
 					include: ['tests/e2e/**/*.test.ts'],
+					globalSetup: ['tests/helpers/server-setup.ts'],
 					fileParallelism: false,
 					testTimeout: 60_000,
 					hookTimeout: 300_000

@@ -1,0 +1,20 @@
+// Bundles the evaluation worker (language + engine + mathjs + nerdamer) into one file for worker_threads.
+// SvelteKit's build cannot emit a worker_threads entry, so esbuild does it beside the app.
+import { build } from 'esbuild';
+import { fileURLToPath } from 'node:url';
+import { dirname, resolve } from 'node:path';
+
+const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+await build({
+	entryPoints: [resolve(root, 'src/lib/server/eval/worker.ts')],
+	outfile: resolve(root, 'dist/eval-worker.mjs'),
+	bundle: true,
+	platform: 'node',
+	format: 'esm',
+	target: 'node20',
+	sourcemap: true,
+	logLevel: 'warning',
+	// nerdamer and some of mathjs's dependencies are CommonJS and call require()
+	banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" }
+});
+console.log('built dist/eval-worker.mjs');

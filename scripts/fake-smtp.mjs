@@ -1,0 +1,38 @@
+// A local stand-in for a mail server: accepts every message on 127.0.0.1 and writes it, parsed, as JSON
+// into a folder (one file a message). Development and tests send real SMTP to it through nodemailer.
+import { SMTPServer } from 'smtp-server';
+import { simpleParser } from 'mailparser';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+
+export async function startFakeSmtp({ port = 0, dir }) {
+	mkdirSync(dir, { recursive: true });
+	let seq = 0;
+	const server = new SMTPServer({
+		authOptional: true,
+		disabledCommands: ['STARTTLS'],
+		logger: false,
+		size: 1_000_000,
+		onData(stream, _session, callback) {
+			simpleParser(stream)
+				.then((mail) => {
+					const to = [mail.to].flat().filter(Boolean).flatMap((a) => a.value.map((v) => v.address));
+					const record = { to, from: mail.from?.text, subject: mail.subject, text: mail.text, date: new Date().toISOString() };
+					writeFileSync(join(dir, `${Date.now()}-${++seq}.json`), JSON.stringify(record, null, 2));
+					callback();
+				})
+				.catch(callback);
+		}
+	});
+	await new Promise((resolve, reject) => {
+		server.once('error', reject);
+		server.listen(port, '127.0.0.1', resolve);
+	});
+	return { port: server.server.address().port, close: () => new Promise((r) => server.close(r)) };
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+	const dir = process.env.MAIL_DIR ?? 'data/mail';
+	const { port } = await startFakeSmtp({ port: Number(process.env.SMTP_PORT ?? 2525), dir });
+	console.log(`fake SMTP on 127.0.0.1:${port}, messages in ${dir}/`);
+}

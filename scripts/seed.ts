@@ -1,0 +1,150 @@
+// Demo data for a first start: the (fictional) Sable holography group, its people, pads, library and a
+// dataset. Runs only when the database has no users. Every result is computed by the engine now — nothing
+// here is a recorded number except the dataset, which is invented demo data (exact ΔA with a small
+// deterministic wobble standing in for someone's lattice numerics).
+import { count } from 'drizzle-orm';
+import { openDb, schema } from '../src/lib/server/db/index';
+import { createUser, newId } from '../src/lib/server/auth/accounts';
+import { createPad, finishStep, startStep, type PadRow } from '../src/lib/server/pads';
+import { runLine } from '../src/lib/lang/index';
+import type { PadContext, StepRef } from '../src/lib/lang/result';
+import { eq } from 'drizzle-orm';
+
+export const DEMO_PASSWORD = 'bulkpad-demo';
+
+const people = [
+	{ email: 'curator@sable.test', name: 'Noor Halvorsen', role: 'admin' },
+	{ email: 'ines@sable.test', name: 'Inès Cardoso', role: 'member' },
+	{ email: 'tomas@sable.test', name: 'Tomás Ribeiro', role: 'member' },
+	{ email: 'referee@sable.test', name: 'Referee (journal)', role: 'reader' }
+] as const;
+
+const pads: { owner: string; title: string; lines: string[]; share?: boolean; invite?: string }[] = [
+	{
+		owner: 'ines@sable.test',
+		title: 'Boosted brane d=4: first law to third order',
+		lines: [
+			'use boosted d=4 zh=1 v=0.6',
+			'darea l=0.4 o=1,2,3,exact',
+			'tent l=0.4 o=3',
+			'mu l=0.4 o=3',
+			'firstlaw l=0.4 o=3',
+			'coeffs darea o=4 | tex',
+			'sweep darea l=0.05..1.2:40 o=1,2,3,exact'
+		],
+		share: true,
+		invite: 'referee@sable.test'
+	},
+	{
+		owner: 'ines@sable.test',
+		title: 'Where does the series stop working?',
+		lines: ['use brane d=3 zh=1', 'validity darea o=2 tol=1e-3', 'validity darea o=6 tol=1e-3', 'resum l=1.5 o=6']
+	},
+	{
+		owner: 'tomas@sable.test',
+		title: 'BTZ sanity check',
+		lines: ['use brane d=2 zh=1', 'units cft c=24', 'dentropy l=0.5', 'dentropy l=3', 'thermo']
+	},
+	{
+		owner: 'tomas@sable.test',
+		title: 'Mutual information in vacuum',
+		lines: ['use vacuum d=2', 'mi pair l=1 gap=0.3', 'mi pair l=1 gap=0.5', 'use vacuum d=4', 'mi pair l=1 gap=0.3']
+	}
+];
+
+const library = [
+	{
+		name: 'btz-check',
+		description: 'BTZ strip entropy at width l in a CFT of central charge c (Calabrese–Cardy check).',
+		params: { l: '1', c: '12' },
+		body: ['use brane d=2 zh=1', 'units cft c={c}', 'dentropy l={l}'],
+		state: 'approved'
+	},
+	{
+		name: 'sym-thermo',
+		description: 'N=4 SYM units at large N and the brane thermodynamics.',
+		params: { N: '10', zh: '1' },
+		body: ['use brane d=4 zh={zh}', 'units sym N={N}', 'thermo'],
+		state: 'approved'
+	},
+	{
+		name: 'charged-scan',
+		description: 'ΔA of a strip in the charged brane across charges (proposed).',
+		params: { l: '0.5' },
+		body: ['use charged d=4 zh=1 q=0.5', 'darea l={l}'],
+		state: 'proposed'
+	}
+] as const;
+
+function runPadLines(pad: PadRow, lines: string[]) {
+	const db = openDb().db;
+	let ctx: PadContext = { bulk: pad.bulk as PadContext['bulk'], units: pad.units as PadContext['units'], lets: {}, refs: {} };
+	for (const input of lines) {
+		const fresh = db.select().from(schema.pads).where(eq(schema.pads.id, pad.id)).get()!;
+		const step = startStep(fresh, input);
+		const t0 = performance.now();
+		try {
+			const out = runLine(input, ctx);
+			finishStep(fresh, step.id, performance.now() - t0, { ok: true, ...out });
+			const refs: Record<number, StepRef> = { ...ctx.refs, [step.n]: out.ref };
+			ctx = { bulk: out.bulk, units: out.units, lets: out.lets, refs };
+		} catch (e) {
+			const err = e as { message: string; start?: number; end?: number };
+			console.warn(`seed: "${input}" failed: ${err.message}`);
+			finishStep(fresh, step.id, performance.now() - t0, {
+				ok: false,
+				error: { message: err.message, start: err.start ?? 0, end: err.end ?? input.length, code: 'language' }
+			});
+		}
+	}
+}
+
+function demoDataset() {
+	// invented demo numbers: a smooth curve with a small deterministic wobble
+	const rows: number[][] = [];
+	for (let i = 0; i < 12; i++) {
+		const l = 0.1 + 0.1 * i;
+		const out = runLine(`darea l=${l.toFixed(2)} d=4 zh=1`, { bulk: { name: 'brane', params: { d: 4, zh: 1 } }, units: { system: 'geo', G: 1 }, refs: {}, lets: {} });
+		const exact = out.ref.value ?? NaN;
+		rows.push([Number(l.toFixed(2)), exact * (1 + 2e-3 * Math.sin(7 * i))]);
+	}
+	return rows;
+}
+
+export async function seedIfEmpty(): Promise<boolean> {
+	const { db } = openDb();
+	const n = db.select({ n: count() }).from(schema.users).get()?.n ?? 0;
+	if (n > 0) return false;
+	const ids: Record<string, string> = {};
+	for (const p of people) {
+		const u = await createUser({ email: p.email, name: p.name, password: DEMO_PASSWORD }, p.role);
+		ids[p.email] = u.id;
+	}
+	for (const m of library) {
+		const id = newId();
+		db.insert(schema.macros)
+			.values({ id, name: m.name, description: m.description, state: m.state, version: 1, params: m.params, body: [...m.body], authorId: ids['curator@sable.test'] })
+			.run();
+		db.insert(schema.macroVersions)
+			.values({ id: newId(), macroId: id, version: 1, params: m.params, body: [...m.body], editedBy: ids['curator@sable.test'] })
+			.run();
+	}
+	const rows = demoDataset();
+	db.insert(schema.datasets)
+		.values({ id: newId(), ownerId: ids['tomas@sable.test'], name: 'lattice_d4', columns: ['l', 'darea'], rows, bytes: JSON.stringify(rows).length })
+		.run();
+	for (const p of pads) {
+		const pad = createPad(ids[p.owner], p.title);
+		runPadLines(pad, p.lines);
+		if (p.share) {
+			db.insert(schema.shares).values({ slug: 'sable-boosted-first-law', padId: pad.id, createdBy: ids[p.owner] }).run();
+		}
+		if (p.invite) db.insert(schema.padAccess).values({ padId: pad.id, email: p.invite }).run();
+	}
+	return true;
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+	const seeded = await seedIfEmpty();
+	console.log(seeded ? 'seeded the Sable group demo data' : 'database has users already: no seed');
+}

@@ -1,0 +1,41 @@
+// `npm start`: migrate, seed the demo group when the database is empty, build when the sources are newer
+// than the build, then serve the built app with adapter-node on http://localhost:3000.
+import { spawnSync, spawn } from 'node:child_process';
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+
+const run = (args, env = {}) => {
+	const r = spawnSync(process.execPath, args, { stdio: 'inherit', env: { ...process.env, ...env } });
+	if (r.status !== 0) process.exit(r.status ?? 1);
+};
+
+function newest(dir) {
+	let t = 0;
+	for (const name of readdirSync(dir)) {
+		const p = join(dir, name);
+		const s = statSync(p);
+		t = Math.max(t, s.isDirectory() ? newest(p) : s.mtimeMs);
+	}
+	return t;
+}
+
+const sources = Math.max(newest('src'), newest('static'), statSync('package.json').mtimeMs, statSync('svelte.config.js').mtimeMs);
+const built = (f) => (existsSync(f) ? statSync(f).mtimeMs : 0);
+
+run(['--import', 'tsx', 'scripts/migrate.ts']);
+run(['--import', 'tsx', 'scripts/seed.ts']);
+if (built('dist/eval-worker.mjs') < newest('src/lib')) run(['scripts/build-worker.mjs']);
+if (built('build/handler.js') < sources) run(['node_modules/vite/bin/vite.js', 'build']);
+
+const port = process.env.PORT ?? '3000';
+const env = {
+	NODE_ENV: 'production',
+	PORT: port,
+	HOST: process.env.HOST ?? '127.0.0.1',
+	ORIGIN: process.env.ORIGIN ?? `http://localhost:${port}`,
+	...process.env
+};
+console.log(`Bulkpad on ${env.ORIGIN} (demo password: bulkpad-demo)`);
+const server = spawn(process.execPath, ['build/index.js'], { stdio: 'inherit', env });
+for (const sig of ['SIGINT', 'SIGTERM']) process.on(sig, () => server.kill(sig));
+server.on('exit', (code) => process.exit(code ?? 0));

@@ -1,0 +1,28 @@
+import { Lucia } from 'lucia';
+import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
+import { getDb, schema } from '../db';
+import { env } from '../env';
+import type { Role } from '../db/schema';
+
+function createLucia() {
+	const adapter = new DrizzleSQLiteAdapter(getDb(), schema.sessions, schema.users);
+	return new Lucia(adapter, {
+		sessionCookie: { attributes: { secure: env.secureCookies, sameSite: 'lax' } },
+		getUserAttributes: (a) => ({ email: a.email, name: a.name, role: a.role })
+	});
+}
+
+let lucia: ReturnType<typeof createLucia> | undefined;
+
+/** The session manager, created on first use (never during `vite build`). */
+export function getLucia() {
+	lucia ??= createLucia();
+	return lucia;
+}
+
+declare module 'lucia' {
+	interface Register {
+		Lucia: ReturnType<typeof createLucia>;
+		DatabaseUserAttributes: { email: string; name: string; role: Role };
+	}
+}

@@ -1,0 +1,32 @@
+import Database from 'better-sqlite3';
+import { drizzle, type BetterSQLite3Database } from 'drizzle-orm/better-sqlite3';
+import { migrate } from 'drizzle-orm/better-sqlite3/migrator';
+import { mkdirSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
+import * as schema from './schema';
+import { env } from '../env';
+
+export type Db = BetterSQLite3Database<typeof schema>;
+
+let handle: { sqlite: Database.Database; db: Db } | undefined;
+
+/** Opens the SQLite file (WAL, foreign keys) and applies pending migrations, once per process. */
+export function openDb(url = env.databaseUrl): { sqlite: Database.Database; db: Db } {
+	if (handle) return handle;
+	if (url !== ':memory:') mkdirSync(dirname(resolve(url)), { recursive: true });
+	const sqlite = new Database(url);
+	sqlite.pragma('journal_mode = WAL');
+	sqlite.pragma('foreign_keys = ON');
+	sqlite.pragma('busy_timeout = 5000');
+	const db = drizzle(sqlite, { schema });
+	migrate(db, { migrationsFolder: resolve(process.env.BULKPAD_MIGRATIONS ?? 'drizzle') });
+	handle = { sqlite, db };
+	return handle;
+}
+
+/** The app's database; opened lazily so `vite build` never touches the file. */
+export function getDb(): Db {
+	return openDb().db;
+}
+
+export { schema };

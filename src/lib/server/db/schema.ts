@@ -1,0 +1,178 @@
+import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+
+/** Roles of PRODUCT.md: readers open what is shared with them, members work, admins curate. */
+export const ROLES = ['admin', 'member', 'reader'] as const;
+export type Role = (typeof ROLES)[number];
+
+const createdAt = () =>
+	integer('created_at', { mode: 'timestamp_ms' })
+		.notNull()
+		.$defaultFn(() => new Date());
+
+export const users = sqliteTable('users', {
+	id: text('id').primaryKey(),
+	email: text('email').notNull().unique(),
+	name: text('name').notNull(),
+	passwordHash: text('password_hash').notNull(),
+	role: text('role', { enum: ROLES }).notNull().default('member'),
+	createdAt: createdAt()
+});
+
+export const sessions = sqliteTable('sessions', {
+	id: text('id').primaryKey(),
+	userId: text('user_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expiresAt: integer('expires_at').notNull()
+});
+
+export const pads = sqliteTable(
+	'pads',
+	{
+		id: text('id').primaryKey(),
+		ownerId: text('owner_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		title: text('title').notNull(),
+		/** JSON BulkState, UnitsState and lets: the pad's state after its last step */
+		bulk: text('bulk', { mode: 'json' }).notNull(),
+		units: text('units', { mode: 'json' }).notNull(),
+		lets: text('lets', { mode: 'json' }).notNull(),
+		/** input history for Up/Down, newest last (includes lines that failed) */
+		history: text('history', { mode: 'json' }).notNull(),
+		createdAt: createdAt(),
+		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+			.notNull()
+			.$defaultFn(() => new Date())
+	},
+	(t) => [index('pads_owner_idx').on(t.ownerId, t.updatedAt)]
+);
+
+export const steps = sqliteTable(
+	'steps',
+	{
+		id: text('id').primaryKey(),
+		padId: text('pad_id')
+			.notNull()
+			.references(() => pads.id, { onDelete: 'cascade' }),
+		n: integer('n').notNull(),
+		input: text('input').notNull(),
+		/** pending → ok | error; the input is stored before evaluation so nothing typed is lost */
+		status: text('status', { enum: ['pending', 'ok', 'error'] }).notNull(),
+		results: text('results', { mode: 'json' }),
+		error: text('error', { mode: 'json' }),
+		/** what `#n` exposes to later steps */
+		ref: text('ref', { mode: 'json' }),
+		/** the bulk the step was evaluated in, so a replay starts from the same state */
+		bulkBefore: text('bulk_before', { mode: 'json' }),
+		ms: real('ms'),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('steps_pad_n_idx').on(t.padId, t.n)]
+);
+
+export const shares = sqliteTable('shares', {
+	slug: text('slug').primaryKey(),
+	padId: text('pad_id')
+		.notNull()
+		.references(() => pads.id, { onDelete: 'cascade' }),
+	createdBy: text('created_by')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }),
+	revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+	createdAt: createdAt()
+});
+
+/** Readers see a pad when it is shared with them by e-mail invitation. */
+export const padAccess = sqliteTable(
+	'pad_access',
+	{
+		padId: text('pad_id')
+			.notNull()
+			.references(() => pads.id, { onDelete: 'cascade' }),
+		email: text('email').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('pad_access_idx').on(t.padId, t.email)]
+);
+
+export const MACRO_STATES = ['proposed', 'approved', 'retired'] as const;
+
+export const macros = sqliteTable('macros', {
+	id: text('id').primaryKey(),
+	name: text('name').notNull().unique(),
+	description: text('description').notNull(),
+	state: text('state', { enum: MACRO_STATES }).notNull().default('proposed'),
+	version: integer('version').notNull().default(1),
+	/** { param: default } */
+	params: text('params', { mode: 'json' }).notNull(),
+	body: text('body', { mode: 'json' }).notNull(),
+	authorId: text('author_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	createdAt: createdAt(),
+	updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+		.notNull()
+		.$defaultFn(() => new Date())
+});
+
+/** Every version a macro has had, so an approved macro's history stays readable. */
+export const macroVersions = sqliteTable(
+	'macro_versions',
+	{
+		id: text('id').primaryKey(),
+		macroId: text('macro_id')
+			.notNull()
+			.references(() => macros.id, { onDelete: 'cascade' }),
+		version: integer('version').notNull(),
+		params: text('params', { mode: 'json' }).notNull(),
+		body: text('body', { mode: 'json' }).notNull(),
+		editedBy: text('edited_by').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [uniqueIndex('macro_versions_idx').on(t.macroId, t.version)]
+);
+
+export const datasets = sqliteTable('datasets', {
+	id: text('id').primaryKey(),
+	ownerId: text('owner_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	name: text('name').notNull(),
+	columns: text('columns', { mode: 'json' }).notNull(),
+	rows: text('rows', { mode: 'json' }).notNull(),
+	bytes: integer('bytes').notNull(),
+	createdAt: createdAt()
+});
+
+export const apiKeys = sqliteTable('api_keys', {
+	id: text('id').primaryKey(),
+	userId: text('user_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	label: text('label').notNull(),
+	/** sha-256 of the key; the key itself is shown once */
+	hash: text('hash').notNull().unique(),
+	prefix: text('prefix').notNull(),
+	lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
+	createdAt: createdAt()
+});
+
+export const outbox = sqliteTable('outbox', {
+	id: text('id').primaryKey(),
+	to: text('to').notNull(),
+	subject: text('subject').notNull(),
+	text: text('text').notNull(),
+	status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull(),
+	error: text('error'),
+	createdAt: createdAt()
+});
+
+export const passwordResets = sqliteTable('password_resets', {
+	tokenHash: text('token_hash').primaryKey(),
+	userId: text('user_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull()
+});

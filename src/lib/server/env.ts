@@ -1,0 +1,22 @@
+/** Server settings from the environment, read once; defaults suit `npm start` on a laptop. */
+function intFrom(name: string, fallback: number): number {
+	const raw = process.env[name];
+	const n = raw === undefined ? NaN : Number(raw);
+	return Number.isFinite(n) && n > 0 ? n : fallback;
+}
+
+export const env = {
+	databaseUrl: process.env.DATABASE_URL ?? 'data/bulkpad.db',
+	/** secure cookies everywhere but plain-http development and tests */
+	secureCookies: process.env.NODE_ENV === 'production' && process.env.BULKPAD_INSECURE_COOKIES !== '1',
+	origin: process.env.ORIGIN ?? 'http://localhost:3000',
+	evalBudgetMs: intFrom('BULKPAD_EVAL_BUDGET_MS', 5000),
+	evalThreads: intFrom('BULKPAD_EVAL_THREADS', 2),
+	smtpHost: process.env.SMTP_HOST ?? '127.0.0.1',
+	smtpPort: intFrom('SMTP_PORT', 2525),
+	mailFrom: process.env.MAIL_FROM ?? 'Bulkpad <no-reply@bulkpad.test>',
+	signinPerMinute: intFrom('BULKPAD_SIGNIN_PER_MINUTE', 10),
+	signinPerMinutePerAddress: intFrom('BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS', 60),
+	replayPerMinute: intFrom('BULKPAD_REPLAY_PER_MINUTE', 20),
+	uploadMaxBytes: intFrom('BULKPAD_UPLOAD_MAX_BYTES', 1_000_000)
+};

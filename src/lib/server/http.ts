@@ -1,0 +1,53 @@
+import { isHttpError, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
+import { z, type ZodType } from 'zod';
+
+/** An expected API failure with the `{ ok:false, error }` body of API.md. */
+export class ApiFailure extends Error {
+	constructor(
+		public status: number,
+		message: string,
+		public extra: Record<string, unknown> = {}
+	) {
+		super(message);
+	}
+}
+
+export function failure(status: number, message: string, extra: Record<string, unknown> = {}): never {
+	throw new ApiFailure(status, message, extra);
+}
+
+export function ok<T extends Record<string, unknown>>(body: T, init?: ResponseInit) {
+	return json({ ok: true, ...body }, init);
+}
+
+/**
+ * Wraps a JSON route so every expected failure (ours, SvelteKit's `error()`, zod) answers the API's error
+ * shape; anything else is rethrown to `handleError`, which logs it with an id and shows nothing inside.
+ */
+export function api(handler: (event: RequestEvent) => Promise<Response> | Response): RequestHandler {
+	return async (event) => {
+		try {
+			return await handler(event);
+		} catch (e) {
+			if (e instanceof ApiFailure) return json({ ok: false, error: { message: e.message, ...e.extra } }, { status: e.status });
+			if (isHttpError(e)) return json({ ok: false, error: { message: e.body.message } }, { status: e.status });
+			throw e;
+		}
+	};
+}
+
+/** Reads and validates a JSON body; 400 with zod's issues when it does not fit. */
+export async function readBody<S extends ZodType>(event: RequestEvent, schema: S): Promise<z.infer<S>> {
+	let raw: unknown;
+	try {
+		raw = await event.request.json();
+	} catch {
+		failure(400, 'The body must be JSON.');
+	}
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) {
+		const issues = parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }));
+		failure(400, `Invalid body: ${issues.map((i) => (i.path ? `${i.path}: ` : '') + i.message).join('; ')}`, { issues });
+	}
+	return parsed.data;
+}

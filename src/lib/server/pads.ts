@@ -1,0 +1,153 @@
+import { and, asc, desc, eq, max } from 'drizzle-orm';
+import { getDb, schema } from './db';
+import { ApiFailure } from './http';
+import { newId } from './auth/accounts';
+import type { AppUser } from './auth/guards';
+import type { BulkState, LetValue, LineErrorShape, PadContext, Result, StepRef, UnitsState } from '../lang/result';
+
+export const DEFAULT_BULK: BulkState = { name: 'brane', params: { d: 4, zh: 1 } };
+export const DEFAULT_UNITS: UnitsState = { system: 'geo', G: 1 };
+const HISTORY_MAX = 200;
+
+export type PadRow = typeof schema.pads.$inferSelect;
+export type StepRow = typeof schema.steps.$inferSelect;
+
+const notFound = () => new ApiFailure(404, 'No such pad.');
+
+export function listPads(ownerId: string) {
+	return getDb()
+		.select({ id: schema.pads.id, title: schema.pads.title, bulk: schema.pads.bulk, updatedAt: schema.pads.updatedAt })
+		.from(schema.pads)
+		.where(eq(schema.pads.ownerId, ownerId))
+		.orderBy(desc(schema.pads.updatedAt))
+		.all();
+}
+
+export function createPad(ownerId: string, title: string, state?: { bulk?: BulkState; units?: UnitsState; lets?: Record<string, LetValue> }): PadRow {
+	const now = new Date();
+	const row = {
+		id: newId(),
+		ownerId,
+		title,
+		bulk: state?.bulk ?? DEFAULT_BULK,
+		units: state?.units ?? DEFAULT_UNITS,
+		lets: state?.lets ?? {},
+		history: [] as string[],
+		createdAt: now,
+		updatedAt: now
+	};
+	getDb().insert(schema.pads).values(row).run();
+	return row;
+}
+
+/** The user's own pad; any other id — missing or somebody else's — is the same 404. */
+export function findOwnPad(user: AppUser, id: string): PadRow {
+	const pad = getDb().select().from(schema.pads).where(and(eq(schema.pads.id, id), eq(schema.pads.ownerId, user.id))).get();
+	if (!pad) throw notFound();
+	return pad;
+}
+
+/** A pad the user may read: their own, or one they were invited to by e-mail. */
+export function findReadablePad(user: AppUser, id: string): PadRow {
+	const db = getDb();
+	const pad = db.select().from(schema.pads).where(eq(schema.pads.id, id)).get();
+	if (!pad) throw notFound();
+	if (pad.ownerId === user.id) return pad;
+	const invited = db
+		.select()
+		.from(schema.padAccess)
+		.where(and(eq(schema.padAccess.padId, id), eq(schema.padAccess.email, user.email)))
+		.get();
+	if (!invited) throw notFound();
+	return pad;
+}
+
+export function padSteps(padId: string): StepRow[] {
+	return getDb().select().from(schema.steps).where(eq(schema.steps.padId, padId)).orderBy(asc(schema.steps.n)).all();
+}
+
+export function renamePad(pad: PadRow, title: string) {
+	getDb().update(schema.pads).set({ title, updatedAt: new Date() }).where(eq(schema.pads.id, pad.id)).run();
+}
+
+export function deletePad(pad: PadRow) {
+	getDb().delete(schema.pads).where(eq(schema.pads.id, pad.id)).run();
+}
+
+/** Approved macros, as the language expands them. */
+export function approvedMacros(): NonNullable<PadContext['macros']> {
+	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
+	return Object.fromEntries(
+		rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[] }])
+	);
+}
+
+export function ownerDatasets(ownerId: string): NonNullable<PadContext['datasets']> {
+	const rows = getDb().select().from(schema.datasets).where(eq(schema.datasets.ownerId, ownerId)).all();
+	return Object.fromEntries(rows.map((d) => [d.name, { columns: d.columns as string[], rows: d.rows as number[][] }]));
+}
+
+/** The references `#n` may read: every step that evaluated. */
+export function stepRefs(steps: StepRow[]): Record<number, StepRef> {
+	const refs: Record<number, StepRef> = {};
+	for (const s of steps) if (s.status === 'ok' && s.ref) refs[s.n] = s.ref as StepRef;
+	return refs;
+}
+
+export function padContext(pad: PadRow): PadContext {
+	return {
+		bulk: pad.bulk as BulkState,
+		units: pad.units as UnitsState,
+		lets: pad.lets as Record<string, LetValue>,
+		refs: stepRefs(padSteps(pad.id)),
+		macros: approvedMacros(),
+		datasets: ownerDatasets(pad.ownerId)
+	};
+}
+
+/** Stores the typed line before anything runs, so nothing typed is lost even if evaluation fails. */
+export function startStep(pad: PadRow, input: string): { id: string; n: number } {
+	const db = getDb();
+	return db.transaction((tx) => {
+		const last = tx.select({ n: max(schema.steps.n) }).from(schema.steps).where(eq(schema.steps.padId, pad.id)).get();
+		const n = (last?.n ?? 0) + 1;
+		const id = newId();
+		tx.insert(schema.steps).values({ id, padId: pad.id, n, input, status: 'pending', bulkBefore: pad.bulk }).run();
+		const history = [...((pad.history as string[]) ?? []), input].slice(-HISTORY_MAX);
+		tx.update(schema.pads).set({ history, updatedAt: new Date() }).where(eq(schema.pads.id, pad.id)).run();
+		return { id, n };
+	});
+}
+
+export function finishStep(
+	pad: PadRow,
+	stepId: string,
+	ms: number,
+	answer: { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> } | { ok: false; error: LineErrorShape | { message: string; start: number; end: number; code: string } }
+) {
+	const db = getDb();
+	db.transaction((tx) => {
+		if (answer.ok) {
+			tx.update(schema.steps).set({ status: 'ok', results: answer.results, ref: answer.ref, ms }).where(eq(schema.steps.id, stepId)).run();
+			tx.update(schema.pads)
+				.set({ bulk: answer.bulk, units: answer.units, lets: answer.lets, updatedAt: new Date() })
+				.where(eq(schema.pads.id, pad.id))
+				.run();
+		} else {
+			tx.update(schema.steps).set({ status: 'error', error: answer.error, ms }).where(eq(schema.steps.id, stepId)).run();
+		}
+	});
+}
+
+/** Lines of one pad run one after another: each sees the bulk and references the previous left. */
+const padQueues = new Map<string, Promise<unknown>>();
+export function serialisePad<T>(padId: string, work: () => Promise<T>): Promise<T> {
+	const prev = padQueues.get(padId) ?? Promise.resolve();
+	const next = prev.then(work, work);
+	const tail = next.catch(() => undefined);
+	padQueues.set(padId, tail);
+	tail.then(() => {
+		if (padQueues.get(padId) === tail) padQueues.delete(padId);
+	});
+	return next;
+}

@@ -1,0 +1,82 @@
+// Global setup for the API and browser tests: a fresh SQLite file seeded with the demo group, a fake SMTP
+// server, and the real built app (build/index.js) on a free loopback port.
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { TestProject } from 'vitest/node';
+import { startFakeSmtp } from '../../scripts/fake-smtp.mjs';
+
+declare module 'vitest' {
+	export interface ProvidedContext {
+		baseUrl: string;
+		mailDir: string;
+		dbFile: string;
+	}
+}
+
+function freePort(): Promise<number> {
+	return new Promise((resolve, reject) => {
+		const s = createServer();
+		s.once('error', reject);
+		s.listen(0, '127.0.0.1', () => {
+			const port = (s.address() as { port: number }).port;
+			s.close(() => resolve(port));
+		});
+	});
+}
+
+export default async function setup(project: TestProject) {
+	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) {
+		throw new Error('The app is not built: run "npm test" (it builds first) or "npm run build".');
+	}
+	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-test-'));
+	const dbFile = join(dir, 'bulkpad.db');
+	const mailDir = join(dir, 'mail');
+	const smtp = await startFakeSmtp({ dir: mailDir });
+	const env = {
+		...process.env,
+		DATABASE_URL: dbFile,
+		NODE_ENV: 'production',
+		BULKPAD_INSECURE_COOKIES: '1',
+		SMTP_PORT: String(smtp.port),
+		BULKPAD_SIGNIN_PER_MINUTE: '5',
+		BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS: '100000',
+		BULKPAD_REPLAY_PER_MINUTE: '1000',
+		BULKPAD_EVAL_BUDGET_MS: '4000'
+	};
+	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
+	if (seed.status !== 0) throw new Error(`seeding failed:\n${seed.stdout}\n${seed.stderr}`);
+
+	const port = await freePort();
+	const baseUrl = `http://127.0.0.1:${port}`;
+	const server: ChildProcess = spawn(process.execPath, ['build/index.js'], {
+		env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl },
+		stdio: ['ignore', 'pipe', 'pipe']
+	});
+	let log = '';
+	server.stdout?.on('data', (b) => (log += b));
+	server.stderr?.on('data', (b) => (log += b));
+	const deadline = Date.now() + 30_000;
+	for (;;) {
+		try {
+			const r = await fetch(`${baseUrl}/api/health`);
+			if (r.ok) break;
+		} catch {
+			/* not up yet */
+		}
+		if (Date.now() > deadline || server.exitCode !== null) throw new Error(`server did not start:\n${log}`);
+		await new Promise((r) => setTimeout(r, 150));
+	}
+	project.provide('baseUrl', baseUrl);
+	project.provide('mailDir', mailDir);
+	project.provide('dbFile', dbFile);
+
+	return async () => {
+		server.kill('SIGTERM');
+		await smtp.close();
+		if (log.includes('Error') && process.env.BULKPAD_TEST_LOG) console.log(log);
+		rmSync(dir, { recursive: true, force: true });
+	};
+}
