@@ -5,7 +5,9 @@ import { vitePreprocess } from '@sveltejs/vite-plugin-svelte';
 const config = {
 	preprocess: vitePreprocess(),
 	kit: {
-		adapter: adapter({ out: 'build' }),
+		// separate output folders let several checkouts of work build side by side (see DEVELOPERS.md)
+		adapter: adapter({ out: process.env.BULKPAD_BUILD_DIR ?? 'build' }),
+		outDir: process.env.BULKPAD_KIT_DIR ?? '.svelte-kit',
 		csrf: { trustedOrigins: [] }
 	}
 };

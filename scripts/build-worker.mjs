@@ -7,7 +7,7 @@ import { dirname, resolve } from 'node:path';
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 await build({
 	entryPoints: [resolve(root, 'src/lib/server/eval/worker.ts')],
-	outfile: resolve(root, 'dist/eval-worker.mjs'),
+	outfile: resolve(root, process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs'),
 	bundle: true,
 	platform: 'node',
 	format: 'esm',
@@ -17,4 +17,4 @@ await build({
 	// nerdamer and some of mathjs's dependencies are CommonJS and call require()
 	banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" }
 });
-console.log('built dist/eval-worker.mjs');
+console.log(`built ${process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs'}`);

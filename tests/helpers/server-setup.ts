@@ -28,7 +28,8 @@ function freePort(): Promise<number> {
 }
 
 export default async function setup(project: TestProject) {
-	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) {
+	const buildDir = process.env.BULKPAD_BUILD_DIR ?? 'build';
+	if (!existsSync(`${buildDir}/index.js`) || !existsSync(process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs')) {
 		throw new Error('The app is not built: run "npm test" (it builds first) or "npm run build".');
 	}
 	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-test-'));
@@ -51,7 +52,7 @@ export default async function setup(project: TestProject) {
 
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
-	const server: ChildProcess = spawn(process.execPath, ['build/index.js'], {
+	const server: ChildProcess = spawn(process.execPath, [`${buildDir}/index.js`], {
 		env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl },
 		stdio: ['ignore', 'pipe', 'pipe']
 	});
