@@ -1,0 +1,51 @@
+import { HoloError } from '../errors';
+import type { Bulk, Stress } from '../types';
+import { readDimension, readLength, readNumber, rejectUnknownKeys } from './params';
+
+/**
+ * Planar Reissner–Nordström–AdS brane: f = 1 − (1+q²)(z/zh)^d + q²(z/zh)^{2(d−1)},
+ * T = (d − (d−2)q²)/(4π zh), extremal at q² = d/(d−2) (rejected: non-extremal only).
+ * Stress from the z^d coefficient of f (de Haro, Skenderis & Solodukhin 2001): e = (d−1)(1+q²)/(16πG zh^d),
+ * p = (1+q²)/(16πG zh^d) (traceless). s = 1/(4G zh^{d−1}). No closed-form series: the expansion mixes
+ * (l/zh)^d and (l/zh)^{2(d−1)}.
+ */
+export function makeCharged(params: Record<string, number | string>): Bulk {
+	rejectUnknownKeys('charged', params, ['d', 'zh', 'q']);
+	const d = readDimension(params);
+	const zh = readLength(params, 'zh');
+	const q = readNumber(params, 'q', 0);
+	const q2 = q * q;
+	if (d > 2 && !(q2 < d / (d - 2))) {
+		throw new HoloError(`q² must be below d/(d−2) = ${d / (d - 2)} (non-extremal)`, 'q', `got q=${q}`);
+	}
+	const m = 2 * (d - 1);
+	const c = (G: number) => (1 + q2) / (16 * Math.PI * G * Math.pow(zh, d));
+	return {
+		name: 'charged',
+		d,
+		params: { d, zh, q, q2 },
+		horizon: zh,
+		scale: zh,
+		slice: {
+			d,
+			f: (z) => 1 - (1 + q2) * Math.pow(z / zh, d) + q2 * Math.pow(z / zh, m),
+			h: () => 1,
+			scale: zh,
+			zh,
+			fTerms: [
+				{ c: 1, p: 0 },
+				{ c: -(1 + q2), p: d },
+				{ c: q2, p: m }
+			],
+			hTerms: []
+		},
+		hasSeries: false,
+		stress: (G): Stress => ({ tt: (d - 1) * c(G), ty: 0, xx: c(G), yy: c(G) }),
+		thermo: (G) => ({
+			T: (d - (d - 2) * q2) / (4 * Math.PI * zh),
+			s: 1 / (4 * G * Math.pow(zh, d - 1)),
+			e: (d - 1) * c(G),
+			p: c(G)
+		})
+	};
+}

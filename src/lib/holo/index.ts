@@ -1,0 +1,16 @@
+/**
+ * Public surface of the holographic engine (pure: no svelte, $app, node:, DOM or I/O).
+ * Units L = 1; areas and entropies per unit transverse volume. Conventions: PHYSICS.md.
+ */
+export { HoloError } from './errors';
+export type { Bulk, BulkName, Slice, PowerTerm, SeriesCoeff, SeriesShape, Stress, Thermo } from './types';
+export { makeBulk, registerBulk, BULK_NAMES } from './bulks/index';
+export { zstarOf, widthOf, areaFinite, deltaArea, vacuumAreaFinite, stripIntegrals } from './area';
+export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor } from './strip';
+export type { TurningPoint, StripIntegrals } from './strip';
+export { seriesCoeffs, deltaAreaSeries, validity, seriesWarning, boostedCoeffPolys } from './series/index';
+export { stressTensor, thermo, energy } from './physics';
+export { cd, newtonG, entropy } from './units';
+export type { Units } from './units';
+export { gamma, lgamma, rgamma } from './special/gamma';
+export { beta, betaHalfShift } from './special/beta';
