@@ -1,0 +1,61 @@
+// Load on POST /api/eval with an API key (autocannon, loopback): requests/s and latency for a light line,
+// then the p99 of light lines while heavy sweeps run. Run after `npm run build`.
+import autocannon from 'autocannon';
+import { apiKeyFor, startBuiltServer } from './lib/server.mjs';
+import { emit, machineLine, writeSection } from './lib/results.mjs';
+
+const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
+const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '20000' });
+try {
+	const key = await apiKeyFor(server.baseUrl, 'tomas@sable.test');
+	const light = (extra = {}) =>
+		autocannon({
+			url: `${server.baseUrl}/api/eval`,
+			method: 'POST',
+			connections: 50,
+			duration: DURATION,
+			headers: { 'content-type': 'application/json', authorization: `Bearer ${key}` },
+			body: JSON.stringify({ input: 'darea l=0.5' }),
+			...extra
+		});
+	await light({ duration: 3 }); // warm the pool and the JIT
+	const a = await light();
+	const base = { rps: a.requests.average, p50_ms: a.latency.p50, p99_ms: a.latency.p99, errors: a.errors, non2xx: a.non2xx };
+	emit({ name: 'eval darea l=0.5, 50 connections', ...base });
+
+	// heavy sweeps from another user, back to back, while the light load runs
+	let stop = false;
+	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test');
+	const heavyLine = 'sweep darea l=0.05..0.95:2000 o=1,2,3,exact d=7';
+	let heavyRuns = 0;
+	const heavyLoop = (async () => {
+		while (!stop) {
+			await fetch(`${server.baseUrl}/api/eval`, {
+				method: 'POST',
+				headers: { 'content-type': 'application/json', authorization: `Bearer ${heavyKey}` },
+				body: JSON.stringify({ input: heavyLine })
+			});
+			heavyRuns++;
+		}
+	})();
+	const b = await light();
+	stop = true;
+	await heavyLoop;
+	const loaded = { rps: b.requests.average, p50_ms: b.latency.p50, p99_ms: b.latency.p99, errors: b.errors, non2xx: b.non2xx, heavy_runs: heavyRuns };
+	emit({ name: 'eval darea l=0.5 during heavy sweeps', ...loaded });
+
+	writeSection(
+		'api',
+		`## API (\`npm run bench -- api\`)
+${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"input":"darea l=0.5"}\` with an API key.
+
+| load | requests/s | p50 ms | p99 ms | errors | non-2xx |
+|---|---|---|---|---|---|
+| light lines only | ${base.rps.toFixed(0)} | ${base.p50_ms} | ${base.p99_ms} | ${base.errors} | ${base.non2xx} |
+| while \`${heavyLine}\` runs back to back (${heavyRuns} sweeps) | ${loaded.rps.toFixed(0)} | ${loaded.p50_ms} | ${loaded.p99_ms} | ${loaded.errors} | ${loaded.non2xx} |
+
+Goals (issue): p50 < 5 ms, ≥ 1,000 requests/s.`
+	);
+} finally {
+	await server.stop();
+}

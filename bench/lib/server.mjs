@@ -1,0 +1,60 @@
+// Starts the built app on a free loopback port with a fresh seeded database, for load benches.
+import { spawn, spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync, existsSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+function freePort() {
+	return new Promise((resolve) => {
+		const s = createServer();
+		s.listen(0, '127.0.0.1', () => {
+			const { port } = s.address();
+			s.close(() => resolve(port));
+		});
+	});
+}
+
+export async function startBuiltServer(extraEnv = {}) {
+	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) throw new Error('build first: npm run build');
+	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
+	const env = { ...process.env, DATABASE_URL: join(dir, 'bench.db'), NODE_ENV: 'production', BULKPAD_INSECURE_COOKIES: '1', ...extraEnv };
+	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
+	if (seed.status !== 0) throw new Error(seed.stderr);
+	const port = await freePort();
+	const baseUrl = `http://127.0.0.1:${port}`;
+	const child = spawn(process.execPath, ['build/index.js'], { env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl }, stdio: 'ignore' });
+	for (let i = 0; i < 200; i++) {
+		try {
+			if ((await fetch(`${baseUrl}/api/health`)).ok) break;
+		} catch {
+			/* starting */
+		}
+		await new Promise((r) => setTimeout(r, 100));
+	}
+	return {
+		baseUrl,
+		async stop() {
+			child.kill('SIGTERM');
+			await new Promise((r) => child.once('exit', r));
+			rmSync(dir, { recursive: true, force: true });
+		}
+	};
+}
+
+export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo') {
+	const r = await fetch(`${baseUrl}/api/auth/signin`, {
+		method: 'POST',
+		headers: { 'content-type': 'application/json', origin: baseUrl },
+		body: JSON.stringify({ email, password })
+	});
+	const cookie = r.headers.getSetCookie().find((c) => c.startsWith('auth_session='))?.split(';')[0];
+	const k = await fetch(`${baseUrl}/api/keys`, {
+		method: 'POST',
+		headers: { 'content-type': 'application/json', origin: baseUrl, cookie },
+		body: JSON.stringify({ label: 'bench' })
+	});
+	const body = await k.json();
+	if (!body.key) throw new Error(`could not make an API key: ${JSON.stringify(body)}`);
+	return body.key;
+}

@@ -1,0 +1,37 @@
+// Headless Debian Chromium through playwright-core, with the flags this machine's closed network needs.
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { mkdirSync, mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export const ARTIFACTS = 'tests/artifacts';
+
+export async function launch(viewport = { width: 1280, height: 800 }): Promise<BrowserContext> {
+	return chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'bulkpad-chromium-')), {
+		executablePath: CHROMIUM,
+		headless: true,
+		viewport,
+		args: [
+			'--no-sandbox',
+			'--disable-gpu',
+			'--disable-quic',
+			'--no-first-run',
+			'--disable-background-networking',
+			'--disable-component-update',
+			'--disable-sync'
+		]
+	});
+}
+
+export async function signInThroughForm(page: Page, baseUrl: string, email: string, password = 'bulkpad-demo') {
+	await page.goto(`${baseUrl}/signin`);
+	await page.fill('input[name=email]', email);
+	await page.fill('input[name=password]', password);
+	await Promise.all([page.waitForURL((u) => !u.pathname.startsWith('/signin')), page.click('button:has-text("Sign in")')]);
+}
+
+export async function screenshot(page: Page, name: string) {
+	mkdirSync(ARTIFACTS, { recursive: true });
+	await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: false });
+}
