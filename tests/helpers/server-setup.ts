@@ -7,6 +7,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startFakeSmtp } from '../../scripts/fake-smtp.mjs';
+import { buildDir } from '../../scripts/out-dirs.mjs';
 
 declare module 'vitest' {
 	export interface ProvidedContext {
@@ -28,7 +29,6 @@ function freePort(): Promise<number> {
 }
 
 export default async function setup(project: TestProject) {
-	const buildDir = process.env.BULKPAD_BUILD_DIR ?? 'build';
 	if (!existsSync(`${buildDir}/index.js`) || !existsSync(process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs')) {
 		throw new Error('The app is not built: run "npm test" (it builds first) or "npm run build".');
 	}
