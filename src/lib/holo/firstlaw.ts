@@ -1,0 +1,358 @@
+/**
+ * First law of entanglement for the strip at order n and exactly: T_ent, μ and the check δΔS = α δΔE + ζ δΔP_y.
+ *
+ * Definition (PHYSICS.md, "First law of entanglement"): with ΔE = l T_tt and ΔP_y = l T^{ty}, α and ζ solve
+ * δΔS = α δΔE + ζ δΔP_y for the variations of the bulk's two parameters at fixed l; T_ent = 1/α, μ = −ζ/α.
+ * Static bulks (brane, boosted at v = 0, charged at fixed q) use the one-parameter form: α = δΔS/δΔE, μ = 0.
+ *
+ * Parameters. The brane, the boosted brane and the wave are one family of slices
+ *   f = 1 − w z^d,  h = 1 + q z^d,  w = zh^{−d},  q = γ²v² zh^{−d}   (wave: w = 0, q = zp^{−d}),
+ * linear in (w, q); with ê = 16πG ΔE, p̂ = 16πG ΔP_y (v ≥ 0):
+ *   ê = l[(d−1)w + d q],  p̂ = l d √(q(q+w))      (T_tt = (dγ²−1)/(16πG zh^d), T^{ty} = dγ²v/(16πG zh^d)).
+ * The linear relation does not depend on the coordinates used on parameter space, so it is solved in (w, q):
+ *   4π ∂ΔA = α ∂ê + ζ ∂p̂ for ∂ = ∂_w, ∂_q (G cancels). For the wave this is the v → 1 limit of the boosted
+ * answer at fixed zp (derived here; the w-direction is "switch on a temperature"). v < 0: ΔS is even and
+ * ΔP_y odd in v, so ζ flips sign.
+ *
+ * Order n: ΔA⁽ⁿ⁾ = l^{2−d} Σ_{k≤n} Σ_{j≤k} c_kj w^{k−j} q^j l^{kd}, where c_kj are the coefficients of κ^j
+ * in core's boosted a_k(κ) (boostedCoeffPolys); its w- and q-derivatives are differentiated term by term.
+ * In x = (l/zh)^d (wave: x = (l/zp)^d) α and ζ are then l·(polynomials of degree n−1 in x).
+ *
+ * Exact: by extremality, at fixed l the derivative of the area is the explicit parameter derivative of the
+ * area functional on the solution (boundary data held fixed). For the functional √(h/z^m)√(x'² + 1/f),
+ * m = 2(d−1), with u = z/z*, N(u) = h(uz*)u^{−m} − h(z*):
+ *   ∂_λ A = z*^{2−d} ∫₀¹ [ ∂_λh(uz*) u^{−m} / √(f N) − ∂_λf(uz*) √N / f^{3/2} ] du
+ * (derived; checked in the tests against finite differences of core's exact ΔA). Both integrands are finite
+ * at u = 0; the quadrature uses core's substitutions (u = 1 − s², then s = a sinh σ with a = √(f_* / (z_* |f'_*|))
+ * near a horizon) with 24-point Gauss–Legendre panels, and differences are formed from the power terms with
+ * expm1/log1p. Accuracy: ≤ 1e-12 relative for z_* / zh ≤ 0.99 (tests: against Richardson-extrapolated finite
+ * differences to ~1e-9, the limit of that comparison).
+ */
+import { HoloError } from './errors';
+import { solveStrip } from './strip';
+import { gaussLegendre } from './numeric/gauss';
+import { boostedCoeffPolys } from './series/index';
+import type { Bulk, PowerTerm, Slice } from './types';
+import type { TurningPoint } from './strip';
+
+export type Order = number | 'exact';
+
+/** Where a bulk sits in the (w, q) family, or the charged brane's one-parameter form. */
+interface Family {
+	kind: 'static' | 'boosted' | 'wave' | 'charged';
+	d: number;
+	w: number;
+	q: number;
+	/** sign of v (ζ flips with it) */
+	sign: number;
+	/** series variable's length: zh, or zp for the wave */
+	scale: number;
+	zh?: number;
+	q2?: number;
+}
+
+function familyOf(bulk: Bulk): Family {
+	const d = bulk.d;
+	const p = bulk.params as Record<string, number>;
+	switch (bulk.name) {
+		case 'brane':
+			return { kind: 'static', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh };
+		case 'boosted': {
+			const w = Math.pow(p.zh, -d);
+			const kind = p.v === 0 ? 'static' : 'boosted';
+			return { kind, d, w, q: p.kappa * w, sign: Math.sign(p.v) || 1, scale: p.zh, zh: p.zh };
+		}
+		case 'wave':
+			return { kind: 'wave', d, w: 0, q: Math.pow(p.zp, -d), sign: 1, scale: p.zp };
+		case 'charged':
+			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 };
+		default:
+			throw new HoloError(`the first law is defined here for brane, boosted, wave and charged, not ${bulk.name}`, 'bulk');
+	}
+}
+
+function checkOrder(order: Order): void {
+	if (order === 'exact') return;
+	if (!Number.isInteger(order) || order < 1 || order > 12) {
+		throw new HoloError('order must be an integer 1…12 or exact', 'o', order === 0 ? 'order 0 is the vacuum: ΔS = 0' : undefined);
+	}
+}
+
+/** ∂_λ A at fixed l for ∂_λ f, ∂_λ h given as power terms in z/scale (module comment). */
+export function areaParameterDerivative(slice: Slice, tp: TurningPoint, df: PowerTerm[], dh: PowerTerm[]): number {
+	const d = slice.d;
+	const m = 2 * (d - 1);
+	const scale = slice.scale ?? 1;
+	const horizon = slice.zh !== undefined && slice.scale === slice.zh;
+	const lz = horizon ? Math.log1p(-tp.eta) : Math.log(tp.z / scale);
+	const fT = (slice.fTerms ?? []).filter((t) => t.p !== 0 && t.c !== 0);
+	const hT = (slice.hTerms ?? []).filter((t) => t.p !== 0 && t.c !== 0);
+	const A = fT.map((t) => t.c * Math.exp(t.p * lz));
+	const B = hT.map((t) => t.c * Math.exp(t.p * lz));
+	let fstar = horizon ? 0 : 1;
+	let slope = 0;
+	fT.forEach((t, j) => {
+		fstar += horizon ? t.c * Math.expm1(t.p * lz) : A[j];
+		slope -= t.p * A[j];
+	});
+	const hstar = 1 + B.reduce((s, b) => s + b, 0);
+	const E = df.map((t) => t.c * Math.exp(t.p * lz));
+	const Hd = dh.map((t) => t.c * Math.exp(t.p * lz));
+	const a = slope > fstar ? Math.sqrt(fstar / slope) : 1;
+	const smax = Math.asinh(1 / a);
+	const panels = Math.max(1, Math.ceil(smax / 1.4));
+	const hw = smax / panels / 2;
+	const rule = gaussLegendre(24);
+	let sum = 0;
+	for (let k = 0; k < panels; k++) {
+		for (let i = 0; i < 24; i++) {
+			const sig = (2 * k + 1) * hw + hw * rule.x[i];
+			const s = a * Math.sinh(sig);
+			const jac = 2 * s * a * Math.cosh(sig) * hw * rule.w[i];
+			const lu = Math.log1p(-s * s);
+			let F = fstar;
+			fT.forEach((t, j) => (F += A[j] * Math.expm1(t.p * lu)));
+			let N = Math.expm1(-m * lu);
+			hT.forEach((t, j) => (N += B[j] * Math.expm1((t.p - m) * lu)));
+			let dF = 0;
+			df.forEach((t, j) => (dF += E[j] * Math.exp(t.p * lu)));
+			let dH = 0;
+			dh.forEach((t, j) => (dH += Hd[j] * Math.exp(t.p * lu)));
+			if (!(F > 0) || !(N > 0)) throw new HoloError(`no strip surface below z*=${tp.z}`, 'l');
+			const um = Math.exp(-m * lu);
+			sum += jac * ((dH * um) / Math.sqrt(F * N) - (dF * Math.sqrt(N)) / (F * Math.sqrt(F)));
+		}
+	}
+	void hstar;
+	return Math.pow(tp.z, 2 - d) * sum;
+}
+
+/** Exact ∂ΔA/∂w and ∂ΔA/∂q (the vacuum part does not depend on w, q). */
+function exactGradient(bulk: Bulk, l: number): { Aw: number; Aq: number; zstar: number } {
+	const d = bulk.d;
+	const sol = solveStrip(bulk.slice, l);
+	const sc = bulk.slice.scale ?? 1;
+	const zd = Math.pow(sc, d);
+	const Aw = areaParameterDerivative(bulk.slice, sol.point, [{ c: -zd, p: d }], []);
+	const Aq = areaParameterDerivative(bulk.slice, sol.point, [], [{ c: zd, p: d }]);
+	return { Aw, Aq, zstar: sol.zstar };
+}
+
+/** c_kj = coefficient of κ^j in a_k(κ), rows k = 1…n (core's closed-form boosted coefficients). */
+export function coefficientTable(d: number, n: number): number[][] {
+	const rows = boostedCoeffPolys(d, n);
+	if (rows.length < n) throw new HoloError(`series coefficients missing beyond order ${rows.length}`, 'o');
+	return rows.slice(0, n);
+}
+
+/** Per-family constants: ê = l(E1 δw + E2 δq), p̂ = l(P1 δw + P2 δq) at the bulk's point. */
+function energyMomentumSlopes(F: Family): { E1: number; E2: number; P1: number; P2: number } {
+	const d = F.d;
+	if (F.kind === 'wave') return { E1: d - 1, E2: d, P1: d / 2, P2: d };
+	const root = Math.sqrt(F.q * (F.q + F.w));
+	return { E1: d - 1, E2: d, P1: root > 0 ? (d * F.q) / (2 * root) : 0, P2: root > 0 ? (d * (2 * F.q + F.w)) / (2 * root) : Infinity };
+}
+
+export interface FirstLawSeries {
+	/** the expansion variable x = (l/zh)^d, or (l/zp)^d for the wave */
+	x: number;
+	variable: string;
+	/** α = l Σ alpha[i] x^i, ζ = l Σ zeta[i] x^i (i = 0…n−1) */
+	alpha: number[];
+	zeta: number[];
+	/** T_ent = (1/l) Σ tent[i] x^i and μ = Σ mu[i] x^i: the reciprocal and quotient series to the same order */
+	tent: number[];
+	mu: number[];
+	/** ∂ΔA/∂w = l² Σ W[i] x^i and ∂ΔA/∂q = l² Σ Q[i] x^i */
+	W: number[];
+	Q: number[];
+}
+
+export interface FirstLawCoefficients {
+	order: Order;
+	l: number;
+	alpha: number;
+	zeta: number;
+	tent: number;
+	mu: number;
+	twoParameter: boolean;
+	/** ∂ΔA/∂w, ∂ΔA/∂q at this order (or exact) */
+	Aw: number;
+	Aq: number;
+	series?: FirstLawSeries;
+}
+
+/** The order-n series of ∂_wΔA, ∂_qΔA, α, ζ, T_ent and μ in x (module comment). */
+export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries {
+	checkOrder(n);
+	const F = familyOf(bulk);
+	if (F.kind === 'charged') throw new HoloError('charged has no closed-form series: use o=exact', 'o', 'o=exact');
+	const c = coefficientTable(F.d, n);
+	const kappa = F.kind === 'wave' ? Infinity : F.w > 0 ? F.q / F.w : 0;
+	const W: number[] = [];
+	const Q: number[] = [];
+	for (let k = 1; k <= n; k++) {
+		const row = c[k - 1];
+		if (F.kind === 'wave') {
+			W.push(row[k - 1] ?? 0);
+			Q.push(k * (row[k] ?? 0));
+		} else {
+			let sw = 0;
+			let sq = 0;
+			for (let j = 0; j < row.length; j++) {
+				sw += row[j] * (k - j) * Math.pow(kappa, j);
+				if (j > 0) sq += row[j] * j * Math.pow(kappa, j - 1);
+			}
+			W.push(sw);
+			Q.push(sq);
+		}
+	}
+	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	let alpha: number[];
+	let zeta: number[];
+	if (F.kind === 'static') {
+		alpha = W.map((x) => (4 * Math.PI * x) / E1);
+		zeta = W.map(() => 0);
+	} else {
+		const D = E1 * P2 - E2 * P1;
+		alpha = W.map((x, i) => ((4 * Math.PI) / D) * (x * P2 - Q[i] * P1));
+		zeta = W.map((x, i) => ((4 * Math.PI) / D) * F.sign * (E1 * Q[i] - E2 * x));
+	}
+	const tent = reciprocalSeries(alpha);
+	const mu = multiplySeries(zeta, tent).map((v) => -v);
+	const x = Math.pow(l / F.scale, F.d);
+	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q };
+}
+
+/** 1/Σ a_i x^i to the same length (a_0 ≠ 0). */
+export function reciprocalSeries(a: number[]): number[] {
+	const b = [1 / a[0]];
+	for (let i = 1; i < a.length; i++) {
+		let s = 0;
+		for (let j = 1; j <= i; j++) s += a[j] * b[i - j];
+		b.push(-s / a[0]);
+	}
+	return b;
+}
+
+function multiplySeries(a: number[], b: number[]): number[] {
+	return a.map((_, i) => {
+		let s = 0;
+		for (let j = 0; j <= i; j++) s += a[j] * b[i - j];
+		return s;
+	});
+}
+
+const sumSeries = (a: number[], x: number) => a.reduce((s, v, i) => s + v * Math.pow(x, i), 0);
+
+/** α, ζ, T_ent = 1/α and μ = −ζ/α at order n (1…12) or 'exact'. G cancels. */
+export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): FirstLawCoefficients {
+	checkOrder(order);
+	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const F = familyOf(bulk);
+	const twoParameter = F.kind === 'boosted' || F.kind === 'wave';
+	let Aw: number;
+	let Aq: number;
+	let series: FirstLawSeries | undefined;
+	if (order === 'exact') {
+		if (F.kind === 'charged') return chargedExact(bulk, F, l);
+		({ Aw, Aq } = exactGradient(bulk, l));
+	} else {
+		series = firstLawSeries(bulk, l, order);
+		Aw = l * l * sumSeries(series.W, series.x);
+		Aq = l * l * sumSeries(series.Q, series.x);
+	}
+	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	let alpha: number;
+	let zeta = 0;
+	if (!twoParameter) alpha = (4 * Math.PI * Aw) / (l * E1);
+	else {
+		const D = l * (E1 * P2 - E2 * P1);
+		alpha = (4 * Math.PI * (Aw * P2 - Aq * P1)) / D;
+		zeta = (F.sign * 4 * Math.PI * (E1 * Aq - E2 * Aw)) / D;
+	}
+	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, Aw, Aq, series };
+}
+
+/** Charged brane at fixed q: α = 4π ∂_zhΔA / ∂_zh ê, ê = l(d−1)(1+q²)/zh^d. */
+function chargedExact(bulk: Bulk, F: Family, l: number): FirstLawCoefficients {
+	const sol = solveStrip(bulk.slice, l);
+	const zh = F.zh as number;
+	// ∂_zh f = −Σ c_j p_j (z/zh)^{p_j} / zh for f = 1 + Σ c_j (z/zh)^{p_j}
+	const df = (bulk.slice.fTerms ?? []).filter((t) => t.p !== 0).map((t) => ({ c: (-t.c * t.p) / zh, p: t.p }));
+	const dA = areaParameterDerivative(bulk.slice, sol.point, df, []);
+	const de = (-F.d * l * (F.d - 1) * (1 + (F.q2 as number))) / Math.pow(zh, F.d + 1);
+	const alpha = (4 * Math.PI * dA) / de;
+	return { order: 'exact', l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, Aw: dA, Aq: 0 };
+}
+
+export interface TentResult {
+	value: number;
+	order: Order;
+	series?: FirstLawSeries;
+}
+
+/** Entanglement temperature T_ent = 1/α at order n or exact. */
+export function tent(bulk: Bulk, l: number, order: Order): TentResult {
+	const r = firstLawCoefficients(bulk, l, order);
+	return { value: r.tent, order, series: r.series };
+}
+
+/** Chemical potential μ = −ζ/α conjugate to ΔP_y at order n or exact (0 for static bulks). */
+export function mu(bulk: Bulk, l: number, order: Order): TentResult {
+	const r = firstLawCoefficients(bulk, l, order);
+	return { value: r.mu, order, series: r.series };
+}
+
+export interface FirstLawDirection {
+	/** δΔS of the reference: order n+1 (or exact when order = 'exact') */
+	lhs: number;
+	/** α δΔE + ζ δΔP_y with this order's α, ζ */
+	rhs: number;
+	residual: number;
+	/** δΔS_exact − rhs: the order-n relation against the exact ΔS */
+	residualExact: number;
+}
+
+export interface FirstLawCheck extends FirstLawCoefficients {
+	/** variation (δw, δq) = (w, q): δ ln zh = −1/d at fixed v (wave: δ ln zp = −1/d) */
+	scale: FirstLawDirection;
+	/** second direction of a two-parameter bulk: boosted (0, q) (κ only), wave (q, 0) (switch on a temperature) */
+	shape?: FirstLawDirection;
+	G: number;
+}
+
+/**
+ * The first law at order n checked against order n+1 and against the exact ΔS, per unit variation along
+ * the directions named in FirstLawCheck. By construction the order-n relation holds exactly for ΔS⁽ⁿ⁾, so
+ * `residual` is the variation of the (n+1)-th term: at fixed l it scales like (l/zh)^{(n+1)d}.
+ */
+export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCheck {
+	if (!(G > 0) || !Number.isFinite(G)) throw new HoloError('G must be positive', 'G');
+	const F = familyOf(bulk);
+	const co = firstLawCoefficients(bulk, l, order);
+	const ex = order === 'exact' ? co : firstLawCoefficients(bulk, l, 'exact');
+	const ref = order === 'exact' ? co : order < 12 ? firstLawCoefficients(bulk, l, order + 1) : ex;
+	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const dir = (dw: number, dq: number): FirstLawDirection => {
+		const sgn = F.sign;
+		const dE = (l * (E1 * dw + E2 * dq)) / (16 * Math.PI * G);
+		const dP = co.twoParameter ? (sgn * l * (P1 * dw + P2 * dq)) / (16 * Math.PI * G) : 0;
+		const rhs = co.alpha * dE + co.zeta * dP;
+		const lhs = (ref.Aw * dw + ref.Aq * dq) / (4 * G);
+		const exact = (ex.Aw * dw + ex.Aq * dq) / (4 * G);
+		return { lhs, rhs, residual: lhs - rhs, residualExact: exact - rhs };
+	};
+	if (F.kind === 'charged') {
+		// one parameter (zh at fixed q): report per unit δ ln zh = −1/d, like the scale direction
+		const zh = F.zh as number;
+		const s = zh / F.d;
+		const dE = (-(F.d - 1) * l * (1 + (F.q2 as number)) * -F.d * s) / (Math.pow(zh, F.d + 1) * 16 * Math.PI * G);
+		const rhs = co.alpha * dE;
+		const lhs = (-co.Aw * s) / (4 * G);
+		return { ...co, G, scale: { lhs, rhs, residual: lhs - rhs, residualExact: lhs - rhs } };
+	}
+	const scale = dir(F.w, F.q);
+	const shape = F.kind === 'boosted' ? dir(0, F.q) : F.kind === 'wave' ? dir(F.q, 0) : undefined;
+	return { ...co, G, scale, shape };
+}
