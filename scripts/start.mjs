@@ -28,14 +28,10 @@ if (built('dist/eval-worker.mjs') < newest('src/lib')) run(['scripts/build-worke
 if (built('build/handler.js') < sources) run(['node_modules/vite/bin/vite.js', 'build']);
 
 const port = process.env.PORT ?? '3000';
-const env = {
-	NODE_ENV: 'production',
-	PORT: port,
-	HOST: process.env.HOST ?? '127.0.0.1',
-	ORIGIN: process.env.ORIGIN ?? `http://localhost:${port}`,
-	...process.env
-};
-console.log(`Bulkpad on ${env.ORIGIN} (demo password: bulkpad-demo)`);
-const server = spawn(process.execPath, ['build/index.js'], { stdio: 'inherit', env });
+const env = { NODE_ENV: 'production', PORT: port, HOST: '127.0.0.1', ...process.env };
+// with ORIGIN (a deployment behind TLS) adapter-node's own server; without it, plain local HTTP
+const entry = process.env.ORIGIN ? 'build/index.js' : 'scripts/serve.mjs';
+console.log(`Bulkpad on ${process.env.ORIGIN ?? `http://localhost:${port}`} (demo password: bulkpad-demo)`);
+const server = spawn(process.execPath, [entry], { stdio: 'inherit', env });
 for (const sig of ['SIGINT', 'SIGTERM']) process.on(sig, () => server.kill(sig));
 server.on('exit', (code) => process.exit(code ?? 0));

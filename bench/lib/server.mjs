@@ -18,7 +18,7 @@ function freePort() {
 export async function startBuiltServer(extraEnv = {}) {
 	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) throw new Error('build first: npm run build');
 	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
-	const env = { ...process.env, DATABASE_URL: join(dir, 'bench.db'), NODE_ENV: 'production', BULKPAD_INSECURE_COOKIES: '1', ...extraEnv };
+	const env = { ...process.env, DATABASE_URL: join(dir, 'bench.db'), NODE_ENV: 'production', ...extraEnv };
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
 	if (seed.status !== 0) throw new Error(seed.stderr);
 	const port = await freePort();

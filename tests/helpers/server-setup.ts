@@ -40,7 +40,6 @@ export default async function setup(project: TestProject) {
 		...process.env,
 		DATABASE_URL: dbFile,
 		NODE_ENV: 'production',
-		BULKPAD_INSECURE_COOKIES: '1',
 		SMTP_PORT: String(smtp.port),
 		BULKPAD_SIGNIN_PER_MINUTE: '5',
 		BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS: '100000',

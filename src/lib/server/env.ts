@@ -7,8 +7,13 @@ function intFrom(name: string, fallback: number): number {
 
 export const env = {
 	databaseUrl: process.env.DATABASE_URL ?? 'data/bulkpad.db',
-	/** secure cookies everywhere but plain-http development and tests */
-	secureCookies: process.env.NODE_ENV === 'production' && process.env.BULKPAD_INSECURE_COOKIES !== '1',
+	/**
+	 * Secure cookies whenever the app is reached over https (a deployment sets ORIGIN=https://…), or when
+	 * forced; a Secure cookie over plain http on this machine would simply never come back.
+	 */
+	secureCookies:
+		process.env.BULKPAD_SECURE_COOKIES === '1' ||
+		(process.env.NODE_ENV === 'production' && (process.env.ORIGIN ?? '').startsWith('https://')),
 	origin: process.env.ORIGIN ?? 'http://localhost:3000',
 	evalBudgetMs: intFrom('BULKPAD_EVAL_BUDGET_MS', 5000),
 	evalThreads: intFrom('BULKPAD_EVAL_THREADS', 2),
