@@ -1,0 +1,96 @@
+/**
+ * Datasets: a member's own numbers (a CSV) kept per owner under a name the console can use,
+ * `compare <name> …`. Only the owner ever sees one; any other id is the same 404.
+ */
+import { and, desc, eq } from 'drizzle-orm';
+import { z } from 'zod';
+import { getDb, schema } from './db';
+import { newId } from './auth/accounts';
+import type { AppUser } from './auth/guards';
+import { failure } from './http';
+import { env } from './env';
+import { CsvProblem, parseNumericCsv } from './csv';
+import { formatBytes } from '../library/format';
+
+/** The language reads `compare <name>` as a plain name: letters, digits and `_`, starting with a letter. */
+export const DATASET_NAME = /^[a-z][a-z0-9_]*$/;
+export const DATASET_NAME_MAX = 40;
+export const DATASETS_PER_OWNER = 50;
+
+export const datasetNameSchema = z
+	.string()
+	.trim()
+	.max(DATASET_NAME_MAX, `A dataset name has at most ${DATASET_NAME_MAX} characters.`)
+	.regex(DATASET_NAME, "A dataset name is lower-case letters, digits and '_', starting with a letter (e.g. lattice_d4).");
+
+/** Browsers and operating systems label CSV files differently; anything else is not a CSV. */
+const CSV_TYPES = new Set(['', 'text/csv', 'application/csv', 'text/comma-separated-values', 'application/vnd.ms-excel', 'text/plain', 'application/octet-stream']);
+
+/** `Lattice d=4 (v2).csv` → `lattice_d_4_v2`: a usable name when the uploader gives none. */
+export function nameFromFile(fileName: string): string {
+	const stem = fileName.replace(/\.[^.]*$/, '').toLowerCase();
+	let name = stem.replace(/[^a-z0-9_]+/g, '_').replace(/^_+|_+$/g, '').replace(/_+/g, '_');
+	if (!/^[a-z]/.test(name)) name = 'data_' + name;
+	return name.slice(0, DATASET_NAME_MAX).replace(/_+$/, '') || 'data';
+}
+
+type DatasetRow = typeof schema.datasets.$inferSelect;
+
+function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes' | 'createdAt'>) {
+	return { id: d.id, name: d.name, columns: d.columns as string[], rows: (d.rows as number[][]).length, bytes: d.bytes, createdAt: d.createdAt };
+}
+export type DatasetSummary = ReturnType<typeof summary>;
+
+export function listDatasets(owner: AppUser): DatasetSummary[] {
+	return getDb().select().from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).orderBy(desc(schema.datasets.createdAt)).all().map(summary);
+}
+
+function findOwn(owner: AppUser, id: string): DatasetRow {
+	const row = getDb().select().from(schema.datasets).where(and(eq(schema.datasets.id, id), eq(schema.datasets.ownerId, owner.id))).get();
+	if (!row) failure(404, 'No such dataset.');
+	return row;
+}
+
+/** The owner's dataset with every row. */
+export function getDataset(owner: AppUser, id: string) {
+	const row = findOwn(owner, id);
+	return { ...summary(row), count: (row.rows as number[][]).length, rows: row.rows as number[][] };
+}
+
+export function deleteDataset(owner: AppUser, id: string): void {
+	const row = findOwn(owner, id);
+	getDb().delete(schema.datasets).where(eq(schema.datasets.id, row.id)).run();
+}
+
+/** Type first (cheap), then size, then content: each answers the status a client can act on. */
+export async function uploadDataset(owner: AppUser, file: File, requestedName: string | null): Promise<DatasetSummary> {
+	if (!/\.csv$/i.test(file.name) || !CSV_TYPES.has(file.type.split(';')[0]!.trim().toLowerCase())) {
+		failure(400, `Only CSV files can be uploaded (got ${file.name || 'a file without a name'}${file.type ? `, ${file.type}` : ''}).`);
+	}
+	if (file.size > env.uploadMaxBytes) {
+		failure(413, `The file is ${formatBytes(file.size)}; the limit is ${formatBytes(env.uploadMaxBytes)}.`, { limit: env.uploadMaxBytes });
+	}
+	const raw = requestedName?.trim() ? requestedName : nameFromFile(file.name);
+	const named = datasetNameSchema.safeParse(raw);
+	if (!named.success) failure(400, named.error.issues[0]!.message);
+	const name = named.data;
+
+	let table;
+	try {
+		table = parseNumericCsv(new TextDecoder('utf-8', { fatal: false }).decode(await file.arrayBuffer()));
+	} catch (e) {
+		if (e instanceof CsvProblem) failure(400, e.message, e.where);
+		throw e;
+	}
+
+	const db = getDb();
+	const row = db.transaction((tx) => {
+		const mine = tx.select({ id: schema.datasets.id, name: schema.datasets.name }).from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).all();
+		if (mine.some((d) => d.name === name)) failure(409, `You have a dataset called '${name}' already: delete it first or give another name.`);
+		if (mine.length >= DATASETS_PER_OWNER) failure(409, `You have ${mine.length} datasets; delete one before uploading more.`);
+		const row = { id: newId(), ownerId: owner.id, name, columns: table.columns, rows: table.rows, bytes: file.size, createdAt: new Date() };
+		tx.insert(schema.datasets).values(row).run();
+		return row;
+	});
+	return summary(row);
+}
