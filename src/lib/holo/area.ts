@@ -51,5 +51,5 @@ export function areaFinite(bulk: Bulk, l: number): number {
 export function deltaArea(bulk: Bulk, l: number): number {
 	checkL(l);
 	if (bulk.name === 'vacuum') return 0;
-	return solveStrip(bulk.slice, l).areaFinite - vacuumAreaFinite(bulk.d, l);
+	return solveStrip(bulk.slice, l).deltaArea;
 }

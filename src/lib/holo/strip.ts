@@ -83,14 +83,102 @@ function prepare(slice: Slice): Prepared {
 const GL_N = 24;
 const PANEL = 1.4;
 
-/** Evaluates the width (and, if asked, the finite area) at a turning point. */
-function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): { width: number; area: number } {
+/** Quadrature nodes in u with everything that depends only on u (and the slice's powers), for a given a. */
+interface Nodes {
+	n: number;
+	jac: Float64Array; // weight · du/dσ
+	lu: Float64Array; // ln u
+	u: Float64Array;
+	N0: Float64Array; // u^{−m} − 1
+	omum: Float64Array; // 1 − u^m
+	um: Float64Array; // u^m
+	u1d: Float64Array; // u^{1−d}
+	fE: Float64Array[]; // per f term: u^p − 1
+	hU: Float64Array[]; // per h term: u^p
+	hE: Float64Array[]; // per h term: u^p − 1
+	hN: Float64Array[]; // per h term: u^{p−m} − 1
+}
+
+const fixedNodes = new WeakMap<Prepared, Nodes>();
+
+function buildNodes(P: Prepared, a: number): Nodes {
+	const smax = Math.asinh(1 / a);
+	const panels = Math.max(1, Math.ceil(smax / PANEL));
+	const hw = smax / panels / 2;
+	const rule = gaussLegendre(GL_N);
+	const n = panels * GL_N;
+	const arr = () => new Float64Array(n);
+	const X: Nodes = {
+		n,
+		jac: arr(),
+		lu: arr(),
+		u: arr(),
+		N0: arr(),
+		omum: arr(),
+		um: arr(),
+		u1d: arr(),
+		fE: Array.from(P.fp, arr),
+		hU: Array.from(P.hp, arr),
+		hE: Array.from(P.hp, arr),
+		hN: Array.from(P.hp, arr)
+	};
+	const { m, d } = P;
+	let q = 0;
+	for (let k = 0; k < panels; k++) {
+		const mid = (2 * k + 1) * hw;
+		for (let i = 0; i < GL_N; i++, q++) {
+			const sig = mid + hw * rule.x[i];
+			const s = a * Math.sinh(sig);
+			X.jac[q] = 2 * s * a * Math.cosh(sig) * hw * rule.w[i]; // du = 2s ds, ds = a cosh σ dσ
+			const lu = Math.log1p(-s * s);
+			X.lu[q] = lu;
+			X.u[q] = 1 - s * s;
+			X.N0[q] = Math.expm1(-m * lu);
+			X.omum[q] = -Math.expm1(m * lu);
+			X.um[q] = Math.exp(m * lu);
+			X.u1d[q] = Math.exp((1 - d) * lu);
+			P.fp.forEach((p, j) => (X.fE[j][q] = Math.expm1(p * lu)));
+			P.hp.forEach((p, j) => {
+				X.hU[j][q] = Math.exp(p * lu);
+				X.hE[j][q] = Math.expm1(p * lu);
+				X.hN[j][q] = Math.expm1((p - m) * lu);
+			});
+		}
+	}
+	return X;
+}
+
+function nodesFor(P: Prepared, a: number): Nodes {
+	if (a !== 1) return buildNodes(P, a);
+	let X = fixedNodes.get(P);
+	if (!X) {
+		X = buildNodes(P, 1);
+		fixedNodes.set(P, X);
+	}
+	return X;
+}
+
+/** Width factor W = l/z* and, with `wantArea`, the parts of the area relative to the vacuum. */
+interface Parts {
+	width: number;
+	/** (W − W₀)/W₀, formed without cancellation. */
+	wrel: number;
+	/** S − S₀ where A_fin = 2 z*^{2−d} S (d = 2: A_fin = 2S + 2 ln z*). */
+	dS: number;
+}
+
+/**
+ * Integrals at one turning point. The integrands are written relative to the vacuum ones,
+ * 1/√(fN) = (1/√N₀)(1 + expm1(−½ ln(f N/N₀))) and g = g₀ (1 + expm1(ln g/g₀)), g₀ = 1/√(1−u^m), whose
+ * vacuum parts are Beta functions in closed form; so W − W₀ and S − S₀ (hence ΔA) keep full relative accuracy
+ * even when ΔA/A ~ (l/zh)^d is tiny.
+ */
+function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	const { d, m, fp, fc, hp, hc } = P;
 	const zs = tp.z;
 	const zeta = zs / P.scale;
 	const nf = fp.length;
 	const nh = hp.length;
-	// Per-turning-point coefficients A_j = c_j ζ*^p, B_j likewise; f*, h*.
 	const A = new Float64Array(nf);
 	const B = new Float64Array(nh);
 	let fstar: number;
@@ -113,80 +201,94 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): { width: n
 		fstar = P.slice.f(zs);
 		hstar = P.slice.h(zs);
 		const dz = 1e-6 * zs;
-		cslope = (zs * (P.slice.f(zs) - P.slice.f(zs - dz))) / dz;
+		cslope = (zs * (fstar - P.slice.f(zs - dz))) / dz;
 	}
-	if (!(fstar > 0) || !(hstar > 0)) {
+	if (!(fstar > 0) || !(hstar > 0) || !Number.isFinite(fstar * hstar)) {
 		throw new HoloError(`the metric is not positive at the turning point z*=${zs}`, 'zstar');
 	}
 	const a = cslope > fstar ? Math.sqrt(fstar / cslope) : 1;
-	const smax = Math.asinh(1 / a);
-	const panels = Math.max(1, Math.ceil(smax / PANEL));
-	const hw = smax / panels / 2;
-	const rule = gaussLegendre(GL_N);
-	let wsum = 0;
-	let asum = 0;
-	for (let k = 0; k < panels; k++) {
-		const mid = (2 * k + 1) * hw;
-		for (let i = 0; i < GL_N; i++) {
-			const sig = mid + hw * rule.x[i];
-			const s = a * Math.sinh(sig);
-			const jac = 2 * s * a * Math.cosh(sig) * hw * rule.w[i]; // du = 2s ds, ds = a cosh σ dσ
-			const s2 = s * s;
-			const lu = Math.log1p(-s2);
-			const u = 1 - s2;
-			let F: number;
-			let Fm1: number;
-			let hu: number;
-			let hm1: number;
-			let N: number;
-			if (P.exact) {
-				F = fstar;
-				Fm1 = 0;
-				for (let j = 0; j < nf; j++) {
-					const e = Math.expm1(fp[j] * lu);
-					F += A[j] * e;
-					Fm1 += A[j] * (1 + e);
-				}
-				N = Math.expm1(-m * lu); // u^{−m} − 1
-				hm1 = 0;
-				for (let j = 0; j < nh; j++) {
-					const up = Math.exp(hp[j] * lu);
-					hm1 += B[j] * up;
-					N += B[j] * Math.expm1((hp[j] - m) * lu);
-				}
-				hu = 1 + hm1;
-			} else {
-				const z = u * zs;
-				F = P.slice.f(z);
-				Fm1 = F - 1;
-				hu = P.slice.h(z);
-				hm1 = hu - 1;
-				N = hu * Math.exp(-m * lu) - hstar;
+	const X = nodesFor(P, a);
+	let wd = 0;
+	let ad = 0;
+	for (let q = 0; q < X.n; q++) {
+		let F: number;
+		let Fm1: number;
+		let hm1: number;
+		let dh: number; // h(uz*) − h*
+		let dN: number; // N − N₀
+		if (P.exact) {
+			F = fstar;
+			Fm1 = 0;
+			for (let j = 0; j < nf; j++) {
+				const e = X.fE[j][q];
+				F += A[j] * e;
+				Fm1 += A[j] * (1 + e);
 			}
-			if (!(F > 0) || !(N > 0) || !(hu > 0) || !Number.isFinite(F * N * hu)) {
-				throw new HoloError(
-					`no strip surface: f or H is not positive/decreasing below z*=${zs}`,
-					'l',
-					'the metric must keep f > 0 and H = h/z^{2(d−1)} decreasing on (0, z*]'
-				);
+			hm1 = 0;
+			dh = 0;
+			dN = 0;
+			for (let j = 0; j < nh; j++) {
+				hm1 += B[j] * X.hU[j][q];
+				dh += B[j] * X.hE[j][q];
+				dN += B[j] * X.hN[j][q];
 			}
-			const FN = F * N;
-			wsum += jac / Math.sqrt(FN);
-			if (wantArea) {
-				const logF = Math.abs(Fm1) < 0.5 ? Math.log1p(Fm1) : Math.log(F);
-				const r = (hstar / hu) * Math.exp(m * lu);
-				const lnQ = r < 0.5 ? Math.log1p(-r) : Math.log(N) + m * lu - Math.log(hu);
-				const lng = 0.5 * (Math.log1p(hm1) - logF - lnQ);
-				asum += jac * Math.exp((1 - d) * lu) * Math.expm1(lng);
-			}
+		} else {
+			const z = X.u[q] * zs;
+			F = P.slice.f(z);
+			Fm1 = F - 1;
+			const hu = P.slice.h(z);
+			hm1 = hu - 1;
+			dh = hu - hstar;
+			dN = hu / X.um[q] - hstar - X.N0[q];
+		}
+		const N0 = X.N0[q];
+		const N = N0 + dN;
+		if (!(F > 0) || !(N > 0) || !(hm1 > -1) || !Number.isFinite(F * N * hm1)) {
+			throw new HoloError(
+				`no strip surface: f or H is not positive/decreasing below z*=${zs}`,
+				'l',
+				'the metric must keep f > 0 and H = h/z^{2(d−1)} decreasing on (0, z*]'
+			);
+		}
+		const logF = Math.abs(Fm1) < 0.5 ? Math.log1p(Fm1) : Math.log(F);
+		const lnNN0 = Math.log1p(dN / N0);
+		wd += (X.jac[q] * Math.expm1(-0.5 * (logF + lnNN0))) / Math.sqrt(N0);
+		if (wantArea) {
+			const omum = X.omum[q];
+			const lnQQ0 = Math.log1p((X.um[q] * dh) / ((1 + hm1) * omum));
+			const lngg0 = 0.5 * (Math.log1p(hm1) - logF - lnQQ0);
+			ad += (X.jac[q] * X.u1d[q] * Math.expm1(lngg0)) / Math.sqrt(omum);
 		}
 	}
-	const width = 2 * zs * Math.sqrt(hstar) * wsum;
-	let area = NaN;
-	if (wantArea) {
-		area = d === 2 ? 2 * asum + 2 * Math.log(zs) : 2 * Math.pow(zs, 2 - d) * (asum - 1 / (d - 2));
-	}
-	return { width, area };
+	const W0 = vacuumWidthFactor(d);
+	const sh = Math.sqrt(hstar);
+	// W = 2√h* (W₀/2 + ΔI_w)  ⇒  (W − W₀)/W₀ = (√h* − 1) + 2√h* ΔI_w / W₀
+	const wrel = Math.expm1(0.5 * Math.log1p(hstar - 1)) + (2 * sh * wd) / W0;
+	return { width: zs * W0 * (1 + wrel), wrel, dS: ad };
+}
+
+/** S₀ = Ŝ for the vacuum: −√π Γ(d/m)/Γ(1/m)/(d−2), d = 2: ln 2 − (the ln z* is kept apart). */
+function vacuumS(d: number): number {
+	if (d === 2) return Math.LN2;
+	const m = 2 * (d - 1);
+	return (-Math.sqrt(Math.PI) * gamma(d / m)) / gamma(1 / m) / (d - 2);
+}
+
+function finiteArea(d: number, zs: number, dS: number): number {
+	const S = vacuumS(d) + dS;
+	return d === 2 ? 2 * S + 2 * Math.log(zs) : 2 * Math.pow(zs, 2 - d) * S;
+}
+
+/**
+ * ΔA at width l from the parts, without subtracting two large numbers:
+ *   d > 2: ΔA = 2 l^{2−d} W₀^{d−2} [ S₀ expm1((d−2) ln(1 + wrel)) + (1 + wrel)^{d−2} ΔS ]
+ *   d = 2: ΔA = 2 ΔS − 2 ln(1 + wrel)
+ */
+export function deltaFromParts(d: number, l: number, wrel: number, dS: number): number {
+	if (d === 2) return 2 * dS - 2 * Math.log1p(wrel);
+	const W0 = vacuumWidthFactor(d);
+	const lw = Math.log1p(wrel);
+	return 2 * Math.pow(l / W0, 2 - d) * (vacuumS(d) * Math.expm1((d - 2) * lw) + Math.exp((d - 2) * lw) * dS);
 }
 
 /** Turning point from the root-finder's variable x (logit of z* / bound, or ln z*). */
@@ -216,9 +318,15 @@ export function vacuumWidthFactor(d: number): number {
 }
 
 /** Width and finite area of the strip on `slice` whose turning point is `tp` (one pass of the quadrature). */
-export function integrateStrip(slice: Slice, tp: TurningPoint): StripIntegrals {
-	const r = integrate(prepare(slice), tp, true);
-	return { zstar: tp.z, width: r.width, areaFinite: r.area };
+export function integrateStrip(slice: Slice, tp: TurningPoint): StripIntegrals & { deltaArea: number } {
+	const P = prepare(slice);
+	const r = integrate(P, tp, true);
+	return {
+		zstar: tp.z,
+		width: r.width,
+		areaFinite: finiteArea(P.d, tp.z, r.dS),
+		deltaArea: deltaFromParts(P.d, r.width, r.wrel, r.dS)
+	};
 }
 
 /** Width l(z*) only. */
@@ -231,7 +339,7 @@ export function widthAt(slice: Slice, tp: TurningPoint): number {
  * at both ends (l ∝ z* for small z*, l ∝ −ln(1 − z* / zh) near a horizon); the bracket is grown from the
  * vacuum guess z* = l/W₀. Returns the turning point with η exact, and the finite area there.
  */
-export function solveStrip(slice: Slice, l: number): StripIntegrals & { point: TurningPoint } {
+export function solveStrip(slice: Slice, l: number): StripIntegrals & { point: TurningPoint; deltaArea: number } {
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const P = prepare(slice);
 	const lnl = Math.log(l);
@@ -260,5 +368,11 @@ export function solveStrip(slice: Slice, l: number): StripIntegrals & { point: T
 	const root = findRootBrent(g, x0, x1, 4e-16, 200, g0, g1);
 	const point = pointOf(P, root.x);
 	const r = integrate(P, point, true);
-	return { zstar: point.z, width: r.width, areaFinite: r.area, point };
+	return {
+		zstar: point.z,
+		width: r.width,
+		areaFinite: finiteArea(P.d, point.z, r.dS),
+		deltaArea: deltaFromParts(P.d, l, r.wrel, r.dS),
+		point
+	};
 }

@@ -1,23 +1,149 @@
 import { HoloError } from '../errors';
+import { solveStrip } from '../strip';
 import type { Bulk, SeriesCoeff } from '../types';
+import { btzCoeff, fractionValue } from './btz';
+import { kappaCoeffs } from './coeffs';
+import { coeffLatex } from './latex';
+import { radiusFromCoeffs } from './radius';
 
-/** Placeholder until the closed-form series lands (same signatures). */
-export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
-	throw new HoloError(`series not yet available for ${bulk.name} (n=${n})`, 'o');
+/** Highest order served (the double-precision coefficients stay within 1e−12 up to here). */
+export const MAX_ORDER = 14;
+
+function checkOrder(n: number): void {
+	if (!Number.isInteger(n) || n < 0) throw new HoloError('order must be a non-negative integer', 'o');
+	if (n > MAX_ORDER) throw new HoloError(`order must be ≤ ${MAX_ORDER}`, 'o', 'use o=exact');
 }
-export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
-	if (n === 0) return 0;
-	return seriesCoeffs(bulk, n).reduce((s, c) => s + c.value * l, 0);
+
+function requireSeries(bulk: Bulk): void {
+	if (!bulk.hasSeries || !bulk.scale) {
+		throw new HoloError(`no closed-form series for ${bulk.name}`, 'o', 'use o=exact');
+	}
 }
+
+/**
+ * a_k(κ) of the boosted brane as coefficient arrays of κ^0..κ^k, k = 1..n (d ≥ 3); the static brane is the
+ * κ^0 entry and the wave (scale zp) the κ^k entry. Stable signature for the first-law code.
+ */
 export function boostedCoeffPolys(d: number, n: number): number[][] {
-	throw new HoloError(`series not yet available (d=${d}, n=${n})`, 'o');
+	checkOrder(n);
+	if (!Number.isInteger(d) || d < 3 || d > 10) throw new HoloError('d must be an integer in 3..10', 'd');
+	return kappaCoeffs(d, n).map((p) => p.slice());
 }
+
+/** The numbers a_k (k = 1..n) of this bulk (brane, boosted, wave). */
+export function seriesValues(bulk: Bulk, n: number): number[] {
+	requireSeries(bulk);
+	checkOrder(n);
+	const { d } = bulk;
+	if (d === 2) {
+		if (bulk.name !== 'brane') throw new HoloError(`no series for ${bulk.name} at d = 2`, 'd');
+		return Array.from({ length: n }, (_, i) => fractionValue(btzCoeff(i + 1)));
+	}
+	const polys = kappaCoeffs(d, n);
+	const { alpha, beta } = bulk.series!;
+	return polys.map((p, i) => {
+		if (alpha === 0) return p[i + 1] * Math.pow(beta, i + 1);
+		let s = 0;
+		for (let r = p.length - 1; r >= 0; r--) s = s * beta + p[r];
+		return s;
+	});
+}
+
+/** Closed-form coefficients with their LaTeX; ΔA = l^{2−d} Σ_{k=1..n} a_k (l/scale)^{kd}. */
+export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
+	const values = seriesValues(bulk, n);
+	const polys = bulk.d >= 3 ? kappaCoeffs(bulk.d, n) : undefined;
+	return values.map((value, i) => {
+		const k = i + 1;
+		const c: SeriesCoeff = { k, value, latex: coeffLatex(bulk, k, value, polys?.[i]) };
+		if (bulk.name === 'boosted' && polys) c.poly = polys[i].slice();
+		return c;
+	});
+}
+
+/** Order-n series for ΔA at width l (order 0 is the vacuum: 0). */
+export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
+	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	checkOrder(n);
+	if (n === 0) return 0;
+	const a = seriesValues(bulk, n);
+	const tau = Math.pow(l / bulk.scale!, bulk.d);
+	let s = 0;
+	for (let k = n; k >= 1; k--) s = (s + a[k - 1]) * tau;
+	return Math.pow(l, 2 - bulk.d) * s;
+}
+
+const validityCache = new Map<string, { l_max: number; radius: number }>();
+
+/** Radius of convergence in l (same units as l), from the coefficients up to MAX_ORDER. */
+export function seriesRadius(bulk: Bulk): number {
+	requireSeries(bulk);
+	const rTau = radiusFromCoeffs(seriesValues(bulk, MAX_ORDER));
+	return bulk.scale! * Math.pow(rTau, 1 / bulk.d);
+}
+
+/**
+ * Validity of order n: l_max is the largest l (on (0, radius]) below which the order-n series stays within
+ * a relative error `tol` of the exact ΔA, |ΔA_n − ΔA| ≤ tol·|ΔA|, found by a log-spaced scan from
+ * 1e−3·scale and bisection to 1e−6 relative. `radius` as in `seriesRadius`.
+ */
 export function validity(bulk: Bulk, n: number, tol: number): { l_max: number; radius: number } {
-	throw new HoloError(`validity not yet available for ${bulk.name} (n=${n}, tol=${tol})`, 'o');
+	requireSeries(bulk);
+	checkOrder(n);
+	if (!(tol > 0) || !(tol < 1)) throw new HoloError('tol must satisfy 0 < tol < 1', 'tol');
+	const key = `${bulk.name}:${JSON.stringify(bulk.params)}:${n}:${tol}`;
+	const hit = validityCache.get(key);
+	if (hit) return hit;
+	const radius = seriesRadius(bulk);
+	const exact = (l: number) => solveStrip(bulk.slice, l).deltaArea;
+	const bad = (l: number) => {
+		const e = exact(l);
+		return !(Math.abs(deltaAreaSeries(bulk, l, n) - e) <= tol * Math.abs(e));
+	};
+	const top = Math.min(radius, 50 * bulk.scale!);
+	let lo = 1e-3 * bulk.scale!;
+	let result: number;
+	if (n === 0 || bad(lo)) result = n === 0 ? 0 : lo;
+	else {
+		let hi = NaN;
+		const steps = 60;
+		const factor = Math.pow(top / lo, 1 / steps);
+		for (let i = 1; i <= steps; i++) {
+			const l = lo * factor;
+			if (bad(l)) {
+				hi = l;
+				break;
+			}
+			lo = l;
+		}
+		if (Number.isNaN(hi)) result = top;
+		else {
+			while (hi / lo - 1 > 1e-6) {
+				const mid = Math.sqrt(lo * hi);
+				if (bad(mid)) hi = mid;
+				else lo = mid;
+			}
+			result = lo;
+		}
+	}
+	const out = { l_max: result, radius };
+	validityCache.set(key, out);
+	return out;
 }
+
+/** undefined when order n is reliable at l (within 1% of exact); otherwise a sentence saying why not. */
 export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefined {
-	void bulk;
-	void l;
-	void n;
+	if (n === 0 || !bulk.hasSeries) return undefined;
+	const { l_max, radius } = validity(bulk, n, 1e-2);
+	if (l >= radius) {
+		return `l=${fmt(l)} is beyond the series' radius of convergence (≈ ${fmt(radius)}): an order-${n} truncation here is a number, not an approximation — use o=exact`;
+	}
+	if (l > l_max) {
+		return `order ${n} is off by more than 1% beyond l ≈ ${fmt(l_max)} (l=${fmt(l)}): use a higher order or o=exact`;
+	}
 	return undefined;
+}
+
+function fmt(x: number): string {
+	return Number(x.toPrecision(4)).toString();
 }
