@@ -110,3 +110,29 @@ export function printStatement(s: A.Statement): string {
 export function printLine(line: A.Line): string {
 	return line.statements.map(printStatement).join('; ');
 }
+
+/** Arithmetic as LaTeX for KaTeX: fractions for '/', \cdot for '*', \pi for pi, \#4 for references. */
+export function texExpr(e: A.Expr): string {
+	switch (e.type) {
+		case 'number':
+			return /e/i.test(e.raw) ? e.raw.replace(/^(.*?)[eE]([+-]?\d+)$/, (_, m: string, x: string) => `${m}\\times10^{${Number(x)}}`) : e.raw;
+		case 'name':
+			return e.name === 'pi' ? '\\pi' : e.name.length === 1 ? e.name : `\\mathrm{${e.name.replace(/_/g, '\\_')}}`;
+		case 'ref':
+			return e.field === undefined ? `\\#${e.step}` : `\\#${e.step}.\\mathrm{${e.field.replace(/_/g, '\\_')}}`;
+		case 'paren':
+			return `\\left(${texExpr(e.inner)}\\right)`;
+		case 'unary':
+			return `${e.op}${texExpr(e.arg)}`;
+		case 'call':
+			return `\\mathrm{${e.fn}}\\left(${e.args.map(texExpr).join(', ')}\\right)`;
+		case 'binary':
+			if (e.op === '/') return `\\frac{${texExpr(unparen(e.left))}}{${texExpr(unparen(e.right))}}`;
+			if (e.op === '^') return `{${texExpr(e.left)}}^{${texExpr(unparen(e.right))}}`;
+			return `${texExpr(e.left)} ${e.op === '*' ? '\\cdot' : e.op} ${texExpr(e.right)}`;
+	}
+}
+
+function unparen(e: A.Expr): A.Expr {
+	return e.type === 'paren' ? e.inner : e;
+}

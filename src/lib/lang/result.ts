@@ -28,8 +28,17 @@ export interface TableResult {
 	columns: string[];
 	rows: (number | string | null)[][];
 	/** plot hints: which column is x, whether a plot was asked, the validity region per order column */
-	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string };
+	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string; show?: boolean };
 	warning?: string;
+	/** LaTeX of the table (a tabular), present when `| tex` was asked */
+	latex?: string;
+	/** set by `| csv`: the UI offers the table as a CSV download */
+	download?: Download;
+}
+/** A result marked for download by `| csv`. */
+export interface Download {
+	format: 'csv';
+	filename: string;
 }
 export interface SeriesResult {
 	kind: 'series';
@@ -72,10 +81,12 @@ export type UnitsState =
 export interface StepRef {
 	value?: number;
 	fields: Record<string, number>;
+	/** the perturbative order of value, when it came from a series (arithmetic on it keeps the order) */
+	order?: Order;
 }
 
 /** A value kept by `let`. */
-export type LetValue = { value?: number; fields: Record<string, number> };
+export type LetValue = { value?: number; fields: Record<string, number>; order?: Order };
 
 /** Everything a line needs from its pad. Plain JSON, so it can cross into a worker thread. */
 export interface PadContext {

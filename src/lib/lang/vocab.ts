@@ -101,3 +101,33 @@ export function isVerb(s: string): s is Verb {
 export function isBulk(s: string): s is BulkName {
 	return (BULKS as readonly string[]).includes(s);
 }
+
+export interface VerbForm {
+	/** quantity keys this form takes (bulk keys are always allowed) */
+	keys: readonly string[];
+	required: readonly string[];
+}
+
+/**
+ * Each verb's forms by subject; the first is the default when the line names none. `''` means the verb
+ * takes no subject at all.
+ */
+export const VERB_FORMS: Record<Verb, Record<string, VerbForm>> = {
+	zstar: { strip: { keys: ['l'], required: ['l'] } },
+	width: { strip: { keys: ['zstar'], required: ['zstar'] } },
+	area: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	darea: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	entropy: { strip: { keys: ['l', 'o', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
+	dentropy: { strip: { keys: ['l', 'o', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
+	energy: { strip: { keys: ['l', 'G'], required: ['l'] }, ball: { keys: ['R', 'G'], required: ['R'] } },
+	tent: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	mu: { strip: { keys: ['l', 'o'], required: ['l'] } },
+	firstlaw: { strip: { keys: ['l', 'o', 'tol'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol'], required: ['R'] } },
+	stress: { '': { keys: ['G'], required: [] } },
+	thermo: { '': { keys: ['G'], required: [] } },
+	coeffs: { darea: { keys: ['o'], required: ['o'] } },
+	validity: { darea: { keys: ['o', 'tol'], required: ['o'] } },
+	mi: { pair: { keys: ['l', 'gap', 'G'], required: ['l', 'gap'] } },
+	resum: { strip: { keys: ['l', 'o'], required: ['l'] } }
+};
+

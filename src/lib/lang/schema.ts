@@ -1,0 +1,135 @@
+/**
+ * zod schemas for what a line may say: one per bulk (its keys, defaults and physical ranges) and one per
+ * quantity key of the verbs, plus each verb's forms (strip, ball, pair, or the quantity a series verb works on)
+ * and the keys each form takes. Values reach these schemas already evaluated (numbers, 'exact', strings), one
+ * point at a time, so a range is checked at every point it visits.
+ */
+import { z } from 'zod';
+import { BULK_KEYS, type BulkName } from './vocab';
+
+const dim = (min: number, why = '') =>
+	z
+		.number('d must be a number')
+		.int('d must be a whole number')
+		.min(min, `d must be ≥ ${min}${why}`)
+		.max(10, 'd must be ≤ 10');
+const positive = (key: string) => z.number(`${key} must be a number`).positive(`${key} must be > 0`);
+const formula = (key: string) => z.string(`${key} must be a string, e.g. ${key}="1 - (z/zh)^4"`).min(1, `${key} must not be empty`);
+
+/** PHYSICS.md: 2 ≤ d ≤ 10; a boosted, wave or soliton bulk needs a transverse direction, so d ≥ 3. */
+export const BULK_SCHEMAS = {
+	vacuum: z.object({ d: dim(2).default(4) }).strict(),
+	brane: z.object({ d: dim(2).default(4), zh: positive('zh').default(1) }).strict(),
+	boosted: z
+		.object({
+			d: dim(3, ' for a boost along a transverse direction').default(4),
+			zh: positive('zh').default(1),
+			v: z
+				.number('v must be a number')
+				.refine((v) => Math.abs(v) < 1, 'v must satisfy |v| < 1')
+				.optional(),
+			rapidity: z.number('rapidity must be a number').optional()
+		})
+		.strict(),
+	charged: z
+		.object({ d: dim(2).default(4), zh: positive('zh').default(1), q: z.number('q must be a number').default(0) })
+		.strict()
+		.superRefine((b, ctx) => {
+			// PHYSICS.md: extremal at q² = d/(d−2); beyond it T < 0 and there is no horizon at zh
+			if (b.d > 2 && b.q * b.q > b.d / (b.d - 2)) {
+				ctx.addIssue({
+					code: 'custom',
+					path: ['q'],
+					message: `q must satisfy q² ≤ d/(d−2) = ${fmt(b.d / (b.d - 2))} (the extremal brane)`
+				});
+			}
+		}),
+	dp: z
+		.object({
+			p: z
+				.number('p must be a number')
+				.int('p must be a whole number')
+				.min(0, 'p must be ≥ 0')
+				.max(6, 'p must be ≤ 6')
+				.default(4),
+			zh: positive('zh').default(1)
+		})
+		.strict()
+		.refine((b) => b.p !== 5, { path: ['p'], message: 'p = 5 has no decoupled near-horizon limit of this kind: pick p ≠ 5' }),
+	wave: z.object({ d: dim(3, ' for a wave along a transverse direction').default(4), zp: positive('zp').default(1) }).strict(),
+	soliton: z.object({ d: dim(3, ' for a circle to cap off').default(4), z0: positive('z0').default(1) }).strict(),
+	metric: z
+		.object({ d: dim(2).default(4), f: formula('f'), h: formula('h').default('1') })
+		.catchall(z.number('extra metric keys must be numbers'))
+} satisfies Record<BulkName, z.ZodType>;
+
+function fmt(x: number): string {
+	return String(Number(x.toPrecision(6)));
+}
+
+export type Checked<T> = { ok: true; value: T } | { ok: false; key?: string; message: string; hint?: string };
+
+function fromZod<T>(r: z.ZodSafeParseResult<T>, unknownKey: (k: string) => { message: string; hint?: string }): Checked<T> {
+	if (r.success) return { ok: true, value: r.data };
+	const issue = r.error.issues[0]!;
+	if (issue.code === 'unrecognized_keys') {
+		const k = issue.keys[0]!;
+		return { ok: false, key: k, ...unknownKey(k) };
+	}
+	const key = typeof issue.path[0] === 'string' ? issue.path[0] : undefined;
+	return key === undefined ? { ok: false, message: issue.message } : { ok: false, key, message: issue.message };
+}
+
+/** Check a bulk's parameters; the value has defaults filled in. */
+export function checkBulk(name: BulkName, params: Record<string, unknown>): Checked<Record<string, number | string>> {
+	const r = BULK_SCHEMAS[name].safeParse(params) as z.ZodSafeParseResult<Record<string, number | string>>;
+	return fromZod(r, (k) => ({
+		message: `key '${k}' does not apply to bulk '${name}'`,
+		hint: `${name} takes ${BULK_KEYS[name].join(', ')}`
+	}));
+}
+
+/** The whole order, or 'exact'. The ≤ maxOrder check is a limit, made by the evaluator. */
+export const ORDER = z.union([
+	z.literal('exact'),
+	z.number('order must be a whole number ≥ 0 or exact').int('order must be a whole number ≥ 0 or exact').min(0, 'order must be ≥ 0')
+]);
+
+/** Every quantity key of every verb. */
+export const KEY_SCHEMAS: Record<string, z.ZodType> = {
+	l: positive('l'),
+	R: positive('R'),
+	gap: positive('gap'),
+	zstar: positive('zstar'),
+	G: positive('G'),
+	tol: z.number('tol must be a number').positive('tol must be > 0').max(1, 'tol must be ≤ 1'),
+	o: ORDER
+};
+
+export { VERB_FORMS, type VerbForm } from './vocab';
+
+/** Check one quantity key's value. */
+export function checkKey(key: string, value: unknown): Checked<unknown> {
+	const s = KEY_SCHEMAS[key];
+	if (!s) return { ok: false, key, message: `unknown key '${key}'` };
+	const r = s.safeParse(value);
+	if (r.success) return { ok: true, value: r.data };
+	return { ok: false, key, message: r.error.issues[0]!.message };
+}
+
+/** `units geo G=…`, `units cft c=…`, `units sym N=…` */
+export const UNITS_SCHEMAS = {
+	geo: z.object({ G: positive('G').default(1) }).strict(),
+	cft: z.object({ c: positive('c') }).strict(),
+	sym: z.object({ N: positive('N') }).strict()
+};
+
+export function checkUnits(system: keyof typeof UNITS_SCHEMAS, params: Record<string, unknown>): Checked<Record<string, number>> {
+	const r = UNITS_SCHEMAS[system].safeParse(params) as z.ZodSafeParseResult<Record<string, number>>;
+	const takes = { geo: 'G', cft: 'c', sym: 'N' }[system];
+	const res = fromZod(r, (k) => ({ message: `units ${system} takes ${takes}=…, not '${k}'` }));
+	if (!res.ok && res.key === takes && params[takes] === undefined) {
+		return { ok: false, message: `units ${system} needs ${takes}=…` };
+	}
+	return res;
+}

@@ -1,0 +1,184 @@
+/**
+ * What each verb asks of the engine at one point (one bulk, one set of quantity keys, one order). The
+ * language layer adds no physics: every number here comes from src/lib/holo. Analysis parts of the engine that
+ * have not landed yet are detected at run time and answer "… is not available yet" instead of a made-up value.
+ */
+import * as holo from '../holo/index';
+import type { Bulk } from '../holo/index';
+import type { Order } from './result';
+import type { Verb } from './vocab';
+
+export type VerbKind = 'scalar' | 'record' | 'series' | 'check';
+
+export const VERB_KIND: Record<Verb, VerbKind> = {
+	zstar: 'scalar',
+	width: 'scalar',
+	area: 'scalar',
+	darea: 'scalar',
+	entropy: 'scalar',
+	dentropy: 'scalar',
+	tent: 'scalar',
+	mu: 'scalar',
+	resum: 'scalar',
+	energy: 'record',
+	stress: 'record',
+	thermo: 'record',
+	validity: 'record',
+	mi: 'record',
+	coeffs: 'series',
+	firstlaw: 'check'
+};
+
+/** Verbs whose numeric orders are series truncations (they carry a warning outside the reliable range). */
+export const SERIES_VERBS: ReadonlySet<Verb> = new Set<Verb>(['area', 'darea', 'entropy', 'dentropy', 'tent', 'mu', 'resum', 'firstlaw']);
+
+/** Verbs that report in units of G (the pad's units, or a G= key on the line). */
+export const USES_G: ReadonlySet<Verb> = new Set<Verb>(['entropy', 'dentropy', 'energy', 'stress', 'thermo', 'mi']);
+
+export interface Point {
+	bulk: Bulk;
+	/** quantity keys of the line at this point: l, R, gap, zstar, tol */
+	q: Record<string, number>;
+	order: Order;
+	shape: string;
+	G: number;
+}
+
+/** Thrown for a verb or form whose engine part has not landed; the evaluator points it at the verb. */
+export class NotAvailable extends Error {}
+
+/** The engine's optional analysis exports, looked up by name so their absence is not a build error. */
+const analysis = holo as unknown as Record<string, ((...args: unknown[]) => unknown) | undefined>;
+function need(name: string, what: string): (...args: unknown[]) => unknown {
+	const f = analysis[name];
+	if (typeof f !== 'function') throw new NotAvailable(`${what} is not available yet`);
+	return f;
+}
+
+function requireSeries(p: Point): number {
+	if (p.order === 'exact') throw new Error('unreachable: exact order asked of a series');
+	if (!p.bulk.hasSeries) {
+		throw new holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
+	}
+	return p.order;
+}
+
+function stripDeltaArea(p: Point): number {
+	const l = p.q.l!;
+	if (p.order === 'exact') return holo.deltaArea(p.bulk, l);
+	return holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
+}
+
+function stripArea(p: Point): number {
+	const l = p.q.l!;
+	if (p.order === 'exact') return holo.areaFinite(p.bulk, l);
+	return holo.vacuumAreaFinite(p.bulk.d, l) + holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
+}
+
+function ballUnavailable(verb: string): never {
+	throw new NotAvailable(`${verb} ball is not available yet`);
+}
+
+/** A scalar verb's value at one point. */
+export function scalarAt(verb: Verb, p: Point): number {
+	const ball = p.shape === 'ball';
+	switch (verb) {
+		case 'zstar':
+			return holo.zstarOf(p.bulk, p.q.l!);
+		case 'width':
+			return holo.widthOf(p.bulk, p.q.zstar!);
+		case 'area':
+			return ball ? ballUnavailable(verb) : stripArea(p);
+		case 'darea':
+			return ball ? ballUnavailable(verb) : stripDeltaArea(p);
+		case 'entropy':
+			return holo.entropy(ball ? ballUnavailable(verb) : stripArea(p), p.G);
+		case 'dentropy':
+			return holo.entropy(ball ? ballUnavailable(verb) : stripDeltaArea(p), p.G);
+		case 'tent':
+			return need('tent', ball ? 'tent ball' : 'tent')(p.bulk, ball ? p.q.R : p.q.l, p.order) as number;
+		case 'mu':
+			return need('mu', 'mu')(p.bulk, p.q.l, p.order) as number;
+		case 'resum':
+			return need('resum', 'resum')(p.bulk, p.q.l, p.order) as number;
+		default:
+			throw new Error(`unreachable: ${verb} is not a scalar verb`);
+	}
+}
+
+/** A record verb's fields at one point, named as API.md lists them. */
+export function recordAt(verb: Verb, p: Point): Record<string, number> {
+	switch (verb) {
+		case 'stress': {
+			const t = holo.stressTensor(p.bulk, p.G);
+			return { tt: t.tt, ty: t.ty, xx: t.xx, yy: t.yy };
+		}
+		case 'thermo': {
+			const t = holo.thermo(p.bulk, p.G);
+			const out: Record<string, number> = { T: t.T, s: t.s, e: t.e, p: t.p };
+			if (t.py !== undefined) out.py = t.py;
+			return out;
+		}
+		case 'energy': {
+			if (p.shape === 'ball') return ballUnavailable(verb);
+			const e = holo.energy(p.bulk, p.q.l!, p.G);
+			return { E: e.E, P: e.P };
+		}
+		case 'validity': {
+			const v = holo.validity(p.bulk, requireSeries(p), p.q.tol ?? DEFAULT_TOL);
+			return { l_max: v.l_max, radius: v.radius };
+		}
+		case 'mi':
+			return need('mi', 'mi')(p.bulk, p.q.l, p.q.gap, p.G) as Record<string, number>;
+		default:
+			throw new Error(`unreachable: ${verb} is not a record verb`);
+	}
+}
+
+/** validity's default tolerance: relative 1e-3, the accuracy of a quick check on a plot. */
+export const DEFAULT_TOL = 1e-3;
+
+export interface SeriesTerms {
+	terms: { k: number; coeff: number; latex: string }[];
+	d: number;
+}
+
+export function seriesAt(p: Point): SeriesTerms {
+	const n = requireSeries(p);
+	const c = holo.seriesCoeffs(p.bulk, n);
+	return { terms: c.map((t) => ({ k: t.k, coeff: t.value, latex: t.latex })), d: p.bulk.d };
+}
+
+export interface CheckAt {
+	lhs: number;
+	rhs: number;
+	residual: number;
+	tolerance: number;
+	pass: boolean;
+	fields?: Record<string, number>;
+}
+
+export function checkAt(verb: Verb, p: Point): CheckAt {
+	if (verb !== 'firstlaw') throw new Error(`unreachable: ${verb} is not a check verb`);
+	return need('firstLaw', p.shape === 'ball' ? 'firstlaw ball' : 'firstlaw')(p.bulk, p.shape === 'ball' ? p.q.R : p.q.l, p.order, p.q.tol) as CheckAt;
+}
+
+/** The warning a series value carries at this point, if any. */
+export function warningAt(verb: Verb, p: Point): string | undefined {
+	if (p.order === 'exact' || !SERIES_VERBS.has(verb) || !p.bulk.hasSeries) return undefined;
+	const l = p.q.l;
+	if (l === undefined) return undefined;
+	return holo.seriesWarning(p.bulk, l, p.order) ?? undefined;
+}
+
+export function newtonG(units: holo.Units, d: number): number {
+	return holo.newtonG(units, d);
+}
+
+export function makeBulk(name: string, params: Record<string, number | string>): Bulk {
+	return holo.makeBulk(name, params);
+}
+
+export function isHoloError(e: unknown): e is { message: string; key?: string; hint?: string } {
+	return e instanceof holo.HoloError;
+}
