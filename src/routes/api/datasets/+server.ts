@@ -3,12 +3,15 @@ import { requireUser, requireWriter } from '$lib/server/auth/guards';
 import { env } from '$lib/server/env';
 import { listDatasets, uploadDataset } from '$lib/server/datasets';
 import { formatBytes } from '$lib/library/format';
+import { CSV_MAX_COLUMNS, CSV_MAX_ROWS } from '$lib/server/csv';
 
 /** room for the multipart boundaries and the name field around the file itself */
 const MULTIPART_OVERHEAD = 16_384;
 
-/** GET /api/datasets — the caller's own datasets, without their rows. */
-export const GET = api((event) => ok({ datasets: listDatasets(requireUser(event)) }));
+/** GET /api/datasets — the caller's own datasets, without their rows, and the upload limits. */
+export const GET = api((event) =>
+	ok({ datasets: listDatasets(requireUser(event)), limits: { bytes: env.uploadMaxBytes, rows: CSV_MAX_ROWS, columns: CSV_MAX_COLUMNS } })
+);
 
 /** POST /api/datasets — multipart: `file` (a CSV), optional `name`. */
 export const POST = api(async (event) => {
