@@ -31,7 +31,7 @@
 import { HoloError } from './errors';
 import { solveStrip } from './strip';
 import { gaussLegendre } from './numeric/gauss';
-import { boostedCoeffPolys } from './series/index';
+import { boostedCoeffPolys, seriesCoeffs } from './series/index';
 import type { Bulk, PowerTerm, Slice } from './types';
 import type { TurningPoint } from './strip';
 
@@ -187,7 +187,8 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	checkOrder(n);
 	const F = familyOf(bulk);
 	if (F.kind === 'charged') throw new HoloError('charged has no closed-form series: use o=exact', 'o', 'o=exact');
-	const c = coefficientTable(F.d, n);
+	// static bulks need only a_k(0) = c_k0, which core also serves at d = 2 (BTZ closed form)
+	const c = F.kind === 'static' ? seriesCoeffs(bulk, n).map((t) => [t.value]) : coefficientTable(F.d, n);
 	const kappa = F.kind === 'wave' ? Infinity : F.w > 0 ? F.q / F.w : 0;
 	const W: number[] = [];
 	const Q: number[] = [];
