@@ -12,6 +12,7 @@
 import { all, create } from 'mathjs';
 import type * as A from './ast';
 import { LangError } from './errors';
+import { getOwn } from './own';
 import { printMathjs, refIdentifier } from './printer';
 
 const math = create(all!, { number: 'number' });
@@ -73,7 +74,7 @@ function bind(e: A.Expr, resolve: Resolver, scope: Map<string, unknown>): void {
 			return;
 		case 'name': {
 			if (scope.has(e.name)) return;
-			const c = BUILTIN_CONSTANTS[e.name];
+			const c = getOwn(BUILTIN_CONSTANTS, e.name);
 			scope.set(e.name, c ?? resolve(e));
 			return;
 		}

@@ -83,7 +83,7 @@ function candidates(words: string[], word: string, before: string, cc: Completio
 	}
 	if (first === 'let') return words.length >= 3 ? candidates(words.slice(3), word, '', cc) : [];
 	if (first === 'use') return words.length === 1 ? entries(BULKS) : keysOf(words[1]!, undefined, undefined, words);
-	if (first === 'units') return words.length === 1 ? entries(UNIT_SYSTEMS) : [{ insert: { geo: 'G=', cft: 'c=', sym: 'N=' }[words[1]!] ?? '', label: 'value' }];
+	if (first === 'units') return words.length === 1 ? entries(UNIT_SYSTEMS) : unitKey(words[1]!);
 	if (first === 'compare') {
 		if (words.length === 1) return (cc.datasets ?? []).map((d) => ({ insert: d, label: d, detail: 'dataset' }));
 		return words.length === 2 ? entries(VERBS) : [];
@@ -125,4 +125,9 @@ function valuesFor(key: string): Completion[] {
 	if (key === 'f') return [{ insert: '"1 - (z/zh)^4"', label: 'brane-like f' }];
 	if (key === 'h') return [{ insert: '"1"', label: 'h = 1' }];
 	return [];
+}
+
+function unitKey(system: string): Completion[] {
+	const k = system === 'geo' ? 'G' : system === 'cft' ? 'c' : system === 'sym' ? 'N' : undefined;
+	return k ? [{ insert: `${k}=`, label: k }] : [];
 }

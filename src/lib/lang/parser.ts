@@ -54,6 +54,9 @@ const NOT_LET_NAMES: ReadonlySet<string> = new Set<string>([
 	...BULKS
 ]);
 
+/** Keys that would reach Object.prototype when a line's keys become an object. */
+const RESERVED_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);
+
 class Parser {
 	private readonly tokens: Token[];
 	private pos = 0;
@@ -338,6 +341,7 @@ class Parser {
 	/** KeyValue := Name '=' Value */
 	private parseKeyValue(): A.KeyValue {
 		const k = this.next();
+		if (RESERVED_KEYS.has(k.text)) throw new LangError(`'${k.text}' cannot be a key`, k.start, k.end);
 		if (!this.at(Tok.Equals)) throw this.unexpected(`'=' after key '${k.text}'`);
 		this.next();
 		const value = this.parseValue();

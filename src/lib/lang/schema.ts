@@ -110,7 +110,7 @@ export { VERB_FORMS, type VerbForm } from './vocab';
 
 /** Check one quantity key's value. */
 export function checkKey(key: string, value: unknown): Checked<unknown> {
-	const s = KEY_SCHEMAS[key];
+	const s = Object.prototype.hasOwnProperty.call(KEY_SCHEMAS, key) ? KEY_SCHEMAS[key] : undefined;
 	if (!s) return { ok: false, key, message: `unknown key '${key}'` };
 	const r = s.safeParse(value);
 	if (r.success) return { ok: true, value: r.data };

@@ -10,6 +10,7 @@ import { type Resolver, evaluateExpr } from './arith';
 import { LangError } from './errors';
 import { type Limits, limitError } from './limits';
 import type { LetValue, Order, PadContext } from './result';
+import { getOwn } from './own';
 import { didYouMean } from './suggest';
 
 export type Scalar = number | string | 'exact';
@@ -27,9 +28,9 @@ export interface Scope {
 export function resolverFor(scope: Scope): Resolver {
 	return (node) => {
 		if (node.type === 'ref') return readRef(scope.ctx, node);
-		const b = scope.bulk[node.name];
+		const b = getOwn(scope.bulk, node.name);
 		if (typeof b === 'number') return b;
-		const l = scope.lets[node.name];
+		const l = getOwn(scope.lets, node.name);
 		if (l) {
 			if (l.value !== undefined) return l.value;
 			const fields = Object.keys(l.fields);
@@ -45,10 +46,10 @@ export function resolverFor(scope: Scope): Resolver {
 }
 
 function readRef(ctx: PadContext, r: A.RefExpr): number {
-	const step = ctx.refs[r.step];
+	const step = getOwn(ctx.refs, r.step);
 	if (!step) throw new LangError(`no step #${r.step} in this pad`, r.start, r.end);
 	if (r.field !== undefined) {
-		const v = step.fields[r.field];
+		const v = getOwn(step.fields, r.field);
 		if (v === undefined) {
 			const names = Object.keys(step.fields);
 			throw new LangError(`step #${r.step} has no field '${r.field}'${didYouMean(r.field, names)}`, r.start, r.end, {
@@ -71,8 +72,8 @@ export function orderOfNames(expr: A.Expr, scope: Scope): Order {
 	let lowest: Order = 'exact';
 	const visit = (e: A.Expr): void => {
 		let o: Order | undefined;
-		if (e.type === 'ref') o = scope.ctx.refs[e.step]?.order;
-		else if (e.type === 'name' && typeof scope.bulk[e.name] !== 'number') o = scope.lets[e.name]?.order;
+		if (e.type === 'ref') o = getOwn(scope.ctx.refs, e.step)?.order;
+		else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
 		else if (e.type === 'unary') visit(e.arg);
 		else if (e.type === 'paren') visit(e.inner);
 		else if (e.type === 'binary') (visit(e.left), visit(e.right));

@@ -92,7 +92,7 @@ export const FUNCTIONS = [
 
 /** the canonical spelling of a key */
 export function canonicalKey(key: string): string {
-	return KEY_ALIASES[key] ?? key;
+	return Object.prototype.hasOwnProperty.call(KEY_ALIASES, key) ? KEY_ALIASES[key]! : key;
 }
 
 export function isVerb(s: string): s is Verb {
