@@ -33,7 +33,7 @@ export const VERB_KIND: Record<Verb, VerbKind> = {
 export const SERIES_VERBS: ReadonlySet<Verb> = new Set<Verb>(['area', 'darea', 'entropy', 'dentropy', 'tent', 'mu', 'resum', 'firstlaw']);
 
 /** Verbs that report in units of G (the pad's units, or a G= key on the line). */
-export const USES_G: ReadonlySet<Verb> = new Set<Verb>(['entropy', 'dentropy', 'energy', 'stress', 'thermo', 'mi']);
+export const USES_G: ReadonlySet<Verb> = new Set<Verb>(['entropy', 'dentropy', 'energy', 'stress', 'thermo', 'mi', 'firstlaw']);
 
 export interface Point {
 	bulk: Bulk;
@@ -96,9 +96,10 @@ export function scalarAt(verb: Verb, p: Point): number {
 		case 'dentropy':
 			return holo.entropy(ball ? ballUnavailable(verb) : stripDeltaArea(p), p.G);
 		case 'tent':
-			return need('tent', ball ? 'tent ball' : 'tent')(p.bulk, ball ? p.q.R : p.q.l, p.order) as number;
+			if (ball) return need('ballTent', 'tent ball')(p.bulk.d, p.q.R) as number;
+			return (need('tent', 'tent')(p.bulk, p.q.l, p.order) as { value: number }).value;
 		case 'mu':
-			return need('mu', 'mu')(p.bulk, p.q.l, p.order) as number;
+			return (need('mu', 'mu')(p.bulk, p.q.l, p.order) as { value: number }).value;
 		case 'resum':
 			return need('resum', 'resum')(p.bulk, p.q.l, p.order) as number;
 		default:
@@ -158,9 +159,36 @@ export interface CheckAt {
 	fields?: Record<string, number>;
 }
 
+/** The engine's first-law check (holo/firstlaw.ts): each direction of variation reports both sides. */
+interface FirstLawDirection {
+	lhs: number;
+	rhs: number;
+	residual: number;
+	residualExact: number;
+}
+interface FirstLawCheck {
+	alpha: number;
+	zeta: number;
+	tent: number;
+	mu: number;
+	scale: FirstLawDirection;
+	shape?: FirstLawDirection;
+}
+
+/** firstlaw's default tolerance: |residual| ≤ 1e-3 · |δΔS|, relative, as for validity. */
+export const FIRSTLAW_TOL = 1e-3;
+
 export function checkAt(verb: Verb, p: Point): CheckAt {
 	if (verb !== 'firstlaw') throw new Error(`unreachable: ${verb} is not a check verb`);
-	return need('firstLaw', p.shape === 'ball' ? 'firstlaw ball' : 'firstlaw')(p.bulk, p.shape === 'ball' ? p.q.R : p.q.l, p.order, p.q.tol) as CheckAt;
+	if (p.shape === 'ball') throw new NotAvailable('firstlaw ball is not available yet');
+	const c = need('firstLaw', 'firstlaw')(p.bulk, p.q.l, p.order, p.G) as FirstLawCheck;
+	const tol = p.q.tol ?? FIRSTLAW_TOL;
+	// the scale direction (δ ln zh) is the one every bulk has; a boosted bulk's second direction must hold too
+	const dirs = c.shape ? [c.scale, c.shape] : [c.scale];
+	const pass = dirs.every((d) => Math.abs(d.residual) <= tol * Math.abs(d.lhs));
+	const fields: Record<string, number> = { alpha: c.alpha, zeta: c.zeta, tent: c.tent, mu: c.mu, residual_exact: c.scale.residualExact };
+	if (c.shape) Object.assign(fields, { lhs_v: c.shape.lhs, rhs_v: c.shape.rhs, residual_v: c.shape.residual });
+	return { lhs: c.scale.lhs, rhs: c.scale.rhs, residual: c.scale.residual, tolerance: tol * Math.abs(c.scale.lhs), pass, fields };
 }
 
 /** The warning a series value carries at this point, if any. */

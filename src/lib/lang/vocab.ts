@@ -122,7 +122,7 @@ export const VERB_FORMS: Record<Verb, Record<string, VerbForm>> = {
 	energy: { strip: { keys: ['l', 'G'], required: ['l'] }, ball: { keys: ['R', 'G'], required: ['R'] } },
 	tent: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
 	mu: { strip: { keys: ['l', 'o'], required: ['l'] } },
-	firstlaw: { strip: { keys: ['l', 'o', 'tol'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol'], required: ['R'] } },
+	firstlaw: { strip: { keys: ['l', 'o', 'tol', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol', 'G'], required: ['R'] } },
 	stress: { '': { keys: ['G'], required: [] } },
 	thermo: { '': { keys: ['G'], required: [] } },
 	coeffs: { darea: { keys: ['o'], required: ['o'] } },
