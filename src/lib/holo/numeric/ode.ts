@@ -93,7 +93,7 @@ export function integrateOde(f: OdeRhs, t0: number, y0: ArrayLike<number>, t1: n
 	const maxSteps = opts.maxSteps ?? 200000;
 	let h = Math.min(opts.h0 ?? span * 1e-3, hmax);
 	let t = t0;
-	let y = Float64Array.from(y0);
+	let y: Float64Array = Float64Array.from(y0);
 	const g0 = opts.event ? opts.event(t, y) : 0;
 	let steps = 0;
 	let rejected = 0;
