@@ -1,0 +1,135 @@
+import type { PadDocument } from './schema';
+import { latexNumber, orderText } from './numbers';
+import { bulkText } from './markdown';
+
+type Result = NonNullable<PadDocument['steps'][number]['results']>[number];
+
+/** pdfLaTeX's inputenc knows Latin accents but not these; everything else outside Latin-1 becomes `?`. */
+const UNICODE: Record<string, string> = {
+	Δ: '$\\Delta$', δ: '$\\delta$', Γ: '$\\Gamma$', γ: '$\\gamma$', μ: '$\\mu$', π: '$\\pi$', Σ: '$\\Sigma$', σ: '$\\sigma$',
+	α: '$\\alpha$', β: '$\\beta$', ε: '$\\epsilon$', ζ: '$\\zeta$', θ: '$\\theta$', λ: '$\\lambda$', ν: '$\\nu$', ρ: '$\\rho$',
+	τ: '$\\tau$', φ: '$\\phi$', χ: '$\\chi$', ψ: '$\\psi$', ω: '$\\omega$', Ω: '$\\Omega$', ℓ: '$\\ell$', '∞': '$\\infty$',
+	'≈': '$\\approx$', '≤': '$\\leq$', '≥': '$\\geq$', '≠': '$\\neq$', '±': '$\\pm$', '×': '$\\times$', '·': '$\\cdot$',
+	'−': '$-$', '→': '$\\to$', '∂': '$\\partial$', '√': '$\\surd$', '∴': '$\\therefore$', '²': '$^2$', '³': '$^3$', '⁴': '$^4$',
+	'₀': '$_0$', '₁': '$_1$', '₂': '$_2$', '₃': '$_3$', '—': '---', '–': '--', '…': '\\ldots{}', '‘': '`', '’': "'", '“': '``', '”': "''",
+	'⚠': '(!)', '✓': '(ok)'
+};
+
+const SPECIAL: Record<string, string> = {
+	'\\': '\\textbackslash{}', '{': '\\{', '}': '\\}', $: '\\$', '&': '\\&', '#': '\\#', '^': '\\^{}', _: '\\_', '%': '\\%',
+	'~': '\\textasciitilde{}', '<': '\\textless{}', '>': '\\textgreater{}', '|': '\\textbar{}'
+};
+
+/** Any text into LaTeX text mode: specials escaped, known Unicode mapped, the rest replaced. */
+export function texText(s: string): string {
+	let out = '';
+	for (const ch of s.replace(/\r?\n/g, ' ')) {
+		if (ch in SPECIAL) out += SPECIAL[ch];
+		else if (ch in UNICODE) out += UNICODE[ch];
+		else if (ch.codePointAt(0)! < 0x20) out += ' ';
+		else if (ch.codePointAt(0)! <= 0xff) out += ch;
+		else out += '?';
+	}
+	return out;
+}
+
+/** Verbatim lines may not end their own environment; non-Latin-1 characters cannot pass through pdfLaTeX. */
+function verbatimLine(s: string): string {
+	return s
+		.replace(/\r?\n/g, ' ')
+		.replace(/\\end\s*\{verbatim\}/g, '\\end {verbatim}')
+		.replace(/[^\x20-\xff]/gu, '?');
+}
+
+/**
+ * Formulas come from stored results, which an imported file can set: anything that could read files, write
+ * them, redefine commands or leave math mode is printed as text instead of compiled.
+ */
+const UNSAFE_PART = /input|include|write|open|close|catcode|csname|special|lua|shipout|makeat|every|pdf|file|scantokens/i;
+const UNSAFE_WORD = new Set(
+	'let def edef gdef xdef read readline immediate expandafter global end begin verb url href usepackage documentclass newcommand renewcommand providecommand DeclareRobustCommand newenvironment renewenvironment output aftergroup afterassignment'.split(' ')
+);
+const ALLOWED_ENV = /\\(begin|end)\{(aligned|array|matrix|pmatrix|bmatrix|cases|gathered|split)\}/g;
+
+export function safeMath(latex: string): string | null {
+	if (latex.length > 20_000 || /\^\^|\$|\\[[\]()]/.test(latex)) return null;
+	for (const [, word] of latex.replace(ALLOWED_ENV, '').matchAll(/\\([A-Za-z@]+)/g)) {
+		if (UNSAFE_WORD.has(word) || UNSAFE_PART.test(word)) return null;
+	}
+	let depth = 0;
+	for (let i = 0; i < latex.length; i++) {
+		if (latex[i] === '\\') i++;
+		else if (latex[i] === '{') depth++;
+		else if (latex[i] === '}' && --depth < 0) return null;
+	}
+	return depth === 0 ? latex : null;
+}
+
+function display(latex: string | undefined): string[] {
+	if (!latex) return [];
+	const safe = safeMath(latex);
+	return safe ? ['\\[', safe, '\\]'] : [`\\texttt{${texText(latex)}}`];
+}
+
+const n = (v: unknown) => `$${latexNumber(v)}$`;
+const warnLine = (w?: string) => (w ? [`\\\\\\textit{Warning: ${texText(w)}}`] : []);
+
+/** Tables as tabular, 40 rows a piece so a long sweep breaks across pages instead of running off one. */
+function tabular(columns: string[], rows: (number | string | null)[][]): string[] {
+	const out: string[] = [];
+	const spec = columns.map(() => 'r').join('');
+	for (let i = 0; i < Math.max(rows.length, 1); i += 40) {
+		out.push('\\begin{center}\\small', `\\begin{tabular}{${spec}}`, '\\hline', columns.map(texText).join(' & ') + ' \\\\', '\\hline');
+		for (const row of rows.slice(i, i + 40)) out.push(row.map((v) => (typeof v === 'string' ? texText(v) : n(v))).join(' & ') + ' \\\\');
+		out.push('\\hline', '\\end{tabular}', '\\end{center}');
+	}
+	return out;
+}
+
+function renderResult(r: Result): string[] {
+	switch (r.kind) {
+		case 'scalar':
+			return [`\\item \\textbf{${texText(r.label)}} $=$ ${n(r.value)}${r.unit ? ' ' + texText(r.unit) : ''} (${orderText(r.order)})`, ...warnLine(r.warning), ...display(r.latex)];
+		case 'record':
+			return [
+				`\\item \\textbf{${texText(r.label)}}: ${Object.entries(r.fields).map(([k, v]) => `${texText(k)} $=$ ${n(v)}`).join(', ')}`,
+				...warnLine(r.warning),
+				...display(r.latex)
+			];
+		case 'table':
+			return [`\\item \\textbf{${texText(r.label)}} (${r.rows.length} rows)`, ...warnLine(r.warning), ...tabular(r.columns, r.rows)];
+		case 'series':
+			return [`\\item \\textbf{${texText(r.label)}} (series, ${r.terms.length} terms)`, ...warnLine(r.warning), ...display(r.latex)];
+		case 'check':
+			return [
+				`\\item \\textbf{${texText(r.label)}}: ${r.pass ? 'holds' : 'fails'}; lhs $=$ ${n(r.lhs)}, rhs $=$ ${n(r.rhs)}, residual $=$ ${n(r.residual)} (tolerance ${n(r.tolerance)})`,
+				...warnLine(r.warning)
+			];
+		case 'note':
+			return [`\\item ${texText(r.text)}`];
+	}
+}
+
+/** The pad as a compilable pdfLaTeX article (standard packages only): each step verbatim, then its results. */
+export function renderLatex(doc: PadDocument, meta: { owner?: string; exportedAt?: Date } = {}): string {
+	const out = [
+		'% Exported from Bulkpad. Compile with pdflatex.',
+		'\\documentclass[11pt]{article}',
+		'\\usepackage[T1]{fontenc}',
+		'\\usepackage[utf8]{inputenc}',
+		'\\usepackage{amsmath,amssymb}',
+		`\\title{${texText(doc.title)}}`,
+		`\\author{${texText(meta.owner ?? '')}}`,
+		`\\date{${meta.exportedAt ? meta.exportedAt.toISOString().slice(0, 10) : ''}}`,
+		'\\begin{document}',
+		'\\maketitle',
+		`\\noindent Bulkpad pad; bulk now \\texttt{${texText(bulkText(doc.bulk))}}; ${doc.steps.length} steps.`
+	];
+	for (const s of doc.steps) {
+		out.push('', `\\subsection*{Step \\#${s.n}}`, '\\begin{verbatim}', verbatimLine(s.input), '\\end{verbatim}');
+		const items = s.status === 'ok' ? (s.results ?? []).flatMap(renderResult) : [`\\item ${s.status === 'error' ? 'Error: ' + texText(s.error?.message ?? 'unknown') : 'Not evaluated.'}`];
+		if (items.length) out.push('\\begin{itemize}', ...items, '\\end{itemize}');
+	}
+	out.push('', '\\end{document}', '');
+	return out.join('\n');
+}

@@ -1,0 +1,84 @@
+import type { PadDocument } from './schema';
+import { formatNumber, orderText } from './numbers';
+
+type Results = NonNullable<PadDocument['steps'][number]['results']>;
+
+/** A fence longer than any backtick run inside, so an input can never close its own code block. */
+function fenced(text: string, lang = ''): string {
+	const longest = Math.max(0, ...(text.match(/`+/g) ?? []).map((r) => r.length));
+	const fence = '`'.repeat(Math.max(3, longest + 1));
+	return `${fence}${lang}\n${text}\n${fence}`;
+}
+
+/** Table cells and inline text: pipes and line breaks would break the Markdown table or list. */
+function cell(v: unknown): string {
+	return formatNumber(v).replace(/\|/g, '\\|').replace(/\r?\n/g, ' ');
+}
+
+function inline(text: string): string {
+	return text.replace(/\r?\n/g, ' ').replace(/([\\`*_[\]<>|])/g, '\\$1');
+}
+
+function mathBlock(latex: string | undefined): string[] {
+	return latex ? ['', '$$', latex.replace(/\$\$/g, '$ $'), '$$'] : [];
+}
+
+function renderResult(r: Results[number]): string[] {
+	switch (r.kind) {
+		case 'scalar':
+			return [`- **${inline(r.label)}** = ${cell(r.value)}${r.unit ? ' ' + inline(r.unit) : ''} (${orderText(r.order)})`, ...mathBlock(r.latex), ...warn(r.warning)];
+		case 'record':
+			return [
+				`- **${inline(r.label)}**: ${Object.entries(r.fields).map(([k, v]) => `${inline(k)} = ${cell(v)}`).join(', ')}`,
+				...mathBlock(r.latex),
+				...warn(r.warning)
+			];
+		case 'table':
+			return [
+				`- **${inline(r.label)}** (${r.rows.length} rows)`,
+				'',
+				`| ${r.columns.map(cell).join(' | ')} |`,
+				`| ${r.columns.map(() => '---').join(' | ')} |`,
+				...r.rows.map((row) => `| ${row.map(cell).join(' | ')} |`),
+				...warn(r.warning)
+			];
+		case 'series':
+			return [
+				`- **${inline(r.label)}** (series, ${r.terms.length} terms): ${r.terms.map((t) => `k=${t.k}: ${cell(t.coeff)}`).join(', ')}`,
+				...mathBlock(r.latex),
+				...warn(r.warning)
+			];
+		case 'check':
+			return [
+				`- **${inline(r.label)}**: ${r.pass ? 'holds' : 'fails'} — lhs = ${cell(r.lhs)}, rhs = ${cell(r.rhs)}, residual = ${cell(r.residual)} (tolerance ${cell(r.tolerance)})`,
+				...warn(r.warning)
+			];
+		case 'note':
+			return [`- ${inline(r.text)}`];
+	}
+}
+
+function warn(w: string | undefined): string[] {
+	return w ? ['', `  > ⚠ ${inline(w)}`] : [];
+}
+
+function bulkText(bulk: PadDocument['bulk']): string {
+	const params = Object.entries(bulk.params).map(([k, v]) => `${k}=${v}`).join(' ');
+	return `${bulk.name}${params ? ' ' + params : ''}`;
+}
+
+/** The pad as Markdown: each step's input in a code block, its results as a list, tables as Markdown tables. */
+export function renderMarkdown(doc: PadDocument, meta: { owner?: string; exportedAt?: Date } = {}): string {
+	const out: string[] = [`# ${inline(doc.title)}`, ''];
+	const by = meta.owner ? ` by ${inline(meta.owner)}` : '';
+	out.push(`Bulkpad pad${by}; bulk now \`${bulkText(doc.bulk)}\`; ${doc.steps.length} steps${meta.exportedAt ? `; exported ${meta.exportedAt.toISOString()}` : ''}.`);
+	for (const s of doc.steps) {
+		out.push('', `## Step ${s.n}`, '', fenced(s.input, 'bulkpad'), '');
+		if (s.status === 'ok') for (const r of s.results ?? []) out.push(...renderResult(r));
+		else if (s.status === 'error') out.push(`- error: ${inline(s.error?.message ?? 'unknown error')}`);
+		else out.push('- (not evaluated)');
+	}
+	return out.join('\n') + '\n';
+}
+
+export { bulkText };
