@@ -1,0 +1,27 @@
+import { z } from 'zod';
+import { api, ok, readBody } from '$lib/server/http';
+import { requireUser, requireWriter } from '$lib/server/auth/guards';
+import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad } from '$lib/server/pads';
+import { padView, stepView, titleSchema } from '$lib/server/pad-view';
+
+/** GET: the owner, or a reader or member invited by e-mail. Anyone else gets the same 404 as a missing id. */
+export const GET = api((event) => {
+	const user = requireUser(event);
+	const pad = findReadablePad(user, event.params.id!);
+	return ok({ pad: padView(pad), steps: padSteps(pad.id).map(stepView) });
+});
+
+/** PATCH {title}: owner only; an invited person gets 404, as if the pad were not there to change. */
+export const PATCH = api(async (event) => {
+	const user = requireWriter(event);
+	const pad = findOwnPad(user, event.params.id!);
+	const { title } = await readBody(event, z.object({ title: titleSchema }));
+	renamePad(pad, title);
+	return ok({ pad: padView({ ...pad, title, updatedAt: new Date() }, user.name) });
+});
+
+export const DELETE = api((event) => {
+	const user = requireWriter(event);
+	deletePad(findOwnPad(user, event.params.id!));
+	return ok({});
+});
