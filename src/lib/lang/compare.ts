@@ -76,7 +76,7 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 	const at = { start: s.dataset.start, end: s.dataset.end };
 	const list: A.ListValue = { type: 'list', items: ds.rows.map((r) => ({ type: 'number', value: r[xi]!, raw: String(r[xi]), ...at })), ...at };
 	const xkv: A.KeyValue = { type: 'kv', key: xCol, keySpan: at, value: list, ...at };
-	const stmt: A.VerbStmt = { type: 'verb', verb: { text: verb, ...verbSpan }, keys: [xkv, ...rest], sinks: [], start: s.start, end: s.end };
+	const stmt: A.VerbStmt = { type: 'verb', verb: { text: verb, start: verbSpan.start, end: verbSpan.end }, keys: [xkv, ...rest], sinks: [], start: s.start, end: s.end };
 	const engine = runVerb(stmt, env).results[0] as TableResult;
 	if (engine.kind !== 'table' || engine.columns.length !== 2) {
 		throw new LangError('compare takes one order: o=3 or o=exact', s.start, s.end);

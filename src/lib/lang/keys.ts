@@ -7,7 +7,7 @@ import { LangError } from './errors';
 import type { LineEnv } from './env';
 import { limitError } from './limits';
 import type { Order } from './result';
-import { ORDER, VERB_FORMS, type VerbForm } from './schema';
+import { VERB_FORMS, type VerbForm, checkOrder } from './schema';
 import { didYouMean } from './suggest';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import { ALL_BULK_KEYS, BULK_KEYS, QUANTITY_KEYS, type BulkName, type Verb, canonicalKey } from './vocab';
@@ -82,9 +82,9 @@ export function readOrders(kv: A.KeyValue | undefined, r: Resolved | undefined, 
 	const items = kv.value.type === 'list' ? kv.value.items : undefined;
 	return values.map((v, i) => {
 		const span = items?.[i] ?? kv.value;
-		const parsed = ORDER.safeParse(v);
-		if (!parsed.success) throw new LangError(parsed.error.issues[0]!.message, span.start, span.end);
-		const o = parsed.data;
+		const c = checkOrder(v);
+		if (!c.ok) throw new LangError(c.message, span.start, span.end);
+		const o = c.value;
 		if (o !== 'exact' && o > env.limits.maxOrder) {
 			throw limitError('maxOrder', `order must be ≤ ${env.limits.maxOrder}`, span.start, span.end, env.limits);
 		}

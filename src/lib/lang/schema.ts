@@ -5,6 +5,7 @@
  * point at a time, so a range is checked at every point it visits.
  */
 import { z } from 'zod';
+import type { Order } from './result';
 import { BULK_KEYS, type BulkName } from './vocab';
 
 const dim = (min: number, why = '') =>
@@ -89,11 +90,21 @@ export function checkBulk(name: BulkName, params: Record<string, unknown>): Chec
 	}));
 }
 
-/** The whole order, or 'exact'. The ≤ maxOrder check is a limit, made by the evaluator. */
-export const ORDER = z.union([
-	z.literal('exact'),
-	z.number('order must be a whole number ≥ 0 or exact').int('order must be a whole number ≥ 0 or exact').min(0, 'order must be ≥ 0')
-]);
+/** The order, or why the value is none. The ≤ maxOrder check is a limit, made by the evaluator. */
+export function checkOrder(v: unknown): Checked<Order> {
+	if (v === 'exact') return { ok: true, value: 'exact' };
+	if (typeof v !== 'number' || !Number.isInteger(v)) return { ok: false, key: 'o', message: 'order must be a whole number ≥ 0 or exact' };
+	if (v < 0) return { ok: false, key: 'o', message: 'order must be ≥ 0' };
+	return { ok: true, value: v };
+}
+
+/** The same check as a zod schema, for callers that validate whole objects. */
+export const ORDER = z.unknown().transform((v, ctx): Order => {
+	const c = checkOrder(v);
+	if (c.ok) return c.value;
+	ctx.addIssue({ code: 'custom', message: c.message });
+	return z.NEVER;
+});
 
 /** Every quantity key of every verb. */
 export const KEY_SCHEMAS: Record<string, z.ZodType> = {

@@ -29,10 +29,11 @@ export function editDistance(a: string, b: string): number {
 /** The closest candidate, or undefined when none is close enough to be a plausible typo. */
 export function closest(word: string, candidates: Iterable<string>): string | undefined {
 	if (word.length > 64) return undefined; // hostile input: not worth the quadratic work
-	const budget = Math.max(1, Math.floor(word.length / 3));
+	const list = [...candidates];
+	const budget = word.length >= 3 ? Math.max(1, Math.floor(word.length / 3)) : 0;
 	let best: string | undefined;
 	let bestD = Infinity;
-	for (const c of candidates) {
+	for (const c of list) {
 		const d = editDistance(word, c);
 		if (d < bestD || (d === bestD && best !== undefined && c < best)) {
 			best = c;
@@ -40,9 +41,21 @@ export function closest(word: string, candidates: Iterable<string>): string | un
 		}
 	}
 	if (best === undefined) return undefined;
+	if (word.length <= 2) {
+		// one- and two-letter words are a letter away from many keys: only a different case ('t' → 'T') or
+		// one dropped letter ('bd' → 'bad') is a plausible slip
+		for (const c of list) if (c !== word && c.toLowerCase() === word.toLowerCase()) return c;
+		return bestD === 1 && best.length === word.length + 1 && isSubsequence(word, best) ? best : undefined;
+	}
 	// a prefix of a longer candidate ("dare" → "darea") is also a plausible slip
-	if (bestD <= budget || (best.startsWith(word) && word.length >= 2)) return best;
+	if ((bestD <= budget && bestD > 0) || (best.startsWith(word) && word.length >= 2 && best !== word)) return best;
 	return undefined;
+}
+
+function isSubsequence(short: string, long: string): boolean {
+	let i = 0;
+	for (const ch of long) if (ch === short[i]) i++;
+	return i === short.length;
 }
 
 /** " — did you mean 'x'?" or the empty string. */
