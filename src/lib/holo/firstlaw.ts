@@ -32,7 +32,7 @@ import { HoloError } from './errors';
 import { solveStrip } from './strip';
 import { gaussLegendre } from './numeric/gauss';
 import { boostedCoeffPolys, seriesCoeffs } from './series/index';
-import type { Bulk, PowerTerm, Slice } from './types';
+import type { Bulk, PowerTerm, SeriesCoeff, Slice } from './types';
 import type { TurningPoint } from './strip';
 
 export type Order = number | 'exact';
@@ -166,6 +166,8 @@ export interface FirstLawSeries {
 	/** ∂ΔA/∂w = l² Σ W[i] x^i and ∂ΔA/∂q = l² Σ Q[i] x^i */
 	W: number[];
 	Q: number[];
+	/** the truncated ΔA series used: core's a_k with their exact LaTeX (ΔA = l^{2−d} Σ a_k x^k) */
+	terms: SeriesCoeff[];
 }
 
 export interface FirstLawCoefficients {
@@ -222,7 +224,8 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	const tent = reciprocalSeries(alpha);
 	const mu = multiplySeries(zeta, tent).map((v) => -v);
 	const x = Math.pow(l / F.scale, F.d);
-	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q };
+	const terms = seriesCoeffs(bulk, n);
+	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q, terms };
 }
 
 /** 1/Σ a_i x^i to the same length (a_0 ≠ 0). */

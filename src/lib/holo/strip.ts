@@ -94,16 +94,17 @@ interface Nodes {
 	um: Float64Array; // u^m
 	u1d: Float64Array; // u^{1−d}
 	fE: Float64Array[]; // per f term: u^p − 1
+	fU: Float64Array[]; // per f term: u^p (not 1 + fE: that loses u^p ≪ 1 near u = 0)
 	hU: Float64Array[]; // per h term: u^p
 	hE: Float64Array[]; // per h term: u^p − 1
 	hN: Float64Array[]; // per h term: u^{p−m} − 1
 }
 
-const fixedNodes = new WeakMap<Prepared, Nodes>();
+const fixedNodes = new WeakMap<Prepared, Map<number, Nodes>>();
 
-function buildNodes(P: Prepared, a: number): Nodes {
+function buildNodes(P: Prepared, a: number, extra: number): Nodes {
 	const smax = Math.asinh(1 / a);
-	const panels = Math.max(1, Math.ceil(smax / PANEL));
+	const panels = Math.max(1, Math.ceil(smax / PANEL)) + extra;
 	const hw = smax / panels / 2;
 	const rule = gaussLegendre(GL_N);
 	const n = panels * GL_N;
@@ -118,6 +119,7 @@ function buildNodes(P: Prepared, a: number): Nodes {
 		um: arr(),
 		u1d: arr(),
 		fE: Array.from(P.fp, arr),
+		fU: Array.from(P.fp, arr),
 		hU: Array.from(P.hp, arr),
 		hE: Array.from(P.hp, arr),
 		hN: Array.from(P.hp, arr)
@@ -137,7 +139,10 @@ function buildNodes(P: Prepared, a: number): Nodes {
 			X.omum[q] = -Math.expm1(m * lu);
 			X.um[q] = Math.exp(m * lu);
 			X.u1d[q] = Math.exp((1 - d) * lu);
-			P.fp.forEach((p, j) => (X.fE[j][q] = Math.expm1(p * lu)));
+			P.fp.forEach((p, j) => {
+				X.fE[j][q] = Math.expm1(p * lu);
+				X.fU[j][q] = Math.exp(p * lu);
+			});
 			P.hp.forEach((p, j) => {
 				X.hU[j][q] = Math.exp(p * lu);
 				X.hE[j][q] = Math.expm1(p * lu);
@@ -148,13 +153,17 @@ function buildNodes(P: Prepared, a: number): Nodes {
 	return X;
 }
 
-function nodesFor(P: Prepared, a: number): Nodes {
-	if (a !== 1) return buildNodes(P, a);
-	let X = fixedNodes.get(P);
-	if (!X) {
-		X = buildNodes(P, 1);
-		fixedNodes.set(P, X);
-	}
+/**
+ * A large h* (the wave far beyond zp) moves complex zeros of N towards u ≈ (h*)^{−1/d}; extra panels keep the
+ * rule converged there (about two per decade of h*).
+ */
+function nodesFor(P: Prepared, a: number, hstar: number): Nodes {
+	const extra = hstar > 10 ? Math.ceil(2 * Math.log10(hstar)) : 0;
+	if (a !== 1) return buildNodes(P, a, extra);
+	let byExtra = fixedNodes.get(P);
+	if (!byExtra) fixedNodes.set(P, (byExtra = new Map()));
+	let X = byExtra.get(extra);
+	if (!X) byExtra.set(extra, (X = buildNodes(P, 1, extra)));
 	return X;
 }
 
@@ -183,6 +192,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	const B = new Float64Array(nh);
 	let fstar: number;
 	let hstar: number;
+	let hstarM1: number; // h* − 1 formed from the terms (1 + B − 1 would lose B ≪ 1)
 	let cslope = 0;
 	if (P.exact) {
 		const lz = P.horizon ? Math.log1p(-tp.eta) : Math.log(zeta);
@@ -192,14 +202,16 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 			fstar += P.horizon ? fc[j] * Math.expm1(fp[j] * lz) : A[j];
 			cslope -= fp[j] * A[j];
 		}
-		hstar = 1;
+		hstarM1 = 0;
 		for (let j = 0; j < nh; j++) {
 			B[j] = hc[j] * Math.exp(hp[j] * lz);
-			hstar += B[j];
+			hstarM1 += B[j];
 		}
+		hstar = 1 + hstarM1;
 	} else {
 		fstar = P.slice.f(zs);
 		hstar = P.slice.h(zs);
+		hstarM1 = hstar - 1;
 		const dz = 1e-6 * zs;
 		cslope = (zs * (fstar - P.slice.f(zs - dz))) / dz;
 	}
@@ -207,7 +219,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 		throw new HoloError(`the metric is not positive at the turning point z*=${zs}`, 'zstar');
 	}
 	const a = cslope > fstar ? Math.sqrt(fstar / cslope) : 1;
-	const X = nodesFor(P, a);
+	const X = nodesFor(P, a, hstar);
 	let wd = 0;
 	let ad = 0;
 	for (let q = 0; q < X.n; q++) {
@@ -220,9 +232,8 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 			F = fstar;
 			Fm1 = 0;
 			for (let j = 0; j < nf; j++) {
-				const e = X.fE[j][q];
-				F += A[j] * e;
-				Fm1 += A[j] * (1 + e);
+				F += A[j] * X.fE[j][q];
+				Fm1 += A[j] * X.fU[j][q];
 			}
 			hm1 = 0;
 			dh = 0;
@@ -263,7 +274,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	const W0 = vacuumWidthFactor(d);
 	const sh = Math.sqrt(hstar);
 	// W = 2√h* (W₀/2 + ΔI_w)  ⇒  (W − W₀)/W₀ = (√h* − 1) + 2√h* ΔI_w / W₀
-	const wrel = Math.expm1(0.5 * Math.log1p(hstar - 1)) + (2 * sh * wd) / W0;
+	const wrel = Math.expm1(0.5 * Math.log1p(hstarM1)) + (2 * sh * wd) / W0;
 	return { width: zs * W0 * (1 + wrel), wrel, dS: ad };
 }
 
