@@ -52,14 +52,24 @@ export function linearScale(domain: [number, number], range: [number, number]): 
 	return s;
 }
 
-/** Log domain widened to whole decades; non-positive inputs fall back to a decade around the rest. */
+/** Log domain widened to the nearest 1, 2 or 5 × 10^k around the data; non-positive data fall back to [1e-3, 1]. */
 export function logDomain(a: number, b: number): [number, number] {
 	const lo = Math.min(a, b);
 	const hi = Math.max(a, b);
 	if (!(lo > 0) || !Number.isFinite(hi)) return [1e-3, 1];
-	const e0 = Math.floor(Math.log10(lo) + 1e-9);
-	const e1 = Math.ceil(Math.log10(hi) - 1e-9);
-	return [10 ** e0, 10 ** (e1 === e0 ? e0 + 1 : e1)];
+	const down = (v: number) => {
+		const p = 10 ** Math.floor(Math.log10(v) + 1e-9);
+		const m = [5, 2, 1].find((k) => k * p <= v * (1 + 1e-9))!;
+		return Number((m * p).toPrecision(12));
+	};
+	const up = (v: number) => {
+		const p = 10 ** Math.floor(Math.log10(v) - 1e-9);
+		const m = [1, 2, 5, 10].find((k) => k * p >= v * (1 - 1e-9))!;
+		return Number((m * p).toPrecision(12));
+	};
+	const d0 = down(lo);
+	const d1 = up(hi);
+	return d1 > d0 ? [d0, d1] : [d0, d0 * 10];
 }
 
 export function logScale(domain: [number, number], range: [number, number]): Scale {
@@ -74,7 +84,7 @@ export function logScale(domain: [number, number], range: [number, number]): Sca
 		const out: number[] = [];
 		const lo = Math.floor(Math.min(d0, d1));
 		const hi = Math.ceil(Math.max(d0, d1));
-		const decades = hi - lo;
+		const decades = Math.abs(d1 - d0);
 		// many decades: every decade (or every other); few: 1, 2, 5 within each
 		const mult = decades <= 2 ? [1, 2, 5] : [1];
 		const every = decades > 8 ? 2 : 1;

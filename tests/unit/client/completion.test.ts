@@ -37,3 +37,18 @@ describe('completion', () => {
 		expect(commonPrefix([])).toBe('');
 	});
 });
+
+describe('vocabulary from the language’s help table', async () => {
+	const { buildVocabulary } = await import('../../../src/lib/client/words');
+	const v = buildVocabulary([{ name: 'btz-check', description: 'BTZ', params: { l: '1' } }]);
+	it('has every verb with help and an example, and the statements', () => {
+		const darea = v.verbs.find((w) => w.name === 'darea');
+		expect(darea?.help).toMatch(/ΔA/);
+		expect(darea?.example).toMatch(/^darea /);
+		expect(v.verbs.map((w) => w.name)).toContain('sweep');
+		expect(v.verbs.map((w) => w.name)).not.toContain('arithmetic');
+	});
+	it('completes macros after @', () => {
+		expect(complete('@bt', 3, v).candidates.map((c) => c.insert)).toEqual(['@btz-check']);
+	});
+});

@@ -29,8 +29,10 @@ describe('log scale', () => {
 		expect(s(0.1)).toBeCloseTo(100, 10);
 		expect(s.invert(100)).toBeCloseTo(0.1, 12);
 	});
-	it('widens to whole decades and ticks 1-2-5 over few decades', () => {
-		expect(logDomain(0.05, 1.2)).toEqual([0.01, 10]);
+	it('widens to 1-2-5 steps around the data and ticks 1-2-5 over few decades', () => {
+		expect(logDomain(0.05, 1.2)).toEqual([0.05, 2]);
+		expect(logDomain(0.03, 0.3)).toEqual([0.02, 0.5]);
+		expect(logDomain(1e-6, 1e-2)).toEqual([1e-6, 1e-2]);
 		expect(logScale([0.01, 1], [0, 1]).ticks()).toEqual([0.01, 0.02, 0.05, 0.1, 0.2, 0.5, 1]);
 	});
 	it('falls back when there is nothing positive', () => {

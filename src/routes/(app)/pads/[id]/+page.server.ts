@@ -1,0 +1,61 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { ApiFailure } from '$lib/server/http';
+import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad } from '$lib/server/pads';
+import type { BulkState, Result, UnitsState } from '$lib/lang/result';
+import type { StepData } from '$lib/client/types';
+
+/** Any id that is not the user's own or invited pad is the same 404, as in the API. */
+function readable<T>(f: () => T): T {
+	try {
+		return f();
+	} catch (e) {
+		if (e instanceof ApiFailure) error(e.status, e.message);
+		throw e;
+	}
+}
+
+export const load: PageServerLoad = async ({ locals, params }) => {
+	const user = locals.user!;
+	const pad = readable(() => findReadablePad(user, params.id));
+	const steps: StepData[] = padSteps(pad.id).map((s) => ({
+		id: s.id,
+		n: s.n,
+		input: s.input,
+		status: s.status,
+		results: (s.results as Result[] | null) ?? [],
+		error: (s.error as StepData['error']) ?? null,
+		ms: s.ms
+	}));
+	const own = pad.ownerId === user.id && user.role !== 'reader';
+	return {
+		pad: {
+			id: pad.id,
+			title: pad.title,
+			bulk: pad.bulk as BulkState,
+			units: pad.units as UnitsState,
+			history: own ? ((pad.history as string[]) ?? []) : [],
+			own
+		},
+		steps
+	};
+};
+
+export const actions: Actions = {
+	rename: async ({ locals, params, request }) => {
+		const user = locals.user;
+		if (!user || user.role === 'reader') return fail(403, { message: 'Only the pad’s owner may rename it.' });
+		const title = String((await request.formData()).get('title') ?? '').trim();
+		if (!title) return fail(400, { message: 'A pad needs a title.' });
+		if (title.length > 120) return fail(400, { message: 'Keep the title under 120 characters.' });
+		renamePad(readable(() => findOwnPad(user, params.id)), title);
+		return { renamed: title };
+	},
+	delete: async ({ locals, params }) => {
+		const user = locals.user;
+		if (!user || user.role === 'reader') return fail(403, { message: 'Only the pad’s owner may delete it.' });
+		deletePad(readable(() => findOwnPad(user, params.id)));
+		const next = listPads(user.id)[0];
+		redirect(303, next ? `/pads/${next.id}` : '/');
+	}
+};
