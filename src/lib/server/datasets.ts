@@ -10,11 +10,8 @@ import type { AppUser } from './auth/guards';
 import { failure } from './http';
 import { env } from './env';
 import { CsvProblem, parseNumericCsv } from './csv';
-import { formatBytes } from '../library/format';
+import { DATASET_NAME, DATASET_NAME_MAX, formatBytes, nameFromFile } from '../library/format';
 
-/** The language reads `compare <name>` as a plain name: letters, digits and `_`, starting with a letter. */
-export const DATASET_NAME = /^[a-z][a-z0-9_]*$/;
-export const DATASET_NAME_MAX = 40;
 export const DATASETS_PER_OWNER = 50;
 
 export const datasetNameSchema = z
@@ -25,14 +22,6 @@ export const datasetNameSchema = z
 
 /** Browsers and operating systems label CSV files differently; anything else is not a CSV. */
 const CSV_TYPES = new Set(['', 'text/csv', 'application/csv', 'text/comma-separated-values', 'application/vnd.ms-excel', 'text/plain', 'application/octet-stream']);
-
-/** `Lattice d=4 (v2).csv` → `lattice_d_4_v2`: a usable name when the uploader gives none. */
-export function nameFromFile(fileName: string): string {
-	const stem = fileName.replace(/\.[^.]*$/, '').toLowerCase();
-	let name = stem.replace(/[^a-z0-9_]+/g, '_').replace(/^_+|_+$/g, '').replace(/_+/g, '_');
-	if (!/^[a-z]/.test(name)) name = 'data_' + name;
-	return name.slice(0, DATASET_NAME_MAX).replace(/_+$/, '') || 'data';
-}
 
 type DatasetRow = typeof schema.datasets.$inferSelect;
 
