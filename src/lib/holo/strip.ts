@@ -159,11 +159,17 @@ function buildNodes(P: Prepared, a: number, extra: number): Nodes {
  */
 function nodesFor(P: Prepared, a: number, hstar: number): Nodes {
 	const extra = hstar > 10 ? Math.ceil(2 * Math.log10(hstar)) : 0;
-	if (a !== 1) return buildNodes(P, a, extra);
-	let byExtra = fixedNodes.get(P);
-	if (!byExtra) fixedNodes.set(P, (byExtra = new Map()));
-	let X = byExtra.get(extra);
-	if (!X) byExtra.set(extra, (X = buildNodes(P, 1, extra)));
+	// a only has to be of the order of the peak width, so it is rounded down to a power of 2 and the node
+	// sets are cached per (a, extra)
+	const k = a >= 1 ? 0 : Math.min(1000, Math.ceil(-Math.log2(a)));
+	const key = k * 64 + extra;
+	let byKey = fixedNodes.get(P);
+	if (!byKey) fixedNodes.set(P, (byKey = new Map()));
+	let X = byKey.get(key);
+	if (!X) {
+		if (byKey.size > 400) byKey.clear();
+		byKey.set(key, (X = buildNodes(P, Math.pow(2, -k), extra)));
+	}
 	return X;
 }
 

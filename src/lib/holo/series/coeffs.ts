@@ -112,3 +112,8 @@ export function kappaCoeffs(d: number, n: number): number[][] {
 	cache.set(key, out);
 	return out;
 }
+
+/** Empties the coefficient cache (benchmarks time the cold computation with it). */
+export function clearCoeffCache(): void {
+	cache.clear();
+}

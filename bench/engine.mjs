@@ -1,0 +1,113 @@
+#!/usr/bin/env node
+// Engine benchmarks: bundles src/lib/holo with esbuild (already in node_modules via vite), times the hot paths,
+// prints one JSON line per benchmark and updates the "engine" section of bench/RESULTS.md.
+import { build } from 'esbuild';
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const out = join(mkdtempSync(join(tmpdir(), 'bulkpad-bench-')), 'holo.mjs');
+await build({
+	stdin: {
+		contents: `export * from './src/lib/holo/index.ts'; export { clearCoeffCache } from './src/lib/holo/series/coeffs.ts';`,
+		resolveDir: root,
+		loader: 'ts'
+	},
+	bundle: true,
+	format: 'esm',
+	platform: 'neutral',
+	mainFields: ['module', 'main'],
+	outfile: out,
+	logLevel: 'error'
+});
+const H = await import(pathToFileURL(out).href);
+
+function bench(name, fn, { minRuns = 20, minMs = 400 } = {}) {
+	for (let i = 0; i < 5; i++) fn(); // warm-up (JIT)
+	const times = [];
+	const t0 = performance.now();
+	while (times.length < minRuns || performance.now() - t0 < minMs) {
+		const a = performance.now();
+		fn();
+		times.push((performance.now() - a) * 1000);
+		if (times.length > 100000) break;
+	}
+	times.sort((x, y) => x - y);
+	const r = { name, median_us: Number(times[times.length >> 1].toFixed(2)), runs: times.length };
+	console.log(JSON.stringify(r));
+	return r;
+}
+
+const brane = H.makeBulk('brane', { d: 4, zh: 1 });
+const boosted = H.makeBulk('boosted', { d: 4, zh: 1, v: 0.6 });
+const results = [];
+results.push(bench('exact ΔA brane d=4 l=0.5 zh=1 (1e-10)', () => H.deltaArea(brane, 0.5), { minRuns: 2000 }));
+results.push(bench('exact ΔA boosted d=4 v=0.6 l=0.5', () => H.deltaArea(boosted, 0.5), { minRuns: 2000 }));
+results.push(bench('exact ΔA brane d=4 l=5 (near horizon)', () => H.deltaArea(brane, 5), { minRuns: 500 }));
+const ls = Array.from({ length: 200 }, (_, i) => 0.05 + (1.15 * i) / 199);
+results.push(
+	bench('sweep 200 points, orders 1,2,3,exact (boosted d=4)', () => {
+		for (const l of ls) {
+			for (const n of [1, 2, 3]) H.deltaAreaSeries(boosted, l, n);
+			H.deltaArea(boosted, l);
+		}
+	})
+);
+results.push(
+	bench('coefficients a_k(κ) to order 12, cold (d=4)', () => {
+		H.clearCoeffCache();
+		H.boostedCoeffPolys(4, 12);
+	})
+);
+
+// the same exact computation with mpmath (15 digits), for the ratio
+let py = null;
+const runner = join(root, 'tests/fixtures/holo');
+try {
+	const code = `
+import sys, time; sys.path.insert(0, ${JSON.stringify(runner)})
+import mpmath as mp, runner
+mp.mp.dps = 15
+def dA(l):
+    def w(x):
+        eta = 1/(1+mp.exp(x)); return mp.log(runner.strip('brane', 4, 1-eta, eta)[0]) - mp.log(l)
+    x = mp.findroot(w, 0.0, solver='secant', tol=1e-20)
+    eta = 1/(1+mp.exp(x)); wd, A = runner.strip('brane', 4, 1-eta, eta)
+    return A - runner.vac_area(4, mp.mpf(l))
+runner.strip.__globals__['mp'].mp.dps = 15
+t = time.perf_counter(); n = 0
+while time.perf_counter() - t < 3 or n < 2:
+    v = dA(0.5); n += 1
+print((time.perf_counter() - t) / n * 1e6, v)
+`;
+	const [us] = execFileSync('python3', ['-c', code], { encoding: 'utf8', timeout: 120000 }).trim().split(' ');
+	py = Number(us);
+	const r = { name: 'mpmath exact ΔA brane d=4 l=0.5 (dps 15, tanh-sinh + secant)', median_us: Number(py.toFixed(0)), runs: 1 };
+	console.log(JSON.stringify(r));
+	results.push(r);
+} catch (e) {
+	console.error('python/mpmath comparison skipped:', e.message.split('\n')[0]);
+}
+
+const ratio = py ? py / results[0].median_us : null;
+const lines = [
+	'<!-- engine:start -->',
+	'## engine (src/lib/holo)',
+	'',
+	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up.`,
+	'',
+	'| benchmark | median (µs) | runs | goal |',
+	'|---|---|---|---|',
+	...results.map((r, i) => `| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', ''][i] ?? ''} |`),
+	'',
+	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',
+	'<!-- engine:end -->'
+];
+const file = join(root, 'bench/RESULTS.md');
+let text = existsSync(file) ? readFileSync(file, 'utf8') : '# Benchmark results\n';
+const re = /<!-- engine:start -->[\s\S]*<!-- engine:end -->/;
+text = re.test(text) ? text.replace(re, lines.join('\n')) : `${text.trimEnd()}\n\n${lines.join('\n')}\n`;
+writeFileSync(file, text);
