@@ -3,6 +3,8 @@ import type { Bulk, BulkName } from '../types';
 import { makeBoosted } from './boosted';
 import { makeBrane } from './brane';
 import { makeCharged } from './charged';
+import { makeDpBulk } from './dp';
+import { makeSolitonBulk } from './soliton';
 import { makeMetric } from './metric';
 import { makeVacuum } from './vacuum';
 import { makeWave } from './wave';
@@ -15,7 +17,9 @@ const factories = new Map<string, Factory>([
 	['boosted', makeBoosted],
 	['wave', makeWave],
 	['charged', makeCharged],
-	['metric', makeMetric]
+	['metric', makeMetric],
+	['soliton', makeSolitonBulk],
+	['dp', makeDpBulk]
 ]);
 
 export const BULK_NAMES: readonly BulkName[] = ['vacuum', 'brane', 'boosted', 'wave', 'charged', 'soliton', 'dp', 'metric'];
