@@ -8,7 +8,16 @@ export { makeBulk, registerBulk, BULK_NAMES } from './bulks/index';
 export { zstarOf, widthOf, areaFinite, deltaArea, vacuumAreaFinite, stripIntegrals } from './area';
 export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor } from './strip';
 export type { TurningPoint, StripIntegrals } from './strip';
-export { seriesCoeffs, deltaAreaSeries, validity, seriesWarning, boostedCoeffPolys } from './series/index';
+export {
+	seriesCoeffs,
+	deltaAreaSeries,
+	validity,
+	seriesWarning,
+	boostedCoeffPolys,
+	seriesValues,
+	seriesRadius,
+	MAX_ORDER
+} from './series/index';
 export { stressTensor, thermo, energy } from './physics';
 export { cd, newtonG, entropy } from './units';
 export type { Units } from './units';
