@@ -1,0 +1,30 @@
+import { error, fail, redirect } from '@sveltejs/kit';
+import type { Actions, PageServerLoad } from './$types';
+import { ApiFailure } from '$lib/server/http';
+import { findSharedPad, forkPad, transcriptOf } from '$lib/server/transcripts';
+
+function sharedOr404(slug: string) {
+	try {
+		return findSharedPad(slug);
+	} catch (e) {
+		if (e instanceof ApiFailure) error(e.status, e.message);
+		throw e;
+	}
+}
+
+export const load: PageServerLoad = ({ params, locals }) => {
+	const transcript = transcriptOf(sharedOr404(params.slug));
+	const role = locals.user?.role;
+	return { slug: params.slug, transcript, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
+};
+
+export const actions: Actions = {
+	/** Re-checks the role itself: the hidden button is no guard. */
+	fork: async ({ params, locals }) => {
+		const user = locals.user;
+		if (!user) redirect(303, `/signin?next=/t/${encodeURIComponent(params.slug)}`);
+		if (user.role !== 'member' && user.role !== 'admin') return fail(403, { message: 'Readers cannot fork; ask an admin to make you a member.' });
+		const pad = forkPad(sharedOr404(params.slug), user);
+		redirect(303, `/pads/${pad.id}`);
+	}
+};
