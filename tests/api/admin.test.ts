@@ -78,3 +78,17 @@ describe('changing roles', () => {
 		expect((await admin.get('/api/admin/users')).status).toBe(200);
 	});
 });
+
+describe('the users page', () => {
+	it('renders the group for an admin and refuses everyone else', async () => {
+		const r = await admin.get('/admin/users');
+		expect(r.status).toBe(200);
+		expect(r.body).toContain('referee@sable.test');
+		expect(r.body).toContain('at least one admin');
+		expect((await member.get('/admin/users')).status).toBe(403);
+		expect((await reader.get('/admin/users')).status).toBe(403);
+		const anon = await new Client().get('/admin/users');
+		expect(anon.status).toBe(303);
+		expect(anon.headers.get('location')).toMatch(/^\/signin/);
+	});
+});

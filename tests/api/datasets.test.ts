@@ -203,3 +203,18 @@ describe('compare in the console', () => {
 		});
 	});
 });
+
+describe('the datasets page', () => {
+	it('lists the owner’s datasets with the line to use them, and offers uploading only to writers', async () => {
+		const name = `page_${tag()}`;
+		expect((await upload(member, table(5).csv, 'p.csv', 'text/csv', name)).status).toBe(201);
+		const page = await member.get('/datasets');
+		expect(page.status).toBe(200);
+		expect(page.body).toContain(`compare ${name} darea`);
+		expect(page.body).toContain('Upload');
+		expect((await stranger.get('/datasets')).body).not.toContain(name);
+		const asReader = await reader.get('/datasets');
+		expect(asReader.status).toBe(200);
+		expect(asReader.body).not.toContain('aria-label="upload a dataset"');
+	});
+});

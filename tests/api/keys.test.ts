@@ -98,3 +98,18 @@ describe('a key', () => {
 		expectFailure(await new Client(undefined, 'not-a-key').get('/api/keys'), 401);
 	});
 });
+
+describe('the keys page', () => {
+	it('lists labels and prefixes, never a key, and offers making one only to writers', async () => {
+		const made = await makeKey(member, 'page check');
+		const page = await member.get('/keys');
+		expect(page.status).toBe(200);
+		expect(page.body).toContain('page check');
+		expect(page.body).toContain(made.prefix);
+		expect(page.body).not.toContain(made.key);
+		expect(page.body).toContain('Make a key');
+		const asReader = await reader.get('/keys');
+		expect(asReader.status).toBe(200);
+		expect(asReader.body).not.toContain('Make a key');
+	});
+});

@@ -215,3 +215,21 @@ describe('macros in the console', () => {
 		expectFailure(await author.post('/api/eval', { input: `@${m.name}` }), 400);
 	});
 });
+
+describe('the library page', () => {
+	it('shows the approved library to everyone signed in, proposals only to admins and their authors', async () => {
+		const m = await propose(author);
+		const asAuthor = await author.get('/library');
+		expect(asAuthor.status).toBe(200);
+		expect(asAuthor.body).toContain('btz-check');
+		expect(asAuthor.body).toContain('Propose a macro');
+		// the page's data carries the macros the viewer may see, whichever tab is open
+		expect(asAuthor.body).toContain(m.name);
+		expect((await other.get('/library')).body).not.toContain(m.name);
+		expect((await admin.get('/library')).body).toContain(m.name);
+		const asReader = await reader.get('/library');
+		expect(asReader.body).toContain('sym-thermo');
+		expect(asReader.body).not.toContain('Propose a macro');
+		expect(asReader.body).not.toContain('charged-scan');
+	});
+});

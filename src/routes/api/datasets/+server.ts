@@ -28,8 +28,15 @@ export const POST = api(async (event) => {
 	try {
 		form = await event.request.formData();
 	} catch (e) {
-		// the server's own body limit surfaces here as a 413 from the stream
-		if ((e as { status?: number }).status === 413) tooBig();
+		// the HTTP server's own body limit (adapter-node's BODY_SIZE_LIMIT) surfaces here as a 413 from the stream;
+		// it should sit above the dataset limit, and when it does not, say which limit was hit
+		if ((e as { status?: number }).status === 413) {
+			const serverLimit = Number(/(\d+)(?: bytes)?\.?$/.exec((e as Error).message)?.[1] ?? NaN);
+			if (Number.isFinite(serverLimit) && serverLimit < env.uploadMaxBytes) {
+				failure(413, `The upload is over the server's request limit of ${formatBytes(serverLimit)} (datasets may be up to ${formatBytes(env.uploadMaxBytes)}).`, { limit: serverLimit });
+			}
+			tooBig();
+		}
 		failure(400, 'The upload could not be read as multipart/form-data.');
 	}
 	const file = form.get('file');
