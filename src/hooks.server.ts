@@ -1,7 +1,14 @@
-import type { Handle, HandleServerError } from '@sveltejs/kit';
+import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { building } from '$app/environment';
+import { warmPool } from '$lib/server/eval/pool';
 import { randomUUID } from 'node:crypto';
 import { getLucia } from '$lib/server/auth/lucia';
 import { findUserByApiKey } from '$lib/server/auth/apikey';
+
+export const init: ServerInit = () => {
+	// load the engine into the worker threads in the background; requests do not wait for it
+	if (!building) warmPool().catch((e) => console.error('could not warm the evaluation pool', e));
+};
 
 /** Bearer keys for scripts; the session cookie for browsers. Roles are checked in each route. */
 export const handle: Handle = async ({ event, resolve }) => {

@@ -66,8 +66,9 @@ describe('POST /api/eval', () => {
 		const b = await c.post('/api/eval', { input: 'darea l=0.3', pad: id });
 		expect(b.body.step.n).toBe(2);
 		expect(b.body.bulk.name).toBe('boosted');
-		const same = await c.post('/api/eval', { input: 'darea l=0.3 d=4 zh=1 v=0.5' });
-		expect(b.body.results[0].value).toBeCloseTo(same.body.results[0].value, 12);
+		const same = await c.post('/api/eval', { input: 'use boosted d=4 zh=1 v=0.5; darea l=0.3' });
+		expect(same.status).toBe(200);
+		expect(b.body.results[0].value).toBeCloseTo(same.body.results.at(-1).value, 12);
 		const ratio = await c.post('/api/eval', { input: '#2 / #2', pad: id });
 		expect(ratio.status).toBe(200);
 		expect(ratio.body.results[0].value).toBeCloseTo(1, 14);
@@ -76,12 +77,15 @@ describe('POST /api/eval', () => {
 	it('keeps a failing line as a step with its error', async () => {
 		const c = await freshMember('failer');
 		const id = (await c.post('/api/pads', { title: 'errors' })).body.pad.id;
-		const r = await c.post('/api/eval', { input: 'darea v=2 d=4', pad: id });
+		const r = await c.post('/api/eval', { input: 'use boosted d=4 v=2', pad: id });
 		expect(r.status).toBe(400);
+		expect(r.body.error.message).toMatch(/\|v\| < 1/);
 		expect(r.body.step.n).toBe(1);
 		const pad = await c.get(`/api/pads/${id}`);
-		expect(pad.body.steps[0]).toMatchObject({ n: 1, input: 'darea v=2 d=4', status: 'error' });
-		expect(pad.body.pad.history).toContain('darea v=2 d=4');
+		expect(pad.body.steps[0]).toMatchObject({ n: 1, input: 'use boosted d=4 v=2', status: 'error' });
+		expect(pad.body.pad.history).toContain('use boosted d=4 v=2');
+		// the failed line changed nothing: the pad is still in its default bulk
+		expect(pad.body.pad.bulk.name).toBe('brane');
 	});
 
 	it("answers 404 for another member's pad", async () => {

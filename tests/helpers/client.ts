@@ -55,11 +55,19 @@ export class Client {
 	}
 }
 
-/** A client signed in as one of the demo accounts (or any account). */
-export async function signedIn(email: string, password = DEMO_PASSWORD): Promise<Client> {
+const sessions = new Map<string, Client>();
+
+/**
+ * A client signed in as one of the demo accounts (or any account). Sessions are reused within a test file,
+ * so the suite stays well under the sign-in rate limit; pass `fresh` for a new session.
+ */
+export async function signedIn(email: string, password = DEMO_PASSWORD, fresh = false): Promise<Client> {
+	const cached = sessions.get(email);
+	if (cached && !fresh && (await cached.get('/api/auth/me')).status === 200) return cached;
 	const c = new Client();
 	const r = await c.post('/api/auth/signin', { email, password });
 	if (r.status !== 200) throw new Error(`sign-in as ${email} failed: ${r.status} ${JSON.stringify(r.body)}`);
+	if (!fresh) sessions.set(email, c);
 	return c;
 }
 

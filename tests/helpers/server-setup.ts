@@ -41,10 +41,10 @@ export default async function setup(project: TestProject) {
 		DATABASE_URL: dbFile,
 		NODE_ENV: 'production',
 		SMTP_PORT: String(smtp.port),
-		BULKPAD_SIGNIN_PER_MINUTE: '5',
+		BULKPAD_SIGNIN_PER_MINUTE: '30',
 		BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS: '100000',
 		BULKPAD_REPLAY_PER_MINUTE: '1000',
-		BULKPAD_EVAL_BUDGET_MS: '4000'
+		BULKPAD_EVAL_BUDGET_MS: '2000'
 	};
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
 	if (seed.status !== 0) throw new Error(`seeding failed:\n${seed.stdout}\n${seed.stderr}`);

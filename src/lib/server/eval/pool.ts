@@ -11,6 +11,9 @@ export const WORKER_FILE = resolve(process.env.BULKPAD_WORKER ?? 'dist/eval-work
 
 let pool: Piscina | undefined;
 
+/** How long a task may wait for a thread (busy, or booting after a budget overrun) before it is refused. */
+const START_GRACE_MS = 30_000;
+
 function getPool(): Piscina {
 	if (pool) return pool;
 	if (!existsSync(WORKER_FILE)) {
@@ -18,7 +21,7 @@ function getPool(): Piscina {
 	}
 	pool = new Piscina({
 		filename: WORKER_FILE,
-		minThreads: 1,
+		minThreads: env.evalThreads,
 		maxThreads: env.evalThreads,
 		// a runaway evaluation dies alone instead of taking the server's heap with it
 		resourceLimits: { maxOldGenerationSizeMb: 256 },
@@ -40,21 +43,27 @@ export interface EvalOptions {
 export async function evaluateInPool(input: string, ctx: PadContext, opts: EvalOptions = {}): Promise<EvalAnswer> {
 	const budgetMs = opts.budgetMs ?? env.evalBudgetMs;
 	const controller = new AbortController();
-	const timer = setTimeout(() => controller.abort('budget'), budgetMs);
+	// the budget is timed from the worker's "started" message; the outer timer only guards a thread that
+	// never starts at all
+	let timer = setTimeout(() => controller.abort('budget'), budgetMs + START_GRACE_MS);
 	const onOuterAbort = () => controller.abort('cancelled');
 	opts.signal?.addEventListener('abort', onOuterAbort);
-	const channel = opts.onProgress ? new MessageChannel() : undefined;
-	if (channel && opts.onProgress) {
-		const report = opts.onProgress;
-		channel.port1.on('message', (m: { done: number; total: number }) => report(m));
-	}
+	const channel = new MessageChannel();
+	channel.port1.on('message', (m: { started?: true; done: number; total: number }) => {
+		if (m.started) {
+			clearTimeout(timer);
+			timer = setTimeout(() => controller.abort('budget'), budgetMs);
+		} else opts.onProgress?.(m);
+	});
 	try {
-		const task = channel ? { input, ctx, port: channel.port2 } : { input, ctx };
-		return (await getPool().run(task, {
-			signal: controller.signal,
-			// piscina types its transfer list with the DOM MessagePort that SvelteKit's lib settings select
-			transferList: (channel ? [channel.port2] : undefined) as never
-		})) as EvalAnswer;
+		return (await getPool().run(
+			{ input, ctx, port: channel.port2 },
+			{
+				signal: controller.signal,
+				// piscina types its transfer list with the DOM MessagePort that SvelteKit's lib settings select
+				transferList: [channel.port2] as never
+			}
+		)) as EvalAnswer;
 	} catch (e) {
 		if (controller.signal.aborted) {
 			const cancelled = controller.signal.reason === 'cancelled';
@@ -76,8 +85,14 @@ export async function evaluateInPool(input: string, ctx: PadContext, opts: EvalO
 	} finally {
 		clearTimeout(timer);
 		opts.signal?.removeEventListener('abort', onOuterAbort);
-		channel?.port1.close();
+		channel.port1.close();
 	}
+}
+
+/** Starts the pool's threads and loads the engine in them, so the first user does not wait for it. */
+export async function warmPool(): Promise<void> {
+	const ctx: PadContext = { bulk: { name: 'brane', params: { d: 4, zh: 1 } }, units: { system: 'geo', G: 1 }, refs: {}, lets: {} };
+	await Promise.all(Array.from({ length: env.evalThreads }, () => evaluateInPool('zstar l=0.5', ctx, { budgetMs: 30_000 })));
 }
 
 export async function closePool(): Promise<void> {

@@ -17,6 +17,8 @@ export type EvalAnswer =
 	| { ok: false; error: { message: string; start: number; end: number; hint?: string; code: 'language' | 'limit' | 'internal' } };
 
 export default function evaluateTask({ input, ctx, port }: EvalTask): EvalAnswer {
+	// the time budget starts now, not while the task waited for a thread or a fresh thread booted
+	port?.postMessage({ started: true });
 	let last = 0;
 	const onProgress = port
 		? (done: number, total: number) => {
