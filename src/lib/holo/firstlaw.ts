@@ -338,6 +338,8 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 	const ex = order === 'exact' ? co : firstLawCoefficients(bulk, l, 'exact');
 	const ref = order === 'exact' ? co : order < 12 ? firstLawCoefficients(bulk, l, order + 1) : ex;
 	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	// the (n+1)-th term of ∂ΔA, formed directly so that the residual carries no cancellation error
+	const next = typeof order === 'number' && order < 12 ? firstLawSeries(bulk, l, order + 1) : undefined;
 	const dir = (dw: number, dq: number): FirstLawDirection => {
 		const sgn = F.sign;
 		const dE = (l * (E1 * dw + E2 * dq)) / (16 * Math.PI * G);
@@ -345,7 +347,9 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 		const rhs = co.alpha * dE + co.zeta * dP;
 		const lhs = (ref.Aw * dw + ref.Aq * dq) / (4 * G);
 		const exact = (ex.Aw * dw + ex.Aq * dq) / (4 * G);
-		return { lhs, rhs, residual: lhs - rhs, residualExact: exact - rhs };
+		const n = order as number;
+		const residual = next ? (l * l * Math.pow(next.x, n) * (next.W[n] * dw + next.Q[n] * dq)) / (4 * G) : lhs - rhs;
+		return { lhs, rhs, residual, residualExact: exact - rhs };
 	};
 	if (F.kind === 'charged') {
 		// one parameter (zh at fixed q): report per unit δ ln zh = −1/d, like the scale direction
