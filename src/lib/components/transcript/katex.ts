@@ -24,3 +24,8 @@ export function showNumber(v: unknown): string {
 	if (Number.isInteger(v) && Math.abs(v) < 1e15) return String(v);
 	return Number.isFinite(v) ? String(Number(v.toPrecision(10))) : String(v);
 }
+
+/** A relative drift: three significant digits are plenty to judge it against the 1e-8 tolerance. */
+export function showDelta(d: number): string {
+	return d === 0 ? '0' : d.toExponential(2).replace('e', '×10^').replace('^+', '^');
+}
