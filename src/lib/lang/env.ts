@@ -6,7 +6,7 @@ import type * as A from './ast';
 import { LangError } from './errors';
 import type { Limits } from './limits';
 import type { BulkState, LetValue, PadContext, Result, StepRef, UnitsState } from './result';
-import { canonicalKey } from './vocab';
+import { ALL_BULK_KEYS, canonicalKey } from './vocab';
 import { NotAvailable, isHoloError } from './verbs';
 
 export interface LineEnv {
@@ -49,7 +49,7 @@ export function withEngine<T>(keys: A.KeyValue[], fallback: A.Span, where: strin
 			const kv = findKey(keys, e.key);
 			const span = kv ? kv.value : fallback;
 			const suffix = where ? ` (${where})` : '';
-			const fromPad = !kv && e.key !== undefined && e.key !== 'bulk' ? " in the pad's bulk" : '';
+			const fromPad = !kv && e.key !== undefined && (ALL_BULK_KEYS as readonly string[]).includes(e.key) ? " in the pad's bulk" : '';
 			throw new LangError(`${e.message}${fromPad}${suffix}`, span.start, span.end, e.hint ? { hint: e.hint } : {});
 		}
 		throw e;

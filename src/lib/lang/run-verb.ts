@@ -34,7 +34,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	const oRes = sorted.orderKey ? resolveValue(sorted.orderKey.value, qscope, env.limits) : undefined;
 	let orders = readOrders(sorted.orderKey, oRes, env);
 
-	if ((kind === 'series' || verb === 'validity') && orders.includes('exact')) {
+	if ((kind === 'series' || verb === 'validity' || verb === 'resum') && orders.includes('exact')) {
 		const span = sorted.orderKey?.value ?? verbSpan;
 		throw new LangError(`${verb} needs a whole order, e.g. o=4`, span.start, span.end);
 	}
@@ -110,8 +110,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const args = argsOf(p.q);
 		const argText = Object.entries(args).map(([k, v]) => `${k}=${shortNumber(v)}`).join(' ');
 		if (kind === 'scalar') {
-			const value = engine(p, x, () => V.scalarAt(verb, p));
-			const warning = engine(p, x, () => V.warningAt(verb, p));
+			const { value, warning, fields: extra } = engine(p, x, () => V.scalarAt(verb, p));
 			tick();
 			results.push({
 				kind: 'scalar',
@@ -119,10 +118,10 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 				value,
 				order,
 				latex: texScalar(verb, args, order, value),
-				fields: args,
+				fields: { ...args, ...(extra ?? {}) },
 				...(warning ? { warning } : {})
 			});
-			ref = { value, fields: { ...args }, order };
+			ref = { value, fields: { ...args, ...(extra ?? {}) }, order };
 		} else if (kind === 'record') {
 			const fields = engine(p, x, () => V.recordAt(verb, p));
 			tick();
@@ -178,9 +177,9 @@ function buildTable(
 			const row: (number | string | null)[] = [x ?? null];
 			for (const o of orders) {
 				const p = pointAt(x, o);
-				row.push(engine(p, x, () => V.scalarAt(verb, p)));
-				const w = engine(p, x, () => V.warningAt(verb, p));
-				const at = p.q.l ?? 0;
+				const { value, warning: w } = engine(p, x, () => V.scalarAt(verb, p));
+				row.push(value);
+				const at = p.q.l ?? p.q.R ?? 0;
 				if (w && (warnings.get(o)?.at ?? -Infinity) < at) warnings.set(o, { at, text: w });
 				tick();
 			}

@@ -47,12 +47,17 @@ export interface Point {
 /** Thrown for a verb or form whose engine part has not landed; the evaluator points it at the verb. */
 export class NotAvailable extends Error {}
 
-/** The engine's optional analysis exports, looked up by name so their absence is not a build error. */
-const analysis = holo as unknown as Record<string, ((...args: unknown[]) => unknown) | undefined>;
-function need(name: string, what: string): (...args: unknown[]) => unknown {
-	const f = analysis[name];
+/**
+ * The engine's analysis half (holo/analysis.ts), reached through the public index, which re-exports it.
+ * Looked up by name at run time so that an index without it is not a build error: the verb then says
+ * "… is not available yet" instead of answering.
+ */
+type Analysis = typeof import('../holo/analysis');
+const surface = holo as unknown as Partial<Analysis>;
+function need<K extends keyof Analysis>(name: K, what: string): Analysis[K] {
+	const f = surface[name];
 	if (typeof f !== 'function') throw new NotAvailable(`${what} is not available yet`);
-	return f;
+	return f as Analysis[K];
 }
 
 function requireSeries(p: Point): number {
@@ -75,33 +80,67 @@ function stripArea(p: Point): number {
 	return holo.vacuumAreaFinite(p.bulk.d, l) + holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
 }
 
-function ballUnavailable(verb: string): never {
-	throw new NotAvailable(`${verb} ball is not available yet`);
+/** The engine's balls live in the brane (and trivially in vacuum); its series is known to order 1. */
+function ballZh(p: Point, verb: string): number | undefined {
+	if (p.bulk.name === 'vacuum') return undefined;
+	if (p.bulk.name !== 'brane') throw new holo.HoloError(`${verb} ball needs the brane or vacuum bulk`, 'bulk', 'use brane …');
+	return p.bulk.horizon!;
 }
 
-/** A scalar verb's value at one point. */
-export function scalarAt(verb: Verb, p: Point): number {
+function ballDeltaArea(p: Point, verb: string): number {
+	const R = p.q.R!;
+	const zh = ballZh(p, verb);
+	if (zh === undefined || p.order === 0) return 0;
+	if (p.order === 'exact') return need('ballDeltaArea', `${verb} ball`)(p.bulk.d, R, zh).value;
+	if (p.order === 1) return need('ballDeltaAreaFirstOrder', `${verb} ball`)(p.bulk.d, R, zh);
+	throw new holo.HoloError('the ball series is known to order 1: use o=1 or o=exact', 'o');
+}
+
+function ballArea(p: Point, verb: string): number {
+	return need('ballVacuumAreaFinite', `${verb} ball`)(p.bulk.d) + ballDeltaArea(p, verb);
+}
+
+/** A scalar verb's value at one point, with the warning and side fields it carries. */
+export interface ScalarAt {
+	value: number;
+	warning?: string;
+	fields?: Record<string, number>;
+}
+
+export function scalarAt(verb: Verb, p: Point): ScalarAt {
 	const ball = p.shape === 'ball';
+	const plain = (value: number): ScalarAt => {
+		const warning = ball ? undefined : warningAt(verb, p);
+		return warning ? { value, warning } : { value };
+	};
 	switch (verb) {
 		case 'zstar':
-			return holo.zstarOf(p.bulk, p.q.l!);
+			return plain(holo.zstarOf(p.bulk, p.q.l!));
 		case 'width':
-			return holo.widthOf(p.bulk, p.q.zstar!);
+			return plain(holo.widthOf(p.bulk, p.q.zstar!));
 		case 'area':
-			return ball ? ballUnavailable(verb) : stripArea(p);
+			return plain(ball ? ballArea(p, verb) : stripArea(p));
 		case 'darea':
-			return ball ? ballUnavailable(verb) : stripDeltaArea(p);
+			return plain(ball ? ballDeltaArea(p, verb) : stripDeltaArea(p));
 		case 'entropy':
-			return holo.entropy(ball ? ballUnavailable(verb) : stripArea(p), p.G);
+			return plain(holo.entropy(ball ? ballArea(p, verb) : stripArea(p), p.G));
 		case 'dentropy':
-			return holo.entropy(ball ? ballUnavailable(verb) : stripDeltaArea(p), p.G);
+			return plain(holo.entropy(ball ? ballDeltaArea(p, verb) : stripDeltaArea(p), p.G));
 		case 'tent':
-			if (ball) return need('ballTent', 'tent ball')(p.bulk.d, p.q.R) as number;
-			return (need('tent', 'tent')(p.bulk, p.q.l, p.order) as { value: number }).value;
+			if (ball) {
+				// Blanco, Casini, Hung & Myers 2013: the ball's first law holds with T = (d+1)/(2πR) at order 1
+				if (p.order !== 1) throw new holo.HoloError('tent ball is known at order 1: use o=1', 'o');
+				return plain(need('ballTent', 'tent ball')(p.bulk.d, p.q.R!));
+			}
+			return plain(need('tent', 'tent')(p.bulk, p.q.l!, p.order).value);
 		case 'mu':
-			return (need('mu', 'mu')(p.bulk, p.q.l, p.order) as { value: number }).value;
-		case 'resum':
-			return need('resum', 'resum')(p.bulk, p.q.l, p.order) as number;
+			return plain(need('mu', 'mu')(p.bulk, p.q.l!, p.order).value);
+		case 'resum': {
+			const r = need('resum', 'resum')(p.bulk, p.q.l!, requireSeries(p));
+			const fields: Record<string, number> = { series: r.series, exact: r.exact, L: r.L, M: r.M };
+			if (r.pole) fields.pole_l = r.pole.l;
+			return r.warning ? { value: r.value, warning: r.warning, fields } : { value: r.value, fields };
+		}
 		default:
 			throw new Error(`unreachable: ${verb} is not a scalar verb`);
 	}
@@ -121,7 +160,10 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 			return out;
 		}
 		case 'energy': {
-			if (p.shape === 'ball') return ballUnavailable(verb);
+			if (p.shape === 'ball') {
+				const zh = ballZh(p, verb);
+				return { E: zh === undefined ? 0 : need('ballEnergy', 'energy ball')(p.bulk.d, p.q.R!, zh, p.G), P: 0 };
+			}
 			const e = holo.energy(p.bulk, p.q.l!, p.G);
 			return { E: e.E, P: e.P };
 		}
@@ -129,8 +171,11 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 			const v = holo.validity(p.bulk, requireSeries(p), p.q.tol ?? DEFAULT_TOL);
 			return { l_max: v.l_max, radius: v.radius };
 		}
-		case 'mi':
-			return need('mi', 'mi')(p.bulk, p.q.l, p.q.gap, p.G) as Record<string, number>;
+		case 'mi': {
+			// the engine answers I·4G (area units) and s_c/l; API.md's fields are I (entropy) and gap_crit
+			const m = need('mutualInformation', 'mi')(p.bulk, p.q.l!, p.q.gap!);
+			return { I: holo.entropy(m.I, p.G), gap_crit: m.gapCrit };
+		}
 		default:
 			throw new Error(`unreachable: ${verb} is not a record verb`);
 	}
@@ -159,29 +204,13 @@ export interface CheckAt {
 	fields?: Record<string, number>;
 }
 
-/** The engine's first-law check (holo/firstlaw.ts): each direction of variation reports both sides. */
-interface FirstLawDirection {
-	lhs: number;
-	rhs: number;
-	residual: number;
-	residualExact: number;
-}
-interface FirstLawCheck {
-	alpha: number;
-	zeta: number;
-	tent: number;
-	mu: number;
-	scale: FirstLawDirection;
-	shape?: FirstLawDirection;
-}
-
 /** firstlaw's default tolerance: |residual| ≤ 1e-3 · |δΔS|, relative, as for validity. */
 export const FIRSTLAW_TOL = 1e-3;
 
 export function checkAt(verb: Verb, p: Point): CheckAt {
 	if (verb !== 'firstlaw') throw new Error(`unreachable: ${verb} is not a check verb`);
 	if (p.shape === 'ball') throw new NotAvailable('firstlaw ball is not available yet');
-	const c = need('firstLaw', 'firstlaw')(p.bulk, p.q.l, p.order, p.G) as FirstLawCheck;
+	const c = need('firstLaw', 'firstlaw')(p.bulk, p.q.l!, p.order, p.G);
 	const tol = p.q.tol ?? FIRSTLAW_TOL;
 	// the scale direction (δ ln zh) is the one every bulk has; a boosted bulk's second direction must hold too
 	const dirs = c.shape ? [c.scale, c.shape] : [c.scale];
