@@ -81,8 +81,13 @@ export function solitonDisconnectedArea(P: SolitonParams): number {
 	return -2 / ((P.d - 2) * Math.pow(P.z0, P.d - 2));
 }
 
-/** Largest width of a connected surface and its turning point (golden section in logit(z* / z0)). */
+const maxCache = new Map<string, { lmax: number; zstar: number }>();
+
+/** Largest width of a connected surface and its turning point (golden section in logit(z* / z0)); cached. */
 export function solitonMaxWidth(P: SolitonParams): { lmax: number; zstar: number } {
+	const key = `${P.d}:${P.z0}`;
+	const hit = maxCache.get(key);
+	if (hit) return hit;
 	const slice = sliceOf(P);
 	const lw = (x: number) => widthAt(slice, point(P.z0, x));
 	const g = (Math.sqrt(5) - 1) / 2;
@@ -108,7 +113,10 @@ export function solitonMaxWidth(P: SolitonParams): { lmax: number; zstar: number
 		}
 	}
 	const x = (a + b) / 2;
-	return { lmax: lw(x), zstar: point(P.z0, x).z };
+	const out = { lmax: lw(x), zstar: point(P.z0, x).z };
+	if (maxCache.size > 64) maxCache.clear();
+	maxCache.set(key, out);
+	return out;
 }
 
 /** Turning point of the connected surface on the branch of smaller z* (the one that can dominate). */

@@ -29,7 +29,7 @@ describe('ball', () => {
 			expect(c.every((x) => x < 0), `d=${d}: (ΔA/ΔA⁽¹⁾ − 1)/R^d = ${c}`).toBe(true);
 			expectRel(`ball d=${d}: (ΔA/ΔA⁽¹⁾ − 1)/R^d at R=0.05 vs R=0.1`, c[1], c[0], 1e-2, 'second-order term dominates');
 		}
-	});
+	}, 120_000);
 
 	it('exact ΔA is stable under halving the ODE tolerance and between the 16- and 24-node w-rules (common practice)', () => {
 		for (const R of [0.5, 2]) {
@@ -38,7 +38,7 @@ describe('ball', () => {
 			expectRel(`ball d=4 R=${R} ΔA rtol 1e-12 vs 5e-13`, b.value, a.value, 1e-9, 'self-consistency');
 			expect(a.error / a.value < 1e-9, `w-rule error ${a.error}`).toBe(true);
 		}
-	});
+	}, 120_000);
 
 	it('large R: ΔA approaches the thermal volume law s·Vol = Ω R^{d−1}/((d−1) zh^{d−1}) from below (PHYSICS.md, large-l check)', () => {
 		const d = 3;
@@ -47,5 +47,5 @@ describe('ball', () => {
 		const r = ballDeltaArea(d, R, 1);
 		expect(r.value < vol && r.value > 0.6 * vol, `ΔA=${r.value}, volume law ${vol}`).toBe(true);
 		expectAbs('Ω_1', 2 * Math.PI, sphereArea(1), 1e-15, 'definition');
-	});
+	}, 120_000);
 });
