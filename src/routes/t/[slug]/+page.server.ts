@@ -2,6 +2,11 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { ApiFailure } from '$lib/server/http';
 import { findSharedPad, forkPad, transcriptOf } from '$lib/server/transcripts';
+import katex from 'katex';
+import { useKatex } from '$lib/client/tex';
+
+// typeset formulas in the first paint, as the console does (its layout registers KaTeX for the (app) pages)
+useKatex(katex);
 
 function sharedOr404(slug: string) {
 	try {
