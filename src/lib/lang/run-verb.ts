@@ -6,12 +6,13 @@
 import type * as A from './ast';
 import { type LineEnv, type StatementOut, findKey, withEngine } from './env';
 import { LangError } from './errors';
-import { describeBulk, orderName, orderWords, shortNumber, texRecord, texScalar, SYMBOLS } from './format';
+import { describeBulk, orderWords, shortNumber, texRecord, texScalar, SYMBOLS } from './format';
 import { readOrders, resolveKeys, sortKeys } from './keys';
 import { limitError } from './limits';
-import type { Order, Result, StepRef, TableResult } from './result';
+import type { Order, Result, StepRef } from './result';
 import { checkBulk, checkKey } from './schema';
 import { applySinks } from './sinks';
+import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import { type BulkName, type Verb, canonicalKey } from './vocab';
 import * as V from './verbs';
@@ -103,7 +104,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			order: n
 		});
 		ref = { fields: Object.fromEntries(st.terms.map((t) => [`a${t.k}`, t.coeff])), order: n };
-	} else if (!orderSweep && xs.length === 1 && orders.length === 1) {
+	} else if (!s.sweep && !orderSweep && xs.length === 1 && orders.length === 1) {
 		const x = xs[0];
 		const order = orders[0]!;
 		const p = pointAt(x, order);
@@ -155,71 +156,6 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		ref = tableRef(table);
 	}
 	return { results: applySinks(results, s.sinks, verb), ...(ref ? { ref } : {}) };
-}
-
-function buildTable(
-	verb: Verb,
-	kind: V.VerbKind,
-	xKey: string,
-	xs: (Scalar | undefined)[],
-	orders: Order[],
-	orderSweep: boolean,
-	pointAt: (x: Scalar | undefined, o: Order) => V.Point,
-	engine: <T>(p: V.Point, x: Scalar | undefined, f: () => T) => T,
-	tick: () => void
-): TableResult {
-	const rows: (number | string | null)[][] = [];
-	let columns: string[];
-	const warnings = new Map<Order, { at: number; text: string }>();
-	if (kind === 'scalar') {
-		columns = [xKey, ...orders.map(orderName)];
-		for (const x of xs) {
-			const row: (number | string | null)[] = [x ?? null];
-			for (const o of orders) {
-				const p = pointAt(x, o);
-				const { value, warning: w } = engine(p, x, () => V.scalarAt(verb, p));
-				row.push(value);
-				const at = p.q.l ?? p.q.R ?? 0;
-				if (w && (warnings.get(o)?.at ?? -Infinity) < at) warnings.set(o, { at, text: w });
-				tick();
-			}
-			rows.push(row);
-		}
-	} else {
-		columns = [xKey];
-		const points = orderSweep ? orders.map((o) => [o, o] as const) : xs.map((x) => [x, orders[0]!] as const);
-		for (const [x, o] of points) {
-			const p = pointAt(orderSweep ? undefined : x, o);
-			const fields: Record<string, number> =
-				kind === 'record'
-					? engine(p, x, () => V.recordAt(verb, p))
-					: (() => {
-							const c = engine(p, x, () => V.checkAt(verb, p));
-							return { lhs: c.lhs, rhs: c.rhs, residual: c.residual, pass: c.pass ? 1 : 0 };
-						})();
-			if (columns.length === 1) columns.push(...Object.keys(fields));
-			rows.push([x ?? null, ...columns.slice(1).map((c) => fields[c] ?? null)]);
-			tick();
-		}
-	}
-	const table: TableResult = { kind: 'table', label: '', columns, rows, plot: { x: xKey } };
-	if (warnings.size) table.warning = [...warnings].map(([o, w]) => `${orderName(o)}: ${w.text}`).join('; ');
-	return table;
-}
-
-/** A table's `#n`: a one-row table exposes its cells; the value is the last column (exact, or the highest order). */
-function tableRef(t: TableResult): StepRef | undefined {
-	if (t.rows.length !== 1) return { fields: {} };
-	const row = t.rows[0]!;
-	const fields: Record<string, number> = {};
-	t.columns.forEach((c, i) => {
-		const v = row[i];
-		if (typeof v === 'number') fields[c] = v;
-	});
-	const last = row[row.length - 1];
-	const lastCol = t.columns[t.columns.length - 1]!;
-	const order: Order | undefined = lastCol === 'exact' ? 'exact' : /^o\d+$/.test(lastCol) ? Number(lastCol.slice(1)) : undefined;
-	return { ...(typeof last === 'number' ? { value: last } : {}), fields, ...(order !== undefined ? { order } : {}) };
 }
 
 function mainKey(keys: readonly string[]): string {
@@ -289,31 +225,3 @@ function argsOf(q: Record<string, number>): Record<string, number> {
 	return out;
 }
 
-/** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series. */
-function seriesLatex(st: V.SeriesTerms): string {
-	const d = st.d;
-	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{z_h}\\right)^{${t.k * d}}`);
-	const pre = d === 2 ? '' : `\\ell^{${2 - d}}`;
-	return `\\Delta A = ${pre}\\Big[${terms.join(' + ') || '0'}\\Big]`;
-}
-
-/**
- * The largest l where each order column stays within the default tolerance of the exact value, for the plot
- * to shade. A hint only: an order the engine cannot bound is left unshaded rather than failing the line.
- */
-function validityHints(orders: Order[], pointOf: (o: Order) => V.Point): Record<string, number> {
-	const out: Record<string, number> = {};
-	for (const o of orders) {
-		if (o === 'exact' || o < 1) continue;
-		try {
-			const p = pointOf(o);
-			if (!p.bulk.hasSeries) continue;
-			const r = V.recordAt('validity', p);
-			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max!;
-		} catch (e) {
-			if (e instanceof LangError || V.isHoloError(e)) continue;
-			throw e;
-		}
-	}
-	return out;
-}

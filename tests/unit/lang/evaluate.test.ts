@@ -151,6 +151,11 @@ describe('lists and ranges → tables', () => {
 		expect(v.rows[1]).toEqual([2, holo.validity(brane(), 2, 1e-3).l_max, holo.validity(brane(), 2, 1e-3).radius]);
 	});
 
+	it('sweep always answers a table, even for one point', () => {
+		const t = new Pad().run('sweep darea l=0.4').results[0] as TableResult;
+		expect(t).toMatchObject({ kind: 'table', columns: ['l', 'exact'], rows: [[0.4, holo.deltaArea(brane(), 0.4)]], plot: { x: 'l', show: true } });
+	});
+
 	it('reports progress point by point', () => {
 		const seen: [number, number][] = [];
 		new Pad().run('darea l=0.1..0.5:5 o=1,exact', { onProgress: (d, t) => seen.push([d, t]) });

@@ -16,7 +16,7 @@ describe('the LANGUAGE.md scenario', () => {
 		const kinds: string[] = [];
 		for (const line of SPEC_EXAMPLES) {
 			const verb = line.split(' ')[0]!;
-			const missing = (verb === 'tent' && !has('tent')) || (verb === 'firstlaw' && !has('firstLaw')) || (verb === 'mi' && !has('mi'));
+			const missing = (verb === 'tent' && !has('tent')) || (verb === 'firstlaw' && !has('firstLaw')) || (verb === 'mi' && !has('mutualInformation'));
 			if (missing) {
 				const e = p.fail(line);
 				expect(e.message).toBe(`${verb} is not available yet`);
@@ -35,7 +35,7 @@ describe('the LANGUAGE.md scenario', () => {
 		expect(p.ctx.bulk).toEqual({ name: 'vacuum', params: { d: 2 } });
 		if (has('tent')) expect(kinds[3]).toBe('scalar');
 		if (has('firstLaw')) expect(kinds[4]).toBe('check');
-		if (has('mi')) expect(kinds[7]).toBe('record');
+		if (has('mutualInformation')) expect(kinds[7]).toBe('record');
 	});
 
 	it.runIf(has('tent'))('tent at order 1 in the static brane is c_d/l (Bhattacharya et al. 2013)', () => {
@@ -51,7 +51,7 @@ describe('the LANGUAGE.md scenario', () => {
 		expect(r.order).toBe(3);
 	});
 
-	it.runIf(has('mi'))('mi in d=2 vacuum vanishes for gap/l ≥ √2 − 1 (Headrick 2010)', () => {
+	it.runIf(has('mutualInformation'))('mi in d=2 vacuum vanishes for gap/l ≥ √2 − 1 (Headrick 2010)', () => {
 		const r = new Pad().run('use vacuum d=2; mi pair l=1 gap=0.5').results[1] as RecordResult;
 		expect(r.fields.I).toBe(0);
 		expect(Math.abs(r.fields.gap_crit! - (Math.SQRT2 - 1))).toBeLessThan(1e-9);

@@ -1,0 +1,105 @@
+/**
+ * Shapes of a verb's answer beyond one number: the table of a sweep (first column the swept key, then one
+ * column per order, or a record's fields), what `#n` of a one-row table exposes, the plot's validity hints
+ * and the LaTeX of a series.
+ */
+import { LangError } from './errors';
+import { orderName } from './format';
+import type { Order, StepRef, TableResult } from './result';
+import type { Scalar } from './values';
+import type { Verb } from './vocab';
+import * as V from './verbs';
+
+export function buildTable(
+	verb: Verb,
+	kind: V.VerbKind,
+	xKey: string,
+	xs: (Scalar | undefined)[],
+	orders: Order[],
+	orderSweep: boolean,
+	pointAt: (x: Scalar | undefined, o: Order) => V.Point,
+	engine: <T>(p: V.Point, x: Scalar | undefined, f: () => T) => T,
+	tick: () => void
+): TableResult {
+	const rows: (number | string | null)[][] = [];
+	let columns: string[];
+	const warnings = new Map<Order, { at: number; text: string }>();
+	if (kind === 'scalar') {
+		columns = [xKey, ...orders.map(orderName)];
+		for (const x of xs) {
+			const row: (number | string | null)[] = [x ?? null];
+			for (const o of orders) {
+				const p = pointAt(x, o);
+				const { value, warning: w } = engine(p, x, () => V.scalarAt(verb, p));
+				row.push(value);
+				const at = p.q.l ?? p.q.R ?? 0;
+				if (w && (warnings.get(o)?.at ?? -Infinity) < at) warnings.set(o, { at, text: w });
+				tick();
+			}
+			rows.push(row);
+		}
+	} else {
+		columns = [xKey];
+		const points = orderSweep ? orders.map((o) => [o, o] as const) : xs.map((x) => [x, orders[0]!] as const);
+		for (const [x, o] of points) {
+			const p = pointAt(orderSweep ? undefined : x, o);
+			const fields: Record<string, number> =
+				kind === 'record'
+					? engine(p, x, () => V.recordAt(verb, p))
+					: (() => {
+							const c = engine(p, x, () => V.checkAt(verb, p));
+							return { lhs: c.lhs, rhs: c.rhs, residual: c.residual, pass: c.pass ? 1 : 0 };
+						})();
+			if (columns.length === 1) columns.push(...Object.keys(fields));
+			rows.push([x ?? null, ...columns.slice(1).map((c) => fields[c] ?? null)]);
+			tick();
+		}
+	}
+	const table: TableResult = { kind: 'table', label: '', columns, rows, plot: { x: xKey } };
+	if (warnings.size) table.warning = [...warnings].map(([o, w]) => `${orderName(o)}: ${w.text}`).join('; ');
+	return table;
+}
+
+/** A table's `#n`: a one-row table exposes its cells; the value is the last column (exact, or the highest order). */
+export function tableRef(t: TableResult): StepRef | undefined {
+	if (t.rows.length !== 1) return { fields: {} };
+	const row = t.rows[0]!;
+	const fields: Record<string, number> = {};
+	t.columns.forEach((c, i) => {
+		const v = row[i];
+		if (typeof v === 'number') fields[c] = v;
+	});
+	const last = row[row.length - 1];
+	const lastCol = t.columns[t.columns.length - 1]!;
+	const order: Order | undefined = lastCol === 'exact' ? 'exact' : /^o\d+$/.test(lastCol) ? Number(lastCol.slice(1)) : undefined;
+	return { ...(typeof last === 'number' ? { value: last } : {}), fields, ...(order !== undefined ? { order } : {}) };
+}
+
+/** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series. */
+export function seriesLatex(st: V.SeriesTerms): string {
+	const d = st.d;
+	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{z_h}\\right)^{${t.k * d}}`);
+	const pre = d === 2 ? '' : `\\ell^{${2 - d}}`;
+	return `\\Delta A = ${pre}\\Big[${terms.join(' + ') || '0'}\\Big]`;
+}
+
+/**
+ * The largest l where each order column stays within the default tolerance of the exact value, for the plot
+ * to shade. A hint only: an order the engine cannot bound is left unshaded rather than failing the line.
+ */
+export function validityHints(orders: Order[], pointOf: (o: Order) => V.Point): Record<string, number> {
+	const out: Record<string, number> = {};
+	for (const o of orders) {
+		if (o === 'exact' || o < 1) continue;
+		try {
+			const p = pointOf(o);
+			if (!p.bulk.hasSeries) continue;
+			const r = V.recordAt('validity', p);
+			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max!;
+		} catch (e) {
+			if (e instanceof LangError || V.isHoloError(e)) continue;
+			throw e;
+		}
+	}
+	return out;
+}
