@@ -5,6 +5,10 @@ import { simpleParser } from 'mailparser';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 
+/**
+ * @param {{ port?: number; dir: string }} options
+ * @returns {Promise<{ port: number; close: () => Promise<void> }>}
+ */
 export async function startFakeSmtp({ port = 0, dir }) {
 	mkdirSync(dir, { recursive: true });
 	let seq = 0;
@@ -16,7 +20,7 @@ export async function startFakeSmtp({ port = 0, dir }) {
 		onData(stream, _session, callback) {
 			simpleParser(stream)
 				.then((mail) => {
-					const to = [mail.to].flat().filter(Boolean).flatMap((a) => a.value.map((v) => v.address));
+					const to = [mail.to].flat().flatMap((a) => (a ? a.value.map((v) => v.address) : []));
 					const record = { to, from: mail.from?.text, subject: mail.subject, text: mail.text, date: new Date().toISOString() };
 					writeFileSync(join(dir, `${Date.now()}-${++seq}.json`), JSON.stringify(record, null, 2));
 					callback();
@@ -24,11 +28,14 @@ export async function startFakeSmtp({ port = 0, dir }) {
 				.catch(callback);
 		}
 	});
-	await new Promise((resolve, reject) => {
-		server.once('error', reject);
-		server.listen(port, '127.0.0.1', resolve);
-	});
-	return { port: server.server.address().port, close: () => new Promise((r) => server.close(r)) };
+	await /** @type {Promise<void>} */ (
+		new Promise((resolve, reject) => {
+			server.once('error', reject);
+			server.listen(port, '127.0.0.1', () => resolve());
+		})
+	);
+	const address = /** @type {import('node:net').AddressInfo} */ (server.server.address());
+	return { port: address.port, close: () => new Promise((r) => server.close(() => r())) };
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {

@@ -6,6 +6,7 @@ import { fileURLToPath } from 'node:url';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
+/** @param {string | undefined} path @param {string} fallback */
 function inside(path, fallback) {
 	if (!path) return fallback;
 	const rel = relative(root, resolve(root, path));

@@ -28,7 +28,9 @@ if (built('dist/eval-worker.mjs') < newest('src/lib')) run(['scripts/build-worke
 if (built('build/handler.js') < sources) run(['node_modules/vite/bin/vite.js', 'build']);
 
 const port = process.env.PORT ?? '3000';
-const env = { NODE_ENV: 'production', PORT: port, HOST: '127.0.0.1', ...process.env };
+// request bodies may carry a whole dataset upload (BULKPAD_UPLOAD_MAX_BYTES) plus its multipart envelope
+const uploadMax = Number(process.env.BULKPAD_UPLOAD_MAX_BYTES ?? 1_000_000);
+const env = { NODE_ENV: 'production', PORT: port, HOST: '127.0.0.1', BODY_SIZE_LIMIT: String(uploadMax + 65_536), ...process.env };
 // with ORIGIN (a deployment behind TLS) adapter-node's own server; without it, plain local HTTP
 const entry = process.env.ORIGIN ? 'build/index.js' : 'scripts/serve.mjs';
 console.log(`Bulkpad on ${process.env.ORIGIN ?? `http://localhost:${port}`} (demo password: bulkpad-demo)`);

@@ -44,7 +44,8 @@ export default async function setup(project: TestProject) {
 		BULKPAD_SIGNIN_PER_MINUTE: '30',
 		BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS: '100000',
 		BULKPAD_REPLAY_PER_MINUTE: '1000',
-		BULKPAD_EVAL_BUDGET_MS: '2000'
+		BULKPAD_EVAL_BUDGET_MS: '2000',
+		BODY_SIZE_LIMIT: String(1_000_000 + 65_536)
 	};
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
 	if (seed.status !== 0) throw new Error(`seeding failed:\n${seed.stdout}\n${seed.stderr}`);

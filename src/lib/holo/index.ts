@@ -23,3 +23,4 @@ export { cd, newtonG, entropy } from './units';
 export type { Units } from './units';
 export { gamma, lgamma, rgamma } from './special/gamma';
 export { beta, betaHalfShift } from './special/beta';
+export * from './analysis';
