@@ -12,8 +12,12 @@ export type ShareRow = typeof schema.shares.$inferSelect;
 const DAY_MS = 24 * 60 * 60 * 1000;
 const gone = () => new ApiFailure(404, 'No such transcript (the link may have been revoked or have expired).');
 
-export function shareUrl(slug: string): string {
-	return `${env.origin}/t/${slug}`;
+/**
+ * A link's address. Answers to the owner use the origin they reached us on; mailed links use the configured
+ * origin only, never a request's Host header (which a sender could forge to mail a lookalike link).
+ */
+export function shareUrl(slug: string, origin = env.origin): string {
+	return `${origin}/t/${slug}`;
 }
 
 function isLive(share: ShareRow, now = Date.now()): boolean {
@@ -34,7 +38,7 @@ export function createShare(pad: PadRow, user: AppUser, expiresInDays?: number):
 	return row;
 }
 
-export function listShares(pad: PadRow) {
+export function listShares(pad: PadRow, origin?: string) {
 	const now = Date.now();
 	return getDb()
 		.select()
@@ -42,7 +46,7 @@ export function listShares(pad: PadRow) {
 		.where(eq(schema.shares.padId, pad.id))
 		.orderBy(desc(schema.shares.createdAt))
 		.all()
-		.map((s) => ({ slug: s.slug, url: shareUrl(s.slug), createdAt: s.createdAt, expiresAt: s.expiresAt, revokedAt: s.revokedAt, live: isLive(s, now) }));
+		.map((s) => ({ slug: s.slug, url: shareUrl(s.slug, origin), createdAt: s.createdAt, expiresAt: s.expiresAt, revokedAt: s.revokedAt, live: isLive(s, now) }));
 }
 
 /** The newest live link of a pad, if any (for invitation e-mails). */

@@ -12,11 +12,11 @@ export const POST = api(async (event) => {
 	const pad = findOwnPad(user, event.params.id!);
 	const { expiresInDays } = event.request.headers.get('content-length') === '0' ? {} : await readBody(event, shareSchema);
 	const share = createShare(pad, user, expiresInDays);
-	return ok({ slug: share.slug, url: shareUrl(share.slug), expiresAt: share.expiresAt }, { status: 201 });
+	return ok({ slug: share.slug, url: shareUrl(share.slug, event.url.origin), expiresAt: share.expiresAt }, { status: 201 });
 });
 
 /** GET: every link of the pad, live or not, newest first. */
 export const GET = api((event) => {
 	const user = requireWriter(event);
-	return ok({ shares: listShares(findOwnPad(user, event.params.id!)) });
+	return ok({ shares: listShares(findOwnPad(user, event.params.id!), event.url.origin) });
 });
