@@ -44,7 +44,7 @@ export function runMacro(s: A.MacroStmt, input: string, env: LineEnv, runText: R
 	env.macroDepth++;
 	try {
 		m.body.forEach((raw, i) => {
-			const text = raw.replace(/\{(\w+)\}/g, (whole, p: string) => {
+			const text = raw.replace(/\{(\w+)\}/g, (_whole, p: string) => {
 				if (!Object.prototype.hasOwnProperty.call(values, p)) {
 					throw new LangError(`macro '@${name}' line ${i + 1} uses {${p}}, which is not one of its parameters`, s.start, s.end);
 				}
