@@ -90,7 +90,8 @@ export function lex(input: string, limits: Limits): Token[] {
 			if (!isNameStart(input[i])) {
 				throw expected('a macro name after \'@\'', describeChar(input[i]), i, Math.min(i + 1, input.length));
 			}
-			while (isNameChar(input[i])) i++;
+			// library names may join words with '-' (btz-check); a '-' counts only between name characters
+			while (isNameChar(input[i]) || (input[i] === '-' && isNameChar(input[i + 1]))) i++;
 			push({ kind: Tok.Macro, text: input.slice(start + 1, i), start, end: i });
 			continue;
 		}

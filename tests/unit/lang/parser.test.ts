@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { LangError, codeFrame } from '../../../src/lib/lang/errors';
 import { parse } from '../../../src/lib/lang/parser';
 import { printLine } from '../../../src/lib/lang/printer';
-import type { VerbStmt, RangeValue, ListValue, BinaryExpr } from '../../../src/lib/lang/ast';
+import type { VerbStmt, RangeValue, ListValue, BinaryExpr, MacroStmt } from '../../../src/lib/lang/ast';
 import { SPEC_EXAMPLES } from './examples';
 
 /** Other lines the spec writes inline. */
@@ -65,6 +65,13 @@ describe('parse: the spec examples', () => {
 		expect(s.sinks.map((x) => x.text)).toEqual(['tex']);
 		const m = parse('mi pair l=1 gap=0.3').statements[0] as VerbStmt;
 		expect(m.subject).toEqual({ text: 'pair', start: 3, end: 7 });
+	});
+
+	it('reads library names that join words with a hyphen, and stops at a trailing one', () => {
+		const s = parse('@btz-check l=2 c=12').statements[0] as MacroStmt;
+		expect(s.type).toBe('macro');
+		expect(s.name.text).toBe('btz-check');
+		expect(() => parse('@btz- l=2')).toThrow(LangError);
 	});
 
 	it('splits statements on ; and skips empty ones', () => {
