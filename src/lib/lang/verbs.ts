@@ -209,7 +209,7 @@ export const FIRSTLAW_TOL = 1e-3;
 
 export function checkAt(verb: Verb, p: Point): CheckAt {
 	if (verb !== 'firstlaw') throw new Error(`unreachable: ${verb} is not a check verb`);
-	if (p.shape === 'ball') throw new NotAvailable('firstlaw ball is not available yet');
+	if (p.shape === 'ball') return ballFirstLaw(p);
 	const c = need('firstLaw', 'firstlaw')(p.bulk, p.q.l!, p.order, p.G);
 	const tol = p.q.tol ?? FIRSTLAW_TOL;
 	// the scale direction (δ ln zh) is the one every bulk has; a boosted bulk's second direction must hold too
@@ -218,6 +218,24 @@ export function checkAt(verb: Verb, p: Point): CheckAt {
 	const fields: Record<string, number> = { alpha: c.alpha, zeta: c.zeta, tent: c.tent, mu: c.mu, residual_exact: c.scale.residualExact };
 	if (c.shape) Object.assign(fields, { lhs_v: c.shape.lhs, rhs_v: c.shape.rhs, residual_v: c.shape.residual });
 	return { lhs: c.scale.lhs, rhs: c.scale.rhs, residual: c.scale.residual, tolerance: tol * Math.abs(c.scale.lhs), pass, fields };
+}
+
+/**
+ * The ball's first law (Blanco, Casini, Hung & Myers, JHEP 08 (2013) 060): ΔS = ΔE/T with T = (d+1)/(2πR)
+ * holds at first order in R^d/zh^d. The check sets the exact ΔS (shooting) against ΔE/T; the residual is the
+ * second-order part, which grows like (R/zh)^{2d}.
+ */
+function ballFirstLaw(p: Point): CheckAt {
+	const zh = p.bulk.horizon;
+	if (zh === undefined) throw new NotAvailable('firstlaw ball needs a bulk with a horizon (brane)');
+	const { d } = p.bulk;
+	const R = p.q.R!;
+	const tol = p.q.tol ?? FIRSTLAW_TOL;
+	const exact = need('ballDeltaArea', 'firstlaw ball')(d, R, zh).value / (4 * p.G);
+	const T = need('ballTent', 'firstlaw ball')(d, R);
+	const rhs = need('ballEnergy', 'firstlaw ball')(d, R, zh, p.G) / T;
+	const residual = exact - rhs;
+	return { lhs: exact, rhs, residual, tolerance: tol * Math.abs(exact), pass: Math.abs(residual) <= tol * Math.abs(exact), fields: { tent: T } };
 }
 
 /** The warning a series value carries at this point, if any. */

@@ -100,7 +100,24 @@ describe('balls', () => {
 		const r = record(new Pad().run('energy ball R=0.5').results[0]);
 		expect(r.fields.E).toBe(A.ballEnergy(4, 0.5, 1, 1));
 	});
-	it('firstlaw ball is not there yet and says so', () => {
-		expect(new Pad().fail('firstlaw ball R=0.5').message).toBe('firstlaw ball is not available yet');
+});
+
+describe('firstlaw ball', () => {
+	it('sets the exact ΔS against ΔE/T with T = (d+1)/(2πR) (Blanco, Casini, Hung & Myers 2013)', () => {
+		const c = check(new Pad().run('firstlaw ball R=0.2').results[0]);
+		expect(c.kind).toBe('check');
+		// ΔE/T equals the first-order ΔS = Ω_{d−2}R^d/(2(d+1)zh^d)/(4G) (Blanco et al. 2013), G = 1 here
+		expect(rel(c.rhs, A.ballDeltaAreaFirstOrder(4, 0.2, 1) / 4)).toBeLessThan(1e-12);
+		expect(rel(c.lhs, A.ballDeltaArea(4, 0.2, 1).value / 4)).toBeLessThan(1e-12);
+		expect(c.pass).toBe(true);
+	});
+	it('has a residual that grows like (R/zh)^{2d}, the second order (derived; checked against exact numerics)', () => {
+		const p = new Pad();
+		const res = [0.1, 0.2].map((R) => Math.abs(check(p.run(`firstlaw ball R=${R} d=3`).results[0]).residual));
+		const slope = Math.log(res[1] / res[0]) / Math.log(2);
+		expect(Math.abs(slope - 6)).toBeLessThan(0.1);
+	});
+	it('needs a horizon', () => {
+		expect(new Pad().fail('use vacuum d=4; firstlaw ball R=0.3').message).toMatch(/horizon/);
 	});
 });
