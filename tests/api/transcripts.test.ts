@@ -99,6 +99,38 @@ describe('share links', () => {
 	});
 });
 
+describe('the owner\'s sharing panel (/shared/[id] form actions)', () => {
+	// a browser posting the form without JavaScript: the answer is the page, with the action's status
+	const HTML = { accept: 'text/html' };
+	const form = (fields: Record<string, string>) => {
+		const f = new FormData();
+		for (const [k, v] of Object.entries(fields)) f.set(k, v);
+		return f;
+	};
+
+	it('makes a link with an expiry, lists it and revokes it', async () => {
+		const made = await owner.request('POST', `/shared/${padId}?/share`, form({ days: '3' }), HTML);
+		expect(made.status).toBe(200);
+		const fresh = (await owner.get(`/api/pads/${padId}/share`)).body.shares[0];
+		expect(fresh.live).toBe(true);
+		expect((Date.parse(fresh.expiresAt) - Date.now()) / 86_400_000).toBeCloseTo(3, 2);
+		expect((await owner.get(`/shared/${padId}`)).body).toContain(fresh.url);
+
+		expect((await owner.request('POST', `/shared/${padId}?/revoke`, form({ slug: fresh.slug }), HTML)).status).toBe(200);
+		expectFailure(await anon.get(`/api/t/${fresh.slug}`), 404);
+		expect((await owner.request('POST', `/shared/${padId}?/share`, form({ days: '0' }), HTML)).status).toBe(400);
+	});
+
+	it('refuses the actions to anyone but the owner, whatever the page shows them', async () => {
+		const before = (await owner.get(`/api/pads/${padId}/share`)).body.shares.length;
+		expect((await reader.request('POST', `/shared/${padId}?/share`, form({ days: '' }), HTML)).status).toBe(403);
+		expect((await member.request('POST', `/shared/${padId}?/share`, form({ days: '' }), HTML)).status).toBe(404);
+		expect((await member.request('POST', `/shared/${padId}?/revoke`, form({ slug }), HTML)).status).toBe(404);
+		expect((await owner.get(`/api/pads/${padId}/share`)).body.shares.length).toBe(before);
+		expect((await anon.get(`/api/t/${slug}`)).status).toBe(200);
+	});
+});
+
 describe('replay', () => {
 	it('reproduces an untouched pad: no drift, deltas near zero', async () => {
 		const r = await anon.post(`/api/t/${slug}/replay`);
