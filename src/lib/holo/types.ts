@@ -75,6 +75,8 @@ export interface SeriesCoeff {
 	k: number;
 	value: number;
 	latex: string;
+	/** true when `latex` is the exact closed form (rational × powers of π and B(s/m, ½)), false for a decimal. */
+	exact?: boolean;
 	/** boosted: a_k as the coefficients of κ^0..κ^k. */
 	poly?: number[];
 }

@@ -55,7 +55,8 @@ export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
 	const polys = bulk.d >= 3 ? kappaCoeffs(bulk.d, n) : undefined;
 	return values.map((value, i) => {
 		const k = i + 1;
-		const c: SeriesCoeff = { k, value, latex: coeffLatex(bulk, k, value, polys?.[i]) };
+		const latex = coeffLatex(bulk, k, value, polys?.[i]);
+		const c: SeriesCoeff = { k, value, latex, exact: !latex.startsWith('\\approx') };
 		if (bulk.name === 'boosted' && polys) c.poly = polys[i].slice();
 		return c;
 	});
