@@ -1,26 +1,22 @@
 /**
- * The console's vocabulary for the palette and Tab completion, taken from the language's own help table
- * ($lib/lang/help.ts: plain data, no mathjs) so the two never disagree. Bulk keys and value hints that the
- * help table does not carry come from ./vocabulary.
+ * The palette's verbs and bulks with one line of help and an example each, from the language's own help
+ * table ($lib/lang/help.ts: plain data, no mathjs), so the palette and the language never disagree.
  */
 import { helpEntries } from '$lib/lang/help';
-import { BULK_KEYS, VALUE_HINTS, type Word } from './vocabulary';
 import type { Vocabulary } from './completion';
+
+export interface Word {
+	name: string;
+	help: string;
+	example: string;
+}
 
 const words = (kind: Parameters<typeof helpEntries>[0]): Word[] =>
 	helpEntries(kind).map((e) => ({ name: e.name, help: e.summary, example: e.example }));
 
-/** statements that read like verbs at the start of a line (not `@macro` or `arithmetic`, which are forms) */
+/** statements that start a line like verbs (`@macro` and `arithmetic` are forms, listed elsewhere) */
 const statements = () => words('statement').filter((w) => /^[a-z]+$/.test(w.name) && w.name !== 'arithmetic');
 
 export function buildVocabulary(macros: Vocabulary['macros'] = []): Vocabulary {
-	return {
-		verbs: [...words('verb'), ...statements()],
-		bulks: words('bulk'),
-		keys: words('key'),
-		sinks: words('sink'),
-		macros,
-		bulkKeys: BULK_KEYS,
-		values: VALUE_HINTS
-	};
+	return { verbs: [...words('verb'), ...statements()], bulks: words('bulk'), macros };
 }

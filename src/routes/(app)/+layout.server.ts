@@ -9,7 +9,8 @@ import { useKatex } from '$lib/client/tex';
 useKatex(katex);
 
 /** Every page of the console needs a signed-in user; the side panel lists their pads. */
-export const load: LayoutServerLoad = ({ locals, url }) => {
+export const load: LayoutServerLoad = ({ locals, url, depends }) => {
+	depends('app:pads');
 	const user = locals.user;
 	if (!user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
 	const pads = listPads(user.id).map((p) => ({

@@ -1,36 +1,39 @@
 import { describe, expect, it } from 'vitest';
-import { applyCandidate, commonPrefix, complete, wordAt } from '../../../src/lib/client/completion';
+import { applyCandidate, commonPrefix, completeAt } from '../../../src/lib/client/completion';
+import { buildVocabulary } from '../../../src/lib/client/words';
 
-const names = (line: string, caret = line.length) => complete(line, caret).candidates.map((c) => c.insert);
+const names = (line: string, caret = line.length, cc = {}) => completeAt(line, caret, cc).candidates.map((c) => c.insert);
 
-describe('completion', () => {
-	it('finds the word under the caret', () => {
-		expect(wordAt('darea l=0.4', 8)).toEqual({ start: 6, end: 11, word: 'l=' });
+/** Tab with a single candidate: the line as the input shows it afterwards. */
+function tab(line: string, cc = {}) {
+	const { at, candidates } = completeAt(line, line.length, cc);
+	if (candidates.length !== 1) throw new Error(`${candidates.length} candidates for "${line}": ${candidates.map((c) => c.insert)}`);
+	return applyCandidate(line, at, candidates[0]!.insert).line;
+}
+
+describe('completion on the input line', () => {
+	it('completes a verb, with a space after it', () => {
+		expect(tab('dare')).toBe('darea ');
+		expect(tab('use brane d=4; fir')).toBe('use brane d=4; firstlaw ');
 	});
-	it('completes verbs at the start of a line and after ;', () => {
-		expect(names('dar')).toEqual(['darea']);
-		expect(names('use brane d=4; te')).toEqual(['tent']);
+	it('completes a bulk after use', () => {
+		expect(tab('use boo')).toBe('use boosted ');
 	});
-	it('completes bulks after use, and that bulk’s keys', () => {
-		expect(names('use bo')).toEqual(['boosted']);
-		expect(names('use boosted d=4 ')).toEqual(['zh=', 'v=', 'rapidity=']);
+	it('completes a key without a space, so the value follows', () => {
+		expect(tab('darea l=0.4 z')).toBe('darea l=0.4 zh=');
+		expect(names('darea l=0.4 ')).not.toContain('l=');
 	});
-	it('completes keys on a verb line, skipping ones given', () => {
-		const c = names('darea l=0.4 ');
-		expect(c).toContain('o=');
-		expect(c).not.toContain('l=');
-		expect(names('mi pa')).toEqual(['pair']);
+	it('completes a value after key=, and the next item of a list', () => {
+		expect(tab('darea o=ex')).toBe('darea o=exact ');
+		expect(tab('darea o=1,2,ex')).toBe('darea o=1,2,exact ');
 	});
-	it('completes values of a key, including the next item of a list', () => {
-		expect(names('darea o=ex')).toEqual(['o=exact']);
-		expect(names('darea o=1,2,')).toContain('o=1,2,3,exact');
+	it('replaces the whole word under the caret, keeping the rest of the line', () => {
+		const line = 'dar l=0.4';
+		const { at, candidates } = completeAt(line, 3);
+		expect(applyCandidate(line, at, candidates[0]!.insert)).toEqual({ line: 'darea l=0.4', caret: 5 });
 	});
-	it('completes sinks after |', () => {
-		expect(names('coeffs darea o=4 | t')).toEqual(['table', 'tex']);
-	});
-	it('inserts with a space after a word, none after key=', () => {
-		expect(applyCandidate('dar', wordAt('dar', 3), 'darea')).toEqual({ line: 'darea ', caret: 6 });
-		expect(applyCandidate('darea o', wordAt('darea o', 7), 'o=')).toEqual({ line: 'darea o=', caret: 8 });
+	it('completes library macros after @', () => {
+		expect(names('@bt', 3, { macros: ['btz-check', 'sym-thermo'] })).toEqual(['@btz-check']);
 	});
 	it('shares a prefix', () => {
 		expect(commonPrefix(['table', 'tex'])).toBe('t');
@@ -38,8 +41,7 @@ describe('completion', () => {
 	});
 });
 
-describe('vocabulary from the language’s help table', async () => {
-	const { buildVocabulary } = await import('../../../src/lib/client/words');
+describe('palette vocabulary from the language’s help table', () => {
 	const v = buildVocabulary([{ name: 'btz-check', description: 'BTZ', params: { l: '1' } }]);
 	it('has every verb with help and an example, and the statements', () => {
 		const darea = v.verbs.find((w) => w.name === 'darea');
@@ -47,8 +49,6 @@ describe('vocabulary from the language’s help table', async () => {
 		expect(darea?.example).toMatch(/^darea /);
 		expect(v.verbs.map((w) => w.name)).toContain('sweep');
 		expect(v.verbs.map((w) => w.name)).not.toContain('arithmetic');
-	});
-	it('completes macros after @', () => {
-		expect(complete('@bt', 3, v).candidates.map((c) => c.insert)).toEqual(['@btz-check']);
+		expect(v.bulks.map((w) => w.name)).toContain('boosted');
 	});
 });
