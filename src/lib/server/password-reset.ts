@@ -9,8 +9,12 @@ import { resetMessage } from './mail/templates';
 
 const VALID_MS = 60 * 60 * 1000;
 
-/** Against mail-bombing one address; keyed by the address asked for, whether or not it has an account. */
+/**
+ * Against mail-bombing: per e-mail asked for (whether or not it has an account, so the limit tells nothing)
+ * and per client address (one sender spraying many e-mails).
+ */
 const perEmail = createRateLimiter(5, 15 * 60_000);
+const perClient = createRateLimiter(30, 15 * 60_000);
 
 function hashToken(token: string): string {
 	return createHash('sha256').update(token).digest('hex');
@@ -19,10 +23,10 @@ function hashToken(token: string): string {
 /**
  * Starts a reset: when the account exists, stores the hash of a fresh single-use token (1 h) and mails the
  * link. The answer never says whether the account exists, and the mail is sent in the background so the
- * response time does not tell either. Returns the pending send, for callers that want to wait (nobody in HTTP).
+ * response time does not tell either (the outbox records how the send went).
  */
-export function requestPasswordReset(email: string): { limited: boolean; sending?: Promise<unknown> } {
-	if (!perEmail.take(email)) return { limited: true };
+export function requestPasswordReset(email: string, clientAddress: string): { limited: boolean } {
+	if (!perClient.take(clientAddress) || !perEmail.take(email)) return { limited: true };
 	const db = getDb();
 	const user = db.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, email)).get();
 	if (!user) return { limited: false };
@@ -32,10 +36,10 @@ export function requestPasswordReset(email: string): { limited: boolean; sending
 		.values({ tokenHash: hashToken(token), userId: user.id, expiresAt: new Date(Date.now() + VALID_MS) })
 		.run();
 	const link = `${env.origin}/reset/${token}`;
-	const sending = sendMail(resetMessage({ to: email, link, validMinutes: VALID_MS / 60_000 })).catch((e) => {
+	sendMail(resetMessage({ to: email, link, validMinutes: VALID_MS / 60_000 })).catch((e) => {
 		console.error('password reset mail could not be recorded', e);
 	});
-	return { limited: false, sending };
+	return { limited: false };
 }
 
 /** Whether a token is live (for the set-new-password page, before the user types anything). */

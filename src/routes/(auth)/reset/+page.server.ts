@@ -5,12 +5,12 @@ import { requestPasswordReset } from '$lib/server/password-reset';
 
 export const actions: Actions = {
 	/** The same answer whether or not the account exists. */
-	default: async ({ request }) => {
+	default: async ({ request, getClientAddress }) => {
 		const form = await request.formData();
 		const email = String(form.get('email') ?? '');
 		const parsed = emailSchema.safeParse(email);
 		if (!parsed.success) return fail(400, { email, message: 'Enter a valid e-mail address.' });
-		if (requestPasswordReset(parsed.data).limited) return fail(429, { email, message: 'Too many requests for this address; try again later.' });
+		if (requestPasswordReset(parsed.data, getClientAddress()).limited) return fail(429, { email, message: 'Too many requests; try again later.' });
 		return { sent: true, email: parsed.data };
 	}
 };

@@ -6,6 +6,6 @@ import { requestPasswordReset } from '$lib/server/password-reset';
 /** POST {email}: always {ok} whether or not the account exists; the link goes out only when it does. */
 export const POST = api(async (event) => {
 	const { email } = await readBody(event, z.object({ email: emailSchema }));
-	if (requestPasswordReset(email).limited) failure(429, 'Too many reset requests for this address; try again later.');
+	if (requestPasswordReset(email, event.getClientAddress()).limited) failure(429, 'Too many reset requests; try again later.');
 	return ok({});
 });
