@@ -14,7 +14,8 @@ export const env = {
 	secureCookies:
 		process.env.BULKPAD_SECURE_COOKIES === '1' ||
 		(process.env.NODE_ENV === 'production' && (process.env.ORIGIN ?? '').startsWith('https://')),
-	origin: process.env.ORIGIN ?? 'http://localhost:3000',
+	/** the address mailed links use; the Host header is not trusted for that, since it can be forged */
+	origin: process.env.ORIGIN ?? `http://localhost:${process.env.PORT ?? 3000}`,
 	evalBudgetMs: intFrom('BULKPAD_EVAL_BUDGET_MS', 5000),
 	evalThreads: intFrom('BULKPAD_EVAL_THREADS', 2),
 	smtpHost: process.env.SMTP_HOST ?? '127.0.0.1',

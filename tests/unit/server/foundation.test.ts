@@ -52,3 +52,11 @@ describe('secure cookies', () => {
 		expect(await secureWith({ NODE_ENV: 'development', BULKPAD_SECURE_COOKIES: '1' })).toBe(true);
 	});
 });
+
+describe('drift after storage', () => {
+	it('treats a non-finite number that went through JSON as the same value', () => {
+		const fresh: Result[] = [{ kind: 'table', label: 't', columns: ['l', 'o9'], rows: [[2, NaN]] }];
+		const stored = JSON.parse(JSON.stringify(fresh)) as Result[];
+		expect(driftBetween(stored, JSON.parse(JSON.stringify(fresh)))).toBe(0);
+	});
+});

@@ -95,7 +95,9 @@ export async function replaySteps(pad: PadRow, steps: StepRow[], opts: EvalOptio
 			({ bulk, units, lets } = answer.outcome);
 			refs[s.n] = answer.outcome.ref;
 			const recorded = s.status === 'ok' ? (s.results as Result[]) : null;
-			const delta = recorded ? driftBetween(recorded, answer.outcome.results) : null;
+			// the recorded results went through JSON (NaN and ±Infinity became null); compare like with like
+			const fresh = JSON.parse(JSON.stringify(answer.outcome.results)) as Result[];
+			const delta = recorded ? driftBetween(recorded, fresh) : null;
 			out.push({
 				n: s.n,
 				input: s.input,
