@@ -2,6 +2,7 @@ import { HoloError } from './errors';
 import { gamma } from './special/gamma';
 import { integrateStrip, solveStrip, turningPoint, vacuumWidthFactor, widthAt } from './strip';
 import type { Bulk } from './types';
+import { solitonArea, solitonZstar } from './bulks/soliton';
 
 function checkL(l: number): void {
 	if (typeof l !== 'number' || !(l > 0) || !Number.isFinite(l)) {
@@ -13,6 +14,8 @@ function checkL(l: number): void {
 export function zstarOf(bulk: Bulk, l: number): number {
 	checkL(l);
 	if (bulk.name === 'vacuum') return l / vacuumWidthFactor(bulk.d);
+	// on the soliton l(z*) is not monotone: the connected surface is the branch of smaller z*
+	if (bulk.name === 'soliton') return solitonZstar({ d: bulk.d, z0: Number(bulk.params.z0) }, l);
 	return solveStrip(bulk.slice, l).zstar;
 }
 
@@ -44,6 +47,8 @@ export function vacuumAreaFinite(d: number, l: number): number {
 export function areaFinite(bulk: Bulk, l: number): number {
 	checkL(l);
 	if (bulk.name === 'vacuum') return vacuumAreaFinite(bulk.d, l);
+	// the soliton's RT surface is the smaller of the connected and disconnected ones
+	if (bulk.name === 'soliton') return solitonArea({ d: bulk.d, z0: Number(bulk.params.z0) }, l).areaFinite;
 	return solveStrip(bulk.slice, l).areaFinite;
 }
 
@@ -51,5 +56,6 @@ export function areaFinite(bulk: Bulk, l: number): number {
 export function deltaArea(bulk: Bulk, l: number): number {
 	checkL(l);
 	if (bulk.name === 'vacuum') return 0;
+	if (bulk.name === 'soliton') return areaFinite(bulk, l) - vacuumAreaFinite(bulk.d, l);
 	return solveStrip(bulk.slice, l).deltaArea;
 }
