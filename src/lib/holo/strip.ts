@@ -180,6 +180,8 @@ interface Parts {
 	wrel: number;
 	/** S − S₀ where A_fin = 2 z*^{2−d} S (d = 2: A_fin = 2S + 2 ln z*). */
 	dS: number;
+	/** d ln l / d ln z* (with `wantSlope` on a slice with power terms; NaN otherwise). */
+	slope: number;
 }
 
 /**
@@ -188,7 +190,7 @@ interface Parts {
  * vacuum parts are Beta functions in closed form; so W − W₀ and S − S₀ (hence ΔA) keep full relative accuracy
  * even when ΔA/A ~ (l/zh)^d is tiny.
  */
-function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
+function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean, wantSlope = false): Parts {
 	const { d, m, fp, fc, hp, hc } = P;
 	const zs = tp.z;
 	const zeta = zs / P.scale;
@@ -200,6 +202,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	let hstar: number;
 	let hstarM1: number; // h* − 1 formed from the terms (1 + B − 1 would lose B ≪ 1)
 	let cslope = 0;
+	let dhstar = 0; // d h* / d ln z*
 	if (P.exact) {
 		const lz = P.horizon ? Math.log1p(-tp.eta) : Math.log(zeta);
 		fstar = P.horizon ? 0 : 1;
@@ -212,6 +215,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 		for (let j = 0; j < nh; j++) {
 			B[j] = hc[j] * Math.exp(hp[j] * lz);
 			hstarM1 += B[j];
+			dhstar += hp[j] * B[j];
 		}
 		hstar = 1 + hstarM1;
 	} else {
@@ -228,6 +232,8 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	const X = nodesFor(P, a, hstar);
 	let wd = 0;
 	let ad = 0;
+	let sd = 0; // ∫ ∂_{ln z*} (f N)^{−1/2} du
+	const slope = wantSlope && P.exact;
 	for (let q = 0; q < X.n; q++) {
 		let F: number;
 		let Fm1: number;
@@ -269,7 +275,16 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 		}
 		const logF = Math.abs(Fm1) < 0.5 ? Math.log1p(Fm1) : Math.log(F);
 		const lnNN0 = Math.log1p(dN / N0);
-		wd += (X.jac[q] * Math.expm1(-0.5 * (logF + lnNN0))) / Math.sqrt(N0);
+		const em = Math.expm1(-0.5 * (logF + lnNN0));
+		wd += (X.jac[q] * em) / Math.sqrt(N0);
+		if (slope) {
+			// ∂ ln F and ∂ N with respect to ln z*: every term c (u z*/s)^p contributes p times itself
+			let dF = 0;
+			for (let j = 0; j < nf; j++) dF += fp[j] * A[j] * X.fU[j][q];
+			let dNl = 0;
+			for (let j = 0; j < nh; j++) dNl += hp[j] * B[j] * X.hN[j][q];
+			sd -= (0.5 * X.jac[q] * (1 + em) * (dF / F + dNl / N)) / Math.sqrt(N0);
+		}
 		if (wantArea) {
 			const omum = X.omum[q];
 			const lnQQ0 = Math.log1p((X.um[q] * dh) / ((1 + hm1) * omum));
@@ -281,7 +296,9 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean): Parts {
 	const sh = Math.sqrt(hstar);
 	// W = 2√h* (W₀/2 + ΔI_w)  ⇒  (W − W₀)/W₀ = (√h* − 1) + 2√h* ΔI_w / W₀
 	const wrel = Math.expm1(0.5 * Math.log1p(hstarM1)) + (2 * sh * wd) / W0;
-	return { width: zs * W0 * (1 + wrel), wrel, dS: ad };
+	// l = 2 z* √h* I, I = W₀/2 + wd  ⇒  d ln l/d ln z* = 1 + ½ h*'/h* + I'/I
+	const dlnl = slope ? 1 + (0.5 * dhstar) / hstar + sd / (0.5 * W0 + wd) : NaN;
+	return { width: zs * W0 * (1 + wrel), wrel, dS: ad, slope: dlnl };
 }
 
 /** S₀ = Ŝ for the vacuum: −√π Γ(d/m)/Γ(1/m)/(d−2), d = 2: ln 2 − (the ln z* is kept apart). */
@@ -346,44 +363,46 @@ export function integrateStrip(slice: Slice, tp: TurningPoint): StripIntegrals &
 	};
 }
 
+/**
+ * Width l(z*) and d ln l/d ln z* from one pass (slices with power terms; the slope is NaN for black-box
+ * slices). The slope integrand is ∂_{ln z*}(f N)^{−1/2}; near a horizon it peaks like f^{−3/2}, which the
+ * sinh substitution of the width maps to a smooth bump, so it converges with the same nodes.
+ */
+export function widthSlope(slice: Slice, tp: TurningPoint): { width: number; slope: number } {
+	const r = integrate(prepare(slice), tp, false, true);
+	return { width: r.width, slope: r.slope };
+}
+
 /** Width l(z*) only. */
 export function widthAt(slice: Slice, tp: TurningPoint): number {
 	return integrate(prepare(slice), tp, false).width;
 }
 
 /**
- * Solves l(z*) = l by Brent's method in x = logit(z* / bound) (or ln z*), where ln l(x) is close to linear
- * at both ends (l ∝ z* for small z*, l ∝ −ln(1 − z* / zh) near a horizon); the bracket is grown from the
- * vacuum guess z* = l/W₀. Returns the turning point with η exact, and the finite area there.
+ * Solves l(z*) = l in x = logit(z* / bound) (or ln z*), where ln l(x) is close to linear at both ends
+ * (l ∝ z* for small z*, l ∝ −ln(1 − z* / zh) near a horizon), starting from the vacuum guess z* = l/W₀.
+ * Slices with power terms: Newton's method on g(x) = ln l(x) − ln l (or l(x)/l − 1 for x > 0, near a horizon,
+ * where l is nearly linear in x) with g' from d ln l/d ln z* and d(ln z*)/dx
+ * from the same quadrature pass (`integrate` with the slope; d(ln z*)/dx = η, or 1 unbounded), safeguarded
+ * by the bracket it builds (bisection when a step leaves it or the slope is not positive); it stops once a
+ * step is below 1e−7 (relative to max(1, |x|)) — with quadratic convergence the error after it is ~1e−14,
+ * and with the slope's own error ε (≲ 1e−6 even for the wave far beyond zp) ε·1e−7, so that step is applied
+ * without another pass. Typically 2–4 passes instead of Brent's 8–10. Black-box slices: Brent on g, with the
+ * bracket grown from the same guess. Returns the turning point with η exact, and the finite area there.
  */
 export function solveStrip(slice: Slice, l: number): StripIntegrals & { point: TurningPoint; deltaArea: number } {
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const P = prepare(slice);
 	const lnl = Math.log(l);
-	const g = (x: number) => Math.log(integrate(P, pointOf(P, x), false).width) - lnl;
 	const z0 = l / vacuumWidthFactor(P.d);
+	const bounded = Number.isFinite(P.bound);
 	let x0: number;
-	if (Number.isFinite(P.bound)) {
+	if (bounded) {
 		const zeta = Math.min(z0 / P.bound, 0.9);
 		x0 = Math.log(zeta / (1 - zeta));
 	} else x0 = Math.log(z0);
-	let g0 = g(x0);
-	let step = g0 < 0 ? 0.5 : -0.5;
-	let x1 = x0 + step;
-	let g1 = g(x1);
-	let guard = 0;
-	while (g0 * g1 > 0) {
-		if (++guard > 60 || !Number.isFinite(g1)) {
-			throw new HoloError(`no turning point found for l=${l}`, 'l', 'the width may be unreachable in this bulk');
-		}
-		x0 = x1;
-		g0 = g1;
-		step *= 2;
-		x1 = x0 + step;
-		g1 = g(x1);
-	}
-	const root = findRootBrent(g, x0, x1, 4e-16, 200, g0, g1);
-	const point = pointOf(P, root.x);
+	const root = P.exact ? newtonRoot(P, x0, lnl, bounded) : brentRoot(P, x0, lnl, l);
+	const point = pointOf(P, root);
 	const r = integrate(P, point, true);
 	return {
 		zstar: point.z,
@@ -392,4 +411,64 @@ export function solveStrip(slice: Slice, l: number): StripIntegrals & { point: T
 		deltaArea: deltaFromParts(P.d, l, r.wrel, r.dS),
 		point
 	};
+}
+
+function unreachable(l: number): HoloError {
+	return new HoloError(`no turning point found for l=${l}`, 'l', 'the width may be unreachable in this bulk');
+}
+
+function newtonRoot(P: Prepared, x: number, lnl: number, bounded: boolean): number {
+	let lo = -Infinity; // g(lo) < 0 < g(hi): l(z*) increases with z*
+	let hi = Infinity;
+	for (let it = 0; it < 100; it++) {
+		const tp = pointOf(P, x);
+		const r = integrate(P, tp, false, true);
+		// near a horizon l grows linearly in x, so Newton on l/l₀ − 1 lands in one or two steps; further out
+		// ln l is the nearly linear one
+		const lr = Math.exp(Math.log(r.width) - lnl);
+		const lin = bounded && x > 0;
+		const g = lin ? lr - 1 : Math.log(lr);
+		if (g === 0) return x;
+		if (g < 0) lo = x;
+		else hi = x;
+		const dg = r.slope * (bounded ? tp.eta : 1) * (lin ? lr : 1);
+		let next = x - g / dg;
+		const ok = dg > 0 && Number.isFinite(next) && next > lo && next < hi;
+		if (ok && Math.abs(next - x) <= 1e-7 * Math.max(1, Math.abs(x))) return next;
+		if (!ok) {
+			// bisect a finite bracket; otherwise step outwards (the logit/log variable grows like ln l)
+			if (Number.isFinite(lo) && Number.isFinite(hi)) next = 0.5 * (lo + hi);
+			else next = Number.isFinite(lo) ? lo + Math.max(1, Math.abs(g) / 0.5) : hi - Math.max(1, Math.abs(g));
+		}
+		if (Number.isFinite(lo) && Number.isFinite(hi) && hi - lo <= 4e-16 * Math.max(1, Math.abs(x))) return next;
+		if (bounded && next > 700 && lo < 700) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : 700;
+		else if (bounded && next > 700) {
+			throw new HoloError(
+				`l=${Math.exp(lnl)} puts the turning point within e^−700 of the horizon`,
+				'l',
+				'that is beyond double precision; there ΔA = l/zh^{d−1} + const to all printed digits'
+			);
+		}
+		if (Math.abs(next) > 800) throw unreachable(Math.exp(lnl));
+		x = next;
+	}
+	throw unreachable(Math.exp(lnl));
+}
+
+function brentRoot(P: Prepared, x0: number, lnl: number, l: number): number {
+	const g = (x: number) => Math.log(integrate(P, pointOf(P, x), false).width) - lnl;
+	let g0 = g(x0);
+	let step = g0 < 0 ? 0.5 : -0.5;
+	let x1 = x0 + step;
+	let g1 = g(x1);
+	let guard = 0;
+	while (g0 * g1 > 0) {
+		if (++guard > 60 || !Number.isFinite(g1)) throw unreachable(l);
+		x0 = x1;
+		g0 = g1;
+		step *= 2;
+		x1 = x0 + step;
+		g1 = g(x1);
+	}
+	return findRootBrent(g, x0, x1, 4e-16, 200, g0, g1).x;
 }
