@@ -49,7 +49,7 @@ const BAD: [string[], string, string | RegExp, string, ('limit' | 'language')?][
 	[[], 'let x = use brane', "'use' gives no value to keep", 'use'],
 	[['use metric d=4 f="1 - (z/zh)^4" zh=1'], 'darea l=0.3 o=2', 'the metric bulk has no closed-form series: use o=exact', '2'],
 	[[], 'use metric d=4 f="2 - z"', /^f\(0\) must be 1/, '"2 - z"'],
-	[[], 'firstlaw ball R=0.5', 'firstlaw ball is not available yet', 'firstlaw']
+	[['use vacuum d=4'], 'firstlaw ball R=0.5', 'firstlaw ball needs a bulk with a horizon (brane)', 'firstlaw']
 ];
 
 describe('evaluation errors point at the offending characters', () => {
