@@ -168,19 +168,29 @@ describe('the console', () => {
 	});
 
 	it('shows a long sweep’s progress and cancels it with Esc, keeping the line', async () => {
-		const line = 'sweep darea l=0.05..1.1:2000 o=1,2,3,exact d=7';
+		// about two seconds of quadrature in a custom metric, reported as it goes
+		const line = 'use metric d=6 f="1 - (z/zh)^6 + 0.3*(z/zh)^8" zh=1; sweep darea l=0.05..1.5:2000 o=exact';
 		await input().fill(line);
 		await page.keyboard.press('Enter');
-		await expect.poll(() => page.locator('.status-running').count(), { timeout: 5000 }).toBe(1);
-		await expect.poll(() => page.locator('.status-running').textContent(), { timeout: 10_000 }).toMatch(/\d+\/2000/);
-		await screenshot(page, 'console-running');
+		await expect.poll(() => page.locator('.status-running').textContent(), { timeout: 5000, interval: 20 }).toMatch(/\d+\/2000/);
 		await page.keyboard.press('Escape');
 		await expect.poll(() => page.locator('.status-running').count(), { timeout: 10_000 }).toBe(0);
 		await expect.poll(() => page.locator('.notice').textContent()).toMatch(/Cancelled/);
 		expect(await input().inputValue()).toBe(line);
 		// the server's own record of the step replaces the local mark once the page data reloads
-		await expect.poll(() => lastStep().getAttribute('data-status'), { timeout: 10_000 }).toMatch(/error|pending|cancelled/);
-		await input().fill('');
+		await expect.poll(() => lastStep().getAttribute('data-status'), { timeout: 10_000 }).toMatch(/error|pending/);
+		await screenshot(page, 'console-cancelled');
+
+		// the same line left to finish: the progress shows while it runs, then a table and plot
+		const before = await stepCount();
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('.status-running').textContent(), { timeout: 5000, interval: 20 }).toMatch(/\d+\/2000/);
+		await screenshot(page, 'console-running');
+		await expect.poll(stepCount, { timeout: 30_000 }).toBeGreaterThan(before);
+		await expect.poll(() => page.locator('.status-running').count(), { timeout: 30_000 }).toBe(0);
+		const last = lastStep();
+		expect(await last.getAttribute('data-status'), (await last.textContent()) ?? '').toBe('ok');
+		await expect.poll(() => last.locator('path.series-path').count()).toBe(1);
 	});
 
 	it('renames and deletes a pad from the side panel, after a confirm', async () => {
