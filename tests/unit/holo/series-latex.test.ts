@@ -91,12 +91,10 @@ describe('exact a_k (π and B(s/m, ½) atoms) against the 60-digit numerics (tes
 				checkExact(`brane d=${d} k=${k}`, brane[k - 1], atoms, ref[String(d)][k - 1][0]);
 				checkExact(`wave d=${d} k=${k}`, wave[k - 1], atoms, ref[String(d)][k - 1][k]);
 			}
-			if (d <= 8) {
-				const boosted = exactTerms(d, 'boosted', EXACT_ORDER.boosted);
-				for (let k = 1; k <= EXACT_ORDER.boosted; k++) {
-					for (let r = 0; r <= k; r++) {
-						checkExact(`boosted d=${d} k=${k} κ^${r}`, kappaPart(boosted[k - 1], r), atoms, ref[String(d)][k - 1][r]);
-					}
+			const boosted = exactTerms(d, 'boosted', EXACT_ORDER.boosted);
+			for (let k = 1; k <= EXACT_ORDER.boosted; k++) {
+				for (let r = 0; r <= k; r++) {
+					checkExact(`boosted d=${d} k=${k} κ^${r}`, kappaPart(boosted[k - 1], r), atoms, ref[String(d)][k - 1][r]);
 				}
 			}
 		}, 60_000);
@@ -136,10 +134,12 @@ describe('LaTeX of the coefficients', () => {
 		for (const d of [3, 4, 6, 10]) {
 			for (const name of ['brane', 'wave', 'boosted'] as const) {
 				const params: Record<string, number> = name === 'wave' ? { d, zp: 1 } : name === 'boosted' ? { d, zh: 1, v: 0.5 } : { d, zh: 1 };
-				const n = name === 'boosted' ? EXACT_ORDER.boosted + 1 : 12;
+				// rendering a boosted a₁₂ (hundreds of terms) takes seconds: full order at d = 3, the first six elsewhere
+				const n = name === 'boosted' ? (d === 3 ? EXACT_ORDER.boosted + 1 : 6) : 12;
 				for (const c of seriesCoeffs(makeBulk(name, params), n)) {
 					expect(() => katex.renderToString(c.latex, { throwOnError: true }), `${name} d=${d} k=${c.k}: ${c.latex}`).not.toThrow();
 					expect(c.exact, `${name} d=${d} k=${c.k}`).toBe(c.k <= EXACT_ORDER[name]);
+					expect(c.latex.length, `${name} d=${d} k=${c.k}: length`).toBeLessThan(200_000);
 				}
 			}
 		}

@@ -11,12 +11,12 @@ import { beta } from '../special/beta';
  * Thin spaces and \left/\right around the Beta arguments are left out on purpose: KaTeX counts every macro
  * expansion (limit 1000) and a boosted a₈ has a few hundred atoms.
  *
- * Cost of the exact algebra, cold (JIT included) on the 2-core build machine: brane and wave to order 14
- * ≲ 0.1 s for any d; the boosted brane carries κ too and grows like n⁴ — order 8 ≲ 0.3 s, order 12 up to
- * ~1–3 s for d = 10 — so the boosted LaTeX is exact up to EXACT_ORDER.boosted and printed as decimals
- * (with a note) beyond.
+ * Cost of the exact algebra, cold in a fresh process on the 2-core build machine (under a load of ~6):
+ * brane and wave to order 14 ≲ 0.1 s for any d; the boosted brane carries κ as well and grows like n⁴ —
+ * order 8 ≈ 0.2–0.5 s, order 12 ≈ 0.3–0.7 s (d = 3…10), order 14 above 1 s — so the boosted LaTeX is exact
+ * up to order 12 and printed as decimals (with a note) for 13 and 14.
  */
-export const EXACT_ORDER: Record<ExactKind, number> = { brane: 14, wave: 14, boosted: 8 };
+export const EXACT_ORDER: Record<ExactKind, number> = { brane: 14, wave: 14, boosted: 12 };
 
 interface Entry {
 	n: number;

@@ -17,7 +17,7 @@ import { addProduct, invertMonomial, monomial, normalize, rat, ratMul, scale, te
  *
  * Atom order in exponent vectors: 0 = κ, 1 = π, 1 + s = B_s. Arithmetic: laurent.ts (own BigInt code, not
  * nerdamer: see there). Checked in tests/unit/holo/series-latex.test.ts against 60-digit mpmath numerics to
- * 1e−28 (brane and wave to order 14, boosted to order 8, d = 3…10).
+ * 1e−28 (brane and wave to order 14, boosted to order 12, d = 3…10).
  */
 
 export interface ExactSeries {
