@@ -4,7 +4,7 @@
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
@@ -88,6 +88,7 @@ try {
 	// 2. time to interactive, cold cache each run
 	const ttis = [];
 	const fcps = [];
+	const navs = [];
 	for (let i = 0; i < RUNS; i++) {
 		const p = await ctx.newPage();
 		const cdp = await ctx.newCDPSession(p);
@@ -108,6 +109,11 @@ try {
 		const took = await p.inputValue('textarea[aria-label="input line"]');
 		if (took !== 'd') throw new Error(`the input line did not take the key (has "${took}")`);
 		const fcp = await p.evaluate(() => performance.getEntriesByName('first-contentful-paint')[0]?.startTime ?? null);
+		const nav = await p.evaluate(() => {
+			const n = performance.getEntriesByType('navigation')[0];
+			return { ttfb: n.responseStart, html: n.responseEnd, dcl: n.domContentLoadedEventEnd };
+		});
+		navs.push(nav);
 		ttis.push(tti);
 		if (fcp !== null) fcps.push(fcp);
 		await p.close();
@@ -116,11 +122,14 @@ try {
 	const fcp = fcps.length ? median(fcps) : null;
 	emit({ name: 'pad page time to interactive (input focused, hydrated, takes a key), cold cache', median_ms: Math.round(tti), min_ms: Math.round(Math.min(...ttis)), max_ms: Math.round(Math.max(...ttis)), runs: RUNS });
 	if (fcp !== null) emit({ name: 'pad page first contentful paint, cold cache', median_ms: Math.round(fcp) });
+	const ttfb = median(navs.map((n) => n.ttfb));
+	const html = median(navs.map((n) => n.html));
+	emit({ name: 'pad page server answer (SSR with typeset formulas)', ttfb_ms: Math.round(ttfb), html_done_ms: Math.round(html) });
 
 	writeSection(
 		'web',
 		`## Web console (\`npm run bench -- web\`)
-${machineLine()}; headless Chromium on 127.0.0.1, the seeded pad "Boosted brane d=4: first law to third order" (formulas, a table, a sweep plot), signed in as a member.
+${machineLine()}; headless Chromium on 127.0.0.1, the seeded pad "Boosted brane d=4: first law to third order" (formulas, a table, a sweep plot), signed in as a member. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times; the sizes do not move).
 
 | figure | value |
 |---|---|
@@ -128,7 +137,8 @@ ${machineLine()}; headless Chromium on 127.0.0.1, the seeded pad "Boosted brane 
 | … of which before KaTeX (what hydration needs) | ${kb(initial)} KB |
 | … of which the KaTeX chunk, fetched lazily after the page is interactive (the server typesets the first paint) | ${kb(katex)} KB |
 | time to interactive: input line focused, hydrated and taking a key, cold cache, median of ${RUNS} | ${Math.round(tti)} ms (min ${Math.round(Math.min(...ttis))}, max ${Math.round(Math.max(...ttis))}) |
-${fcp !== null ? `| first contentful paint, cold cache, median | ${Math.round(fcp)} ms |\n` : ''}`
+${fcp !== null ? `| first contentful paint, cold cache, median | ${Math.round(fcp)} ms |\n` : ''}| server's first byte / whole HTML (SSR, formulas typeset on the server), median | ${Math.round(ttfb)} / ${Math.round(html)} ms |
+`
 	);
 	await ctx.close();
 } finally {

@@ -239,6 +239,10 @@ describe('the console on a tablet, dark', () => {
 		expect(wide).toBeLessThanOrEqual(820);
 		await screenshot(p, 'tablet-dark');
 		await p.click('button.drawer-toggle');
+		await p.waitForTimeout(400); // the drawer slides in
+		const panel = (await p.locator('#side-panel').boundingBox())!;
+		expect(panel.x).toBeGreaterThanOrEqual(0);
+		expect(await p.locator('.pad-list li').count()).toBeGreaterThan(1);
 		await screenshot(p, 'tablet-dark-drawer');
 	});
 });
