@@ -6,7 +6,8 @@ export { HoloError } from './errors';
 export type { Bulk, BulkName, Slice, PowerTerm, SeriesCoeff, SeriesShape, Stress, Thermo } from './types';
 export { makeBulk, registerBulk, BULK_NAMES } from './bulks/index';
 export { zstarOf, widthOf, areaFinite, deltaArea, vacuumAreaFinite, stripIntegrals } from './area';
-export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor } from './strip';
+export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor, widthSlope } from './strip';
+export { dAreaDParam } from './dparam';
 export type { TurningPoint, StripIntegrals } from './strip';
 export {
 	seriesCoeffs,
