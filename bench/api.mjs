@@ -5,7 +5,7 @@ import { apiKeyFor, startBuiltServer } from './lib/server.mjs';
 import { emit, machineLine, writeSection } from './lib/results.mjs';
 
 const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
-const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '20000' });
+const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000' });
 try {
 	const key = await apiKeyFor(server.baseUrl, 'tomas@sable.test');
 	const light = (extra = {}) =>
@@ -26,7 +26,8 @@ try {
 	// heavy sweeps from another user, back to back, while the light load runs
 	let stop = false;
 	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test');
-	const heavyLine = 'sweep darea l=0.05..0.95:2000 o=1,2,3,exact d=7';
+	// exact ball surfaces by shooting: minutes of work, so each one runs until its time budget stops it
+	const heavyLine = 'sweep darea ball R=0.1..2:300';
 	let heavyRuns = 0;
 	const heavyLoop = (async () => {
 		while (!stop) {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { Client, signedIn, freshMember } from '../helpers/client';
 
-/** A line far over the test server's 4 s budget: every point is a full validity search at order 12. */
-const HEAVY_LINE = 'sweep validity darea tol=1e-12..1e-3:2000 o=12 d=3';
+/** A line far over the test server's 2 s budget: each point shoots the exact ball surface (~0.3 s each). */
+const HEAVY_LINE = 'sweep darea ball R=0.1..2:2000';
 
 describe('POST /api/eval', () => {
 	it('needs a signed-in user (401) and a member or admin (403 for a reader)', async () => {
