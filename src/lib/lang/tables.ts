@@ -56,8 +56,21 @@ export function buildTable(
 		}
 	}
 	const table: TableResult = { kind: 'table', label: '', columns, rows, plot: { x: xKey } };
-	if (warnings.size) table.warning = [...warnings].map(([o, w]) => `${orderName(o)}: ${w.text}`).join('; ');
+	if (warnings.size) table.warning = mergeWarnings(warnings);
 	return table;
+}
+
+/**
+ * One line per distinct warning: orders whose warnings differ only in the order's number (past the radius
+ * of convergence, every truncation says the same) are named together instead of repeating the sentence.
+ */
+function mergeWarnings(warnings: Map<Order, { text: string }>): string {
+	const groups = new Map<string, Order[]>();
+	for (const [o, w] of warnings) {
+		const generic = typeof o === 'number' ? w.text.replace(`an order-${o} truncation`, 'a truncation') : w.text;
+		groups.set(generic, [...(groups.get(generic) ?? []), o]);
+	}
+	return [...groups].map(([text, os]) => `${os.map(orderName).join(', ')}: ${text}`).join('; ');
 }
 
 /** A table's `#n`: a one-row table exposes its cells; the value is the last column (exact, or the highest order). */
