@@ -3,28 +3,19 @@
 // line is focused, hydrated and takes a key. Run after a build (`npm run build`, or with BULKPAD_BUILD_DIR).
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
 import { buildDir } from '../scripts/out-dirs.mjs';
 import { emit, machineLine, median, writeSection } from './lib/results.mjs';
+import { freePort } from './lib/server.mjs';
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const BUDGET_KB = 150;
 const worker = process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs';
 if (!existsSync(`${buildDir}/index.js`) || !existsSync(worker)) throw new Error(`build first: no ${buildDir}/index.js or ${worker}`);
 
-function freePort() {
-	return new Promise((resolve) => {
-		const s = createServer();
-		s.listen(0, '127.0.0.1', () => {
-			const { port } = s.address();
-			s.close(() => resolve(port));
-		});
-	});
-}
 
 const dir = mkdtempSync(join(tmpdir(), 'bulkpad-web-'));
 const env = { ...process.env, DATABASE_URL: join(dir, 'web.db'), NODE_ENV: 'production', BULKPAD_INSECURE_COOKIES: '1' };

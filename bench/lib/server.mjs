@@ -5,7 +5,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-function freePort() {
+export function freePort() {
 	return new Promise((resolve) => {
 		const s = createServer();
 		s.listen(0, '127.0.0.1', () => {

@@ -40,6 +40,13 @@ export function createPad(ownerId: string, title: string, state?: { bulk?: BulkS
 	return row;
 }
 
+/** Where `/` and `/pads` send a signed-in user: readers to what is shared with them, others to their latest pad. */
+export function homePath(user: AppUser): string {
+	if (user.role === 'reader') return '/shared';
+	const latest = listPads(user.id)[0] ?? createPad(user.id, 'First pad');
+	return `/pads/${latest.id}`;
+}
+
 /** The user's own pad; any other id — missing or somebody else's — is the same 404. */
 export function findOwnPad(user: AppUser, id: string): PadRow {
 	const pad = getDb().select().from(schema.pads).where(and(eq(schema.pads.id, id), eq(schema.pads.ownerId, user.id))).get();

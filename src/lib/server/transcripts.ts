@@ -38,26 +38,19 @@ export function createShare(pad: PadRow, user: AppUser, expiresInDays?: number):
 	return row;
 }
 
+/** A pad's share links, newest first. */
+function sharesOf(pad: PadRow): ShareRow[] {
+	return getDb().select().from(schema.shares).where(eq(schema.shares.padId, pad.id)).orderBy(desc(schema.shares.createdAt)).all();
+}
+
 export function listShares(pad: PadRow, origin?: string) {
 	const now = Date.now();
-	return getDb()
-		.select()
-		.from(schema.shares)
-		.where(eq(schema.shares.padId, pad.id))
-		.orderBy(desc(schema.shares.createdAt))
-		.all()
-		.map((s) => ({ slug: s.slug, url: shareUrl(s.slug, origin), createdAt: s.createdAt, expiresAt: s.expiresAt, revokedAt: s.revokedAt, live: isLive(s, now) }));
+	return sharesOf(pad).map((s) => ({ slug: s.slug, url: shareUrl(s.slug, origin), createdAt: s.createdAt, expiresAt: s.expiresAt, revokedAt: s.revokedAt, live: isLive(s, now) }));
 }
 
 /** The newest live link of a pad, if any (for invitation e-mails). */
 export function liveShareOf(pad: PadRow): ShareRow | undefined {
-	return getDb()
-		.select()
-		.from(schema.shares)
-		.where(eq(schema.shares.padId, pad.id))
-		.orderBy(desc(schema.shares.createdAt))
-		.all()
-		.find((s) => isLive(s));
+	return sharesOf(pad).find((s) => isLive(s));
 }
 
 /** Revoking keeps the row (the owner sees it listed as revoked); the transcript answers 404 from now on. */

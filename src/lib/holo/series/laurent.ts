@@ -12,7 +12,7 @@
  * 140 s); the reversion to order 12 needs thousands of such products. This file does the same ring
  * arithmetic (sums, products, rational scaling, inverse of a monomial — no simplification rules) exactly.
  */
-import { fraction, type Fraction } from './btz';
+import { fraction, fractionValue, type Fraction } from './btz';
 
 export type { Fraction };
 
@@ -195,7 +195,7 @@ export function evaluateTerms(ts: Term[], atoms: number[]): number {
 			if (atoms[i] < 0 && t.e[i] % 2) sign = -sign;
 		}
 		// the monomial by exp(Σ e ln x) would lose ~|Σ e ln x|·1e−16; multiply directly while it cannot overflow
-		let v = fracToNumber(t.c);
+		let v = fractionValue(t.c);
 		if (Math.abs(lv) < 600) {
 			for (let i = 0; i < t.e.length; i++) if (t.e[i]) v *= Math.pow(atoms[i], t.e[i]);
 			return v;
@@ -211,13 +211,4 @@ export function evaluateTerms(ts: Term[], atoms: number[]): number {
 		s = t;
 	}
 	return s + comp;
-}
-
-export function fracToNumber(x: Fraction): number {
-	const neg = x.num < 0n;
-	const a = neg ? -x.num : x.num;
-	const sa = Math.max(0, a.toString(2).length - 64);
-	const sd = Math.max(0, x.den.toString(2).length - 64);
-	const v = (Number(a >> BigInt(sa)) / Number(x.den >> BigInt(sd))) * Math.pow(2, sa - sd);
-	return neg ? -v : v;
 }

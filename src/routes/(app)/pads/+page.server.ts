@@ -1,15 +1,12 @@
 import { redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { requireWriter } from '$lib/server/auth/guards';
-import { createPad, listPads } from '$lib/server/pads';
+import { createPad, homePath } from '$lib/server/pads';
 
 /** `/pads` is the latest pad, like `/`. */
 export const load: PageServerLoad = ({ locals }) => {
-	const user = locals.user;
-	if (!user) redirect(303, '/signin?next=/pads');
-	if (user.role === 'reader') redirect(303, '/shared');
-	const latest = listPads(user.id)[0] ?? createPad(user.id, 'First pad');
-	redirect(303, `/pads/${latest.id}`);
+	if (!locals.user) redirect(303, '/signin?next=/pads');
+	redirect(303, homePath(locals.user));
 };
 
 export const actions: Actions = {
