@@ -42,12 +42,12 @@ describe('who may do what', () => {
 
 describe('a key', () => {
 	it('is shown once and never again', async () => {
-		const made = await makeKey(member, 'notebook export');
+		const made = await makeKey(member, 'pad export script');
 		expect(made.key.startsWith(made.prefix)).toBe(true);
 		expect(made.key.length).toBeGreaterThan(made.prefix.length + 16);
 		const r = await member.get('/api/keys');
 		const listed = r.body.keys.find((k: { id: string }) => k.id === made.id);
-		expect(listed).toMatchObject({ id: made.id, label: 'notebook export', prefix: made.prefix, lastUsedAt: null });
+		expect(listed).toMatchObject({ id: made.id, label: 'pad export script', prefix: made.prefix, lastUsedAt: null });
 		expect(Object.keys(listed).sort()).toEqual(['createdAt', 'id', 'label', 'lastUsedAt', 'prefix']);
 		expect(JSON.stringify(r.body)).not.toContain(made.key);
 	});

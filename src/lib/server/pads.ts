@@ -94,21 +94,36 @@ export function ownerDatasets(ownerId: string): NonNullable<PadContext['datasets
 	return Object.fromEntries(rows.map((d) => [d.name, { columns: d.columns as string[], rows: d.rows as number[][] }]));
 }
 
+/**
+ * The library pieces one line can reach: macros only through '@', datasets only through `compare` (or a
+ * macro's body). Most lines use neither, so most evaluations read nothing but the pad.
+ */
+export function lineLibrary(input: string, ownerId: string | null): Pick<PadContext, 'macros' | 'datasets'> {
+	const usesMacros = input.includes('@');
+	const usesDatasets = usesMacros || input.includes('compare');
+	return { macros: usesMacros ? approvedMacros() : {}, datasets: usesDatasets && ownerId ? ownerDatasets(ownerId) : {} };
+}
+
 /** The references `#n` may read: every step that evaluated. */
-export function stepRefs(steps: StepRow[]): Record<number, StepRef> {
+export function stepRefs(steps: Pick<StepRow, 'n' | 'status' | 'ref'>[]): Record<number, StepRef> {
 	const refs: Record<number, StepRef> = {};
 	for (const s of steps) if (s.status === 'ok' && s.ref) refs[s.n] = s.ref as StepRef;
 	return refs;
 }
 
-export function padContext(pad: PadRow): PadContext {
+/** What a line evaluated in this pad needs: its state, the `#n` references (not whole results) and library. */
+export function padContext(pad: PadRow, input: string): PadContext {
+	const refRows = getDb()
+		.select({ n: schema.steps.n, status: schema.steps.status, ref: schema.steps.ref })
+		.from(schema.steps)
+		.where(eq(schema.steps.padId, pad.id))
+		.all();
 	return {
 		bulk: pad.bulk as BulkState,
 		units: pad.units as UnitsState,
 		lets: pad.lets as Record<string, LetValue>,
-		refs: stepRefs(padSteps(pad.id)),
-		macros: approvedMacros(),
-		datasets: ownerDatasets(pad.ownerId)
+		refs: stepRefs(refRows),
+		...lineLibrary(input, pad.ownerId)
 	};
 }
 

@@ -5,6 +5,7 @@ import {
 	DEFAULT_UNITS,
 	approvedMacros,
 	finishStep,
+	lineLibrary,
 	ownerDatasets,
 	padContext,
 	serialisePad,
@@ -46,8 +47,7 @@ export async function evaluateStateless(input: string, ownerId: string | null, o
 		units: DEFAULT_UNITS,
 		refs: {},
 		lets: {},
-		macros: approvedMacros(),
-		datasets: ownerId ? ownerDatasets(ownerId) : {}
+		...lineLibrary(input, ownerId)
 	};
 	const answer = tooLong(input) ?? (await evaluateInPool(input, ctx, opts));
 	return reply(answer, performance.now() - t0, undefined, DEFAULT_BULK);
@@ -60,7 +60,7 @@ export function evaluateInPad(padOf: () => PadRow, input: string, opts: EvalOpti
 		const pad = padOf(); // re-read: the previous line may have changed the bulk
 		const t0 = performance.now();
 		const step = startStep(pad, input);
-		const answer = tooLong(input) ?? (await evaluateInPool(input, padContext(pad), opts));
+		const answer = tooLong(input) ?? (await evaluateInPool(input, padContext(pad, input), opts));
 		const ms = performance.now() - t0;
 		finishStep(pad, step.id, ms, answer.ok ? { ok: true, ...answer.outcome } : answer);
 		return reply(answer, ms, step, pad.bulk as BulkState);
