@@ -71,6 +71,20 @@ describe('sign-in', () => {
 		expect((await c.get('/api/auth/me')).status).toBe(401);
 	});
 
+	it('signs up someone invited to a pad as a reader (an admin promotes them)', async () => {
+		const { freshMember } = await import('../helpers/client');
+		const owner = await freshMember('inviter');
+		const pad = (await owner.post('/api/pads', { title: 'for the referee' })).body.pad.id;
+		const email = `referee-${Date.now()}@tests.test`;
+		expect((await owner.post(`/api/pads/${pad}/invite`, { email })).status).toBe(200);
+		const c = new Client();
+		const r = await c.post('/api/auth/signup', { email, password: 'long enough pw', name: 'Referee' });
+		expect(r.status).toBe(201);
+		expect(r.body.user.role).toBe('reader');
+		expect((await c.get(`/api/pads/${pad}`)).status).toBe(200);
+		expect((await c.post('/api/eval', { input: 'zstar l=0.2' })).status).toBe(403);
+	});
+
 	it('stores an argon2id hash, never the password', async () => {
 		const { default: Database } = await import('better-sqlite3');
 		const { inject } = await import('vitest');

@@ -29,7 +29,16 @@ export function newId(): string {
 	return randomBytes(10).toString('hex');
 }
 
-export async function createUser(input: z.infer<typeof signUpSchema>, role: Role = 'member') {
+/**
+ * The role a self-service sign-up gets: someone who was invited to a pad before having an account is a
+ * collaborator or referee, so a reader (an admin promotes them to member); anyone else is a member.
+ */
+export function signUpRole(email: string): Role {
+	const invited = getDb().select({ padId: schema.padAccess.padId }).from(schema.padAccess).where(eq(schema.padAccess.email, email)).get();
+	return invited ? 'reader' : 'member';
+}
+
+export async function createUser(input: z.infer<typeof signUpSchema>, role: Role = signUpRole(input.email)) {
 	const db = getDb();
 	const taken = db.select({ id: schema.users.id }).from(schema.users).where(eq(schema.users.email, input.email)).get();
 	if (taken) throw new ApiFailure(409, 'An account with this e-mail exists already; sign in instead.');
