@@ -17,6 +17,7 @@ export {
 	boostedCoeffPolys,
 	seriesValues,
 	seriesRadius,
+	seriesPowers,
 	MAX_ORDER
 } from './series/index';
 export { stressTensor, thermo, energy } from './physics';

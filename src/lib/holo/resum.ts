@@ -57,10 +57,18 @@ function checkN(n: number): void {
 	if (!Number.isInteger(n) || n < 2 || n > 14) throw new HoloError('resummation needs an order 2…14', 'o', 'a Padé approximant needs at least two coefficients');
 }
 
+/** The charged series mixes powers (l/zh)^{da + 2(d−1)b}: a Padé approximant in τ = (l/zh)^d does not apply. */
+function rejectCharged(bulk: Bulk): void {
+	if (bulk.name === 'charged' && bulk.d > 2) {
+		throw new HoloError('no resummation for charged: its series mixes (l/zh)^d and (l/zh)^{2(d−1)}', 'bulk', 'use o=exact');
+	}
+}
+
 /** Padé-resummed ΔA at width l from the order-n series, with the exact ΔA beside it. */
 export function resum(bulk: Bulk, l: number, n: number): ResumResult {
 	checkN(n);
 	if (!bulk.hasSeries || !bulk.scale) throw new HoloError(`no closed-form series for ${bulk.name}`, 'bulk', 'use o=exact');
+	rejectCharged(bulk);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const d = bulk.d;
 	const a = seriesCoeffs(bulk, n).map((t) => t.value);
@@ -74,6 +82,7 @@ export function resum(bulk: Bulk, l: number, n: number): ResumResult {
 /** Padé-resummed T_ent from its order-n series (firstlaw.ts), with the exact T_ent beside it. */
 export function resumTent(bulk: Bulk, l: number, n: number): ResumResult {
 	checkN(n);
+	rejectCharged(bulk);
 	const s = firstLawSeries(bulk, l, n);
 	const p = choosePade(s.tent);
 	const scale = Math.pow(Math.pow(l, bulk.d) / s.x, 1 / bulk.d);

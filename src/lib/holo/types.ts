@@ -77,6 +77,11 @@ export interface SeriesCoeff {
 	latex: string;
 	/** true when `latex` is the exact closed form (rational × powers of π and B(s/m, ½)), false for a decimal. */
 	exact?: boolean;
-	/** boosted: a_k as the coefficients of κ^0..κ^k. */
+	/** boosted: a_k as the coefficients of κ^0..κ^k; charged: c_K as the coefficients of (q²)^0, (q²)^1, … */
 	poly?: number[];
+	/**
+	 * Exponent of l/scale of this term: ΔA = l^{2−d} Σ value·(l/scale)^power. k·d for brane, boosted and wave;
+	 * the charged brane's powers are da + 2(d−1)b (k is then just the index).
+	 */
+	power?: number;
 }

@@ -6,8 +6,8 @@ import { readDimension, readLength, readNumber, rejectUnknownKeys } from './para
  * Planar Reissner–Nordström–AdS brane: f = 1 − (1+q²)(z/zh)^d + q²(z/zh)^{2(d−1)},
  * T = (d − (d−2)q²)/(4π zh), extremal at q² = d/(d−2) (rejected: non-extremal only).
  * Stress from the z^d coefficient of f (de Haro, Skenderis & Solodukhin 2001): e = (d−1)(1+q²)/(16πG zh^d),
- * p = (1+q²)/(16πG zh^d) (traceless). s = 1/(4G zh^{d−1}). No closed-form series: the expansion mixes
- * (l/zh)^d and (l/zh)^{2(d−1)}.
+ * p = (1+q²)/(16πG zh^d) (traceless). s = 1/(4G zh^{d−1}). Its small-width series mixes the powers
+ * (l/zh)^{da + 2(d−1)b} (series/charged.ts); `series` (the one-power shape) stays undefined.
  */
 export function makeCharged(params: Record<string, number | string>): Bulk {
 	rejectUnknownKeys('charged', params, ['d', 'zh', 'q']);
@@ -39,7 +39,7 @@ export function makeCharged(params: Record<string, number | string>): Bulk {
 			],
 			hTerms: []
 		},
-		hasSeries: false,
+		hasSeries: true,
 		stress: (G): Stress => ({ tt: (d - 1) * c(G), ty: 0, xx: c(G), yy: c(G) }),
 		thermo: (G) => ({
 			T: (d - (d - 2) * q2) / (4 * Math.PI * zh),

@@ -2,9 +2,10 @@ import { HoloError } from '../errors';
 import { solveStrip } from '../strip';
 import type { Bulk, SeriesCoeff } from '../types';
 import { btzCoeff, fractionValue } from './btz';
+import { chargedSeries, evalQ2 } from './charged';
 import { kappaCoeffs } from './coeffs';
-import { coeffLatex } from './latex';
-import { radiusFromCoeffs } from './radius';
+import { chargedLatex, coeffLatex } from './latex';
+import { radiusFromCoeffs, radiusFromGrowth } from './radius';
 
 /** Highest order served (the double-precision coefficients stay within 1e−12 up to here). */
 export const MAX_ORDER = 14;
@@ -14,15 +15,7 @@ function checkOrder(n: number): void {
 	if (n > MAX_ORDER) throw new HoloError(`order must be ≤ ${MAX_ORDER}`, 'o', 'use o=exact');
 }
 
-/**
- * The charged brane has no series yet: f = 1 − (1+q²)(z/zh)^d + q²(z/zh)^{2(d−1)} makes ΔA a double series in
- * τ = (l/zh)^d and σ = (l/zh)^{2(d−1)} (σ = τ^{2(d−1)/d}, not a power of τ for d > 2), which needs a
- * two-variable reversion and a radius/validity in two variables; the exact strip covers it meanwhile.
- */
 function requireSeries(bulk: Bulk): void {
-	if (bulk.name === 'charged') {
-		throw new HoloError('no series for charged yet; use o=exact', 'o', 'ΔA mixes (l/zh)^d and (l/zh)^{2(d−1)}: a double series, not implemented');
-	}
 	if (!bulk.hasSeries || !bulk.scale) {
 		throw new HoloError(`no closed-form series for ${bulk.name}`, 'o', 'use o=exact');
 	}
@@ -38,13 +31,33 @@ export function boostedCoeffPolys(d: number, n: number): number[][] {
 	return kappaCoeffs(d, n).map((p) => p.slice());
 }
 
-/** The numbers a_k (k = 1..n) of this bulk (brane, boosted, wave). */
+/**
+ * The charged brane mixes the powers (l/zh)^{da + 2(d−1)b} (series/charged.ts): its "order n" is every power
+ * K ≤ n d, the same cut in l/zh as the other bulks. d = 2 is the BTZ brane (the charge drops out of f).
+ */
+function isChargedSeries(bulk: Bulk): boolean {
+	return bulk.name === 'charged' && bulk.d > 2;
+}
+
+/** Exponents of l/scale of the terms of order n, ascending: k d (k = 1..n), or the charged brane's K ≤ n d. */
+export function seriesPowers(bulk: Bulk, n: number): number[] {
+	requireSeries(bulk);
+	checkOrder(n);
+	if (isChargedSeries(bulk)) return chargedSeries(bulk.d, n).powers;
+	return Array.from({ length: n }, (_, i) => (i + 1) * bulk.d);
+}
+
+/** The numbers a_k (k = 1..n) of this bulk (brane, boosted, wave); charged: c_K in the order of seriesPowers. */
 export function seriesValues(bulk: Bulk, n: number): number[] {
 	requireSeries(bulk);
 	checkOrder(n);
 	const { d } = bulk;
+	if (isChargedSeries(bulk)) {
+		const q2 = bulk.params.q2 as number;
+		return chargedSeries(d, n).polys.map((p) => evalQ2(p, q2));
+	}
 	if (d === 2) {
-		if (bulk.name !== 'brane') throw new HoloError(`no series for ${bulk.name} at d = 2`, 'd');
+		if (bulk.name !== 'brane' && bulk.name !== 'charged') throw new HoloError(`no series for ${bulk.name} at d = 2`, 'd');
 		return Array.from({ length: n }, (_, i) => fractionValue(btzCoeff(i + 1)));
 	}
 	const polys = kappaCoeffs(d, n);
@@ -57,14 +70,25 @@ export function seriesValues(bulk: Bulk, n: number): number[] {
 	});
 }
 
-/** Closed-form coefficients with their LaTeX; ΔA = l^{2−d} Σ_{k=1..n} a_k (l/scale)^{kd}. */
+/**
+ * Closed-form coefficients with their LaTeX; ΔA = l^{2−d} Σ_i value_i (l/scale)^{power_i}: power = k d for
+ * brane, boosted and wave; the charged brane's terms (k = index, power = da + 2(d−1)b ≤ n d, `poly` in q²).
+ */
 export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
+	if (isChargedSeries(bulk)) {
+		const values = seriesValues(bulk, n);
+		const { powers, polys } = chargedSeries(bulk.d, n);
+		return values.map((value, i) => {
+			const { latex, exact } = chargedLatex(bulk, powers[i], polys[i]);
+			return { k: i + 1, power: powers[i], value, latex, exact, poly: polys[i].slice() };
+		});
+	}
 	const values = seriesValues(bulk, n);
 	const polys = bulk.d >= 3 ? kappaCoeffs(bulk.d, n) : undefined;
 	return values.map((value, i) => {
 		const k = i + 1;
 		const latex = coeffLatex(bulk, k, value, polys?.[i]);
-		const c: SeriesCoeff = { k, value, latex, exact: !latex.startsWith('\\approx') };
+		const c: SeriesCoeff = { k, power: k * bulk.d, value, latex, exact: !latex.startsWith('\\approx') };
 		if (bulk.name === 'boosted' && polys) c.poly = polys[i].slice();
 		return c;
 	});
@@ -76,6 +100,13 @@ export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
 	checkOrder(n);
 	if (n === 0) return 0;
 	const a = seriesValues(bulk, n);
+	if (isChargedSeries(bulk)) {
+		const x = l / bulk.scale!;
+		const K = seriesPowers(bulk, n);
+		let s = 0;
+		for (let i = a.length - 1; i >= 0; i--) s += a[i] * Math.pow(x, K[i]);
+		return Math.pow(l, 2 - bulk.d) * s;
+	}
 	const tau = Math.pow(l / bulk.scale!, bulk.d);
 	let s = 0;
 	for (let k = n; k >= 1; k--) s = (s + a[k - 1]) * tau;
@@ -84,9 +115,14 @@ export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
 
 const validityCache = new Map<string, { l_max: number; radius: number }>();
 
-/** Radius of convergence in l (same units as l), from the coefficients up to MAX_ORDER. */
+/**
+ * Radius of convergence in l (same units as l), from the coefficients up to MAX_ORDER. The charged brane's
+ * exponents are irregular, so its radius comes from a fit of the coefficients' growth (radiusFromGrowth): an
+ * estimate, within ~0.5% of the brane's ratio-test value at q = 0 (tested).
+ */
 export function seriesRadius(bulk: Bulk): number {
 	requireSeries(bulk);
+	if (isChargedSeries(bulk)) return bulk.scale! * radiusFromGrowth(seriesPowers(bulk, MAX_ORDER), seriesValues(bulk, MAX_ORDER), bulk.d);
 	const rTau = radiusFromCoeffs(seriesValues(bulk, MAX_ORDER));
 	return bulk.scale! * Math.pow(rTau, 1 / bulk.d);
 }
@@ -142,11 +178,11 @@ export function validity(bulk: Bulk, n: number, tol: number): { l_max: number; r
 
 /** undefined when order n is reliable at l (within 1% of exact); otherwise a sentence saying why not. */
 export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefined {
-	if (n > 0 && bulk.name === 'charged') requireSeries(bulk);
 	if (n === 0 || !bulk.hasSeries) return undefined;
 	const { l_max, radius } = validity(bulk, n, 1e-2);
 	if (l >= radius) {
-		return `l=${fmt(l)} is beyond the series' radius of convergence (≈ ${fmt(radius)}): an order-${n} truncation here is a number, not an approximation — use o=exact`;
+		const how = isChargedSeries(bulk) ? ', estimated from the growth of the coefficients' : '';
+		return `l=${fmt(l)} is beyond the series' radius of convergence (≈ ${fmt(radius)}${how}): an order-${n} truncation here is a number, not an approximation — use o=exact`;
 	}
 	if (l > l_max) {
 		return `order ${n} is off by more than 1% beyond l ≈ ${fmt(l_max)} (l=${fmt(l)}): use a higher order or o=exact`;

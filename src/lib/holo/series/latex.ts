@@ -26,6 +26,19 @@ export function coeffLatex(bulk: Bulk, k: number, value: number, poly?: number[]
 	return `\\approx ${sci(value)}${note}`;
 }
 
+/**
+ * LaTeX of the charged brane's c_K (coefficient of l^{2−d}(l/zh)^K) at the bulk's q: the polynomial in q²
+ * with 15-digit decimal coefficients (marked ≈), and its value at this q. The exact form in π and B(s/m, ½)
+ * exists (same atoms as the brane) but is not carried out for the charged brane.
+ */
+export function chargedLatex(bulk: Bulk, K: number, poly: number[]): { latex: string; exact: boolean } {
+	const q2 = bulk.params.q2 as number;
+	const terms = poly.map((c, r) => (r === 0 ? sci(c) : `${sci(c)}\\,q^{${2 * r}}`)).filter((_, r) => poly[r] !== 0);
+	const value = poly.reduceRight((s, c) => s * q2 + c, 0);
+	const body = terms.length ? terms.join(' + ').replace(/\+ -/g, '- ') : '0';
+	return { latex: `\\approx ${body}\\;(= ${sci(value)}\\text{ at } q^{2} = ${q2})\\quad\\text{(term }(l/z_h)^{${K}}\\text{; decimals)}`, exact: false };
+}
+
 function sci(x: number): string {
 	const [mant, exp] = x.toExponential(14).split('e');
 	const e = Number(exp);
