@@ -29,6 +29,13 @@
  * of the exact ΔA in (zh, v) to 3e-11 relative (that comparison's own limit), and ∂_wΔA, ∂_qΔA with
  * Richardson differences of core's ΔA to 1e-9; expect degradation only within ~1% of the horizon.
  * Caveat: the wave's order-1 α is 4π a₁ l (d−3)/((d−1)(d−2)) — zero at d = 3, where T_ent⁽¹⁾ is infinite.
+ *
+ * Charged brane (one parameter: w = zh^{−d} at fixed q; the chemical potential conjugate to the charge is not
+ * computed): ê = l(d−1)(1+q²) w, and ΔA⁽ⁿ⁾ = l^{2−d} Σ_{K≤nd} c_K (l/zh)^K (series/charged.ts) gives
+ *   ∂_wΔA = l² Σ_K (K/d) c_K x^{K−d},  x = l/zh,   α = 4π ∂_wΔA / (l(d−1)(1+q²)),
+ * so for charged the arrays of FirstLawSeries run over every power of x = l/zh (not (l/zh)^d) up to nd − d;
+ * at first order α = l/c_d, the BNTU value, for every q. Exact: ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA, ∂_zh by the
+ * extremality formula above.
  */
 import { HoloError } from './errors';
 import { solveStrip } from './strip';
@@ -67,7 +74,7 @@ function familyOf(bulk: Bulk): Family {
 		case 'wave':
 			return { kind: 'wave', d, w: 0, q: Math.pow(p.zp, -d), sign: 1, scale: p.zp };
 		case 'charged':
-			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 };
+			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 as number };
 		default:
 			throw new HoloError(`the first law is defined here for brane, boosted, wave and charged, not ${bulk.name}`, 'bulk');
 	}
@@ -151,12 +158,13 @@ export function coefficientTable(d: number, n: number): number[][] {
 function energyMomentumSlopes(F: Family): { E1: number; E2: number; P1: number; P2: number } {
 	const d = F.d;
 	if (F.kind === 'wave') return { E1: d - 1, E2: d, P1: d / 2, P2: d };
+	if (F.kind === 'charged') return { E1: (d - 1) * (1 + (F.q2 as number)), E2: 0, P1: 0, P2: 0 };
 	const root = Math.sqrt(F.q * (F.q + F.w));
 	return { E1: d - 1, E2: d, P1: root > 0 ? (d * F.q) / (2 * root) : 0, P2: root > 0 ? (d * (2 * F.q + F.w)) / (2 * root) : Infinity };
 }
 
 export interface FirstLawSeries {
-	/** the expansion variable x = (l/zh)^d, or (l/zp)^d for the wave */
+	/** the expansion variable x = (l/zh)^d, or (l/zp)^d for the wave; charged: x = l/zh (every power up to nd − d) */
 	x: number;
 	variable: string;
 	/** α = l Σ alpha[i] x^i, ζ = l Σ zeta[i] x^i (i = 0…n−1) */
@@ -190,7 +198,7 @@ export interface FirstLawCoefficients {
 export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries {
 	checkOrder(n);
 	const F = familyOf(bulk);
-	if (F.kind === 'charged') throw new HoloError('charged has no closed-form series: use o=exact', 'o', 'o=exact');
+	if (F.kind === 'charged') return chargedSeries(bulk, F, l, n);
 	// static bulks need only a_k(0) = c_k0, which core also serves at d = 2 (BTZ closed form)
 	const c = F.kind === 'static' ? seriesCoeffs(bulk, n).map((t) => [t.value]) : coefficientTable(F.d, n);
 	const kappa = F.kind === 'wave' ? Infinity : F.w > 0 ? F.q / F.w : 0;
@@ -228,6 +236,19 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	const x = Math.pow(l / F.scale, F.d);
 	const terms = seriesCoeffs(bulk, n);
 	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q, terms };
+}
+
+/** Charged brane at fixed q, order n, in x = l/zh (module comment). */
+function chargedSeries(bulk: Bulk, F: Family, l: number, n: number): FirstLawSeries {
+	const d = F.d;
+	const terms = seriesCoeffs(bulk, n);
+	const W = new Array<number>(n * d - d + 1).fill(0);
+	for (const t of terms) W[(t.power as number) - d] += ((t.power as number) / d) * t.value;
+	const { E1 } = energyMomentumSlopes(F);
+	const alpha = W.map((x) => (4 * Math.PI * x) / E1);
+	const zero = W.map(() => 0);
+	const tent = reciprocalSeries(alpha);
+	return { x: l / F.scale, variable: '(l/z_h)', alpha, zeta: zero, tent, mu: zero.slice(), W, Q: zero.slice(), terms };
 }
 
 /** 1/Σ a_i x^i to the same length (a_0 ≠ 0). */
@@ -280,7 +301,7 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, Aw, Aq, series };
 }
 
-/** Charged brane at fixed q: α = 4π ∂_zhΔA / ∂_zh ê, ê = l(d−1)(1+q²)/zh^d. */
+/** Charged brane at fixed q: α = 4π ∂_zhΔA / ∂_zh ê, ê = l(d−1)(1+q²)/zh^d; Aw = ∂_wΔA, w = zh^{−d}. */
 function chargedExact(bulk: Bulk, F: Family, l: number): FirstLawCoefficients {
 	const sol = solveStrip(bulk.slice, l);
 	const zh = F.zh as number;
@@ -289,7 +310,8 @@ function chargedExact(bulk: Bulk, F: Family, l: number): FirstLawCoefficients {
 	const dA = areaParameterDerivative(bulk.slice, sol.point, df, []);
 	const de = (-F.d * l * (F.d - 1) * (1 + (F.q2 as number))) / Math.pow(zh, F.d + 1);
 	const alpha = (4 * Math.PI * dA) / de;
-	return { order: 'exact', l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, Aw: dA, Aq: 0 };
+	const Aw = (-dA * Math.pow(zh, F.d + 1)) / F.d;
+	return { order: 'exact', l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, Aw, Aq: 0 };
 }
 
 export interface TentResult {
@@ -349,19 +371,13 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 		const rhs = co.alpha * dE + co.zeta * dP;
 		const lhs = (ref.Aw * dw + ref.Aq * dq) / (4 * G);
 		const exact = (ex.Aw * dw + ex.Aq * dq) / (4 * G);
-		const n = order as number;
-		const residual = next ? (l * l * Math.pow(next.x, n) * (next.W[n] * dw + next.Q[n] * dq)) / (4 * G) : lhs - rhs;
+		// the terms order n+1 adds: index n for the one-power bulks, every power of l/zh in (nd − d, nd] for charged
+		let add = 0;
+		if (next) for (let i = co.series!.W.length; i < next.W.length; i++) add += Math.pow(next.x, i) * (next.W[i] * dw + next.Q[i] * dq);
+		const residual = next ? (l * l * add) / (4 * G) : lhs - rhs;
 		return { lhs, rhs, residual, residualExact: exact - rhs };
 	};
-	if (F.kind === 'charged') {
-		// one parameter (zh at fixed q): report per unit δ ln zh = −1/d, like the scale direction
-		const zh = F.zh as number;
-		const s = zh / F.d;
-		const dE = (-(F.d - 1) * l * (1 + (F.q2 as number)) * -F.d * s) / (Math.pow(zh, F.d + 1) * 16 * Math.PI * G);
-		const rhs = co.alpha * dE;
-		const lhs = (-co.Aw * s) / (4 * G);
-		return { ...co, G, scale: { lhs, rhs, residual: lhs - rhs, residualExact: lhs - rhs } };
-	}
+	// charged: one parameter, δw = w (δ ln zh = −1/d at fixed q), like the scale direction of the others
 	const scale = dir(F.w, F.q);
 	const shape = F.kind === 'boosted' ? dir(0, F.q) : F.kind === 'wave' ? dir(F.q, 0) : undefined;
 	return { ...co, G, scale, shape };
