@@ -1,6 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { cd, deltaArea, deltaAreaSeries, makeBulk, seriesCoeffs, seriesPowers, seriesRadius, seriesWarning, validity } from '../../../src/lib/holo/index';
 import { chargedPowers } from '../../../src/lib/holo/series/charged';
+import { exactChargedTerms } from '../../../src/lib/holo/series/exact-charged';
+import { atomValues } from '../../../src/lib/holo/series/exact-latex';
+import { evaluateTerms } from '../../../src/lib/holo/series/laurent';
 import fx from '../../fixtures/holo/charged_series.json';
 import { expectAbs, expectRel } from './check';
 
@@ -99,9 +102,21 @@ describe('validity, radius and warnings for charged', () => {
 		expect(seriesWarning(b, 0.5, 0)).toBeUndefined();
 		expect(deltaAreaSeries(b, 0.3, 0)).toBe(0);
 	});
-	it('LaTeX: the q² polynomial, marked ≈ (decimals), with the power of l/zh', () => {
+	it('LaTeX: exact q² polynomial in π and B(s/m, ½) to order 6 (its value matches the double c_K), decimals marked ≈ beyond', () => {
+		for (const d of [3, 4, 7]) {
+			const b = makeBulk('charged', { d, zh: 1, q: 0.5 });
+			const c = seriesCoeffs(b, 7);
+			const terms = exactChargedTerms(d, 6);
+			for (const t of c) {
+				if (t.power! <= 6 * d) {
+					expect(t.exact, `d=${d} K=${t.power}`).toBe(true);
+					const tol = d === 3 ? 1e-11 : 2e-12; // the doubles' inversion cancellation (coeffs.ts)
+					expectRel(`d=${d} K=${t.power}: exact form at q² = 0.25`, evaluateTerms(terms.get(t.power!)!, atomValues(d, 0.25)), t.value, tol, 'exact algebra vs doubles');
+				} else expect(t.latex, `d=${d} K=${t.power}`).toMatch(/^\\approx .*exact form computed to order 6/);
+			}
+		}
+		// the q² term of d = 4 (K = 6) is a single monomial in the atoms, times q²
 		const c = seriesCoeffs(makeBulk('charged', { d: 4, zh: 1, q: 0.5 }), 2);
-		expect(c.map((t) => t.exact)).toEqual([false, false, false]);
-		expect(c[1].latex).toMatch(/^\\approx .*q\^\{2\}.*\(l\/z_h\)\^\{6\}/);
+		expect(c[1].latex).toMatch(/^-\\frac\{.*\\mathrm\{B\}\(\\tfrac\{1\}\{6\},\\tfrac\{1\}\{2\}\).*\}\\,q\^\{2\}$/);
 	});
 });

@@ -21,6 +21,7 @@ import { beta } from '../special/beta';
  * so the q² term ζ^m first enters at order 2 (m ≤ 2d). d = 2 needs none of this: m = d and the charge drops
  * out of f (f = 1 − (z/zh)²), so the charged brane is the BTZ brane there (series/index.ts delegates).
  *
+ * LaTeX: exact-charged.ts (the same computation over ℚ in q², π and B(s/m, ½)), exact to order 6.
  * Accuracy in doubles: q = 0 reproduces the brane's a_k to ≤ 1e−12 and q = 0.5, d = 4 the 40-digit mpmath
  * expansion (tests/fixtures/holo/charged_runner.py) to ≤ 1e−12 (measured in series-charged.test.ts).
  */

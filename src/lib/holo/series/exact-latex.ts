@@ -114,12 +114,16 @@ function cmpExp(a: number[], b: number[]): number {
 	return 0;
 }
 
+function kappaPower(r: number): string {
+	return r === 1 ? '\\kappa' : `\\kappa^{${r}}`;
+}
+
 /**
  * Canonical form: content C = ±gcd(numerators)/lcm(denominators) with the sign of the first term,
  * common monomial = componentwise minimum of the exponents, terms sorted by κ power then by exponent
  * vectors (π first, then B(1/m, ½), …) in descending order.
  */
-export function formatTerms(ts: Term[], d: number, kappa: boolean): string {
+export function formatTerms(ts: Term[], d: number, kappa: boolean, atom0: (r: number) => string = kappaPower): string {
 	if (ts.length === 0) return '0';
 	const n = ts[0].e.length;
 	const lo = new Array<number>(n).fill(Infinity);
@@ -148,12 +152,12 @@ export function formatTerms(ts: Term[], d: number, kappa: boolean): string {
 	}
 	const single = ints.length === 1 && ints[0].k === 0;
 	if (single) return front === '1' ? '1' : front === '-1' ? '-1' : front;
-	const kap = (r: number) => (r === 0 ? '' : r === 1 ? '\\kappa' : `\\kappa^{${r}}`);
+	const kap = (r: number) => (r === 0 ? '' : atom0(r));
 	const body = [...groups.entries()]
 		.map(([r, g], j) => {
 			const s = sumLatex(d, g);
 			const inner = g.length > 1 || r === 0 ? (g.length > 1 && kappa && groups.size > 1 ? `\\left(${s}\\right)` : s) : s;
-			const txt = r > 0 && (inner === '1' || inner === '-1') ? `${inner.slice(0, -1)}\\kappa${r > 1 ? `^{${r}}` : ''}` : `${inner}${kap(r)}`;
+			const txt = r > 0 && (inner === '1' || inner === '-1') ? `${inner.slice(0, -1)}${kap(r)}` : `${inner}${kap(r)}`;
 			return j === 0 || txt.startsWith('-') ? (j === 0 ? txt : ` ${txt.replace(/^-/, '- ')}`) : ` + ${txt}`;
 		})
 		.join('');

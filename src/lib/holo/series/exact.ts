@@ -27,7 +27,7 @@ export interface ExactSeries {
 	a: Term[][];
 }
 
-function nAtoms(d: number): number {
+export function nAtoms(d: number): number {
 	return d; // κ, π, B_1..B_{d−2}
 }
 
@@ -60,7 +60,7 @@ function betaHalfAtom(d: number, r: number): LPoly {
 }
 
 /** B(r/m, ½ − n)/m. */
-function betaShifted(d: number, r: number, n: number): LPoly {
+export function betaShifted(d: number, r: number, n: number): LPoly {
 	const m = 2 * (d - 1);
 	// ∏ (x + ½ − k)/(½ − k) with x = r/m: (2r + m − 2km)/(m(1 − 2k))
 	let c: Fraction = rat(1, m);
@@ -70,7 +70,7 @@ function betaShifted(d: number, r: number, n: number): LPoly {
 }
 
 /** Binomial coefficient C(a, k) for a rational a = an/ad. */
-function binomRat(an: number, ad: number, k: number): Fraction {
+export function binomRat(an: number, ad: number, k: number): Fraction {
 	let r: Fraction = rat(1);
 	for (let i = 0; i < k; i++) r = ratMul(r, fraction(BigInt(an - i * ad), BigInt(ad * (i + 1))));
 	return r;
@@ -82,14 +82,14 @@ function zeros(M: number, N: number): Series {
 	return Array.from({ length: M + 1 }, () => zero(N));
 }
 
-function mulSeries(A: Series, B: Series, M: number): Series {
+export function mulSeries(A: Series, B: Series, M: number): Series {
 	const out = zeros(M, A[0].n);
 	for (let i = 0; i <= M; i++) for (let j = 0; i + j <= M; j++) addProduct(out[i + j], A[i], B[j]);
 	return out.map(normalize);
 }
 
 /** P^α, P₀ = 1, integer α (Miller's recurrence, as in coeffs.ts). */
-function powSeries(P: Series, alpha: number, M: number, N: number): Series {
+export function powSeries(P: Series, alpha: number, M: number, N: number): Series {
 	const Q = zeros(M, N);
 	Q[0] = monomial(N, rat(1));
 	for (let n = 1; n <= M; n++) {
@@ -99,7 +99,7 @@ function powSeries(P: Series, alpha: number, M: number, N: number): Series {
 	return Q;
 }
 
-function derivative(A: Series): Series {
+export function derivative(A: Series): Series {
 	const out = A.slice(1).map((p, k) => scale(p, rat(k + 1)));
 	out.push(zero(A[0].n));
 	return out;

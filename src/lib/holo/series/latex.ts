@@ -2,6 +2,7 @@ import type { Bulk } from '../types';
 import { btzCoeff } from './btz';
 import { EXACT_ORDER, exactLatex } from './exact-latex';
 import type { ExactKind } from './exact';
+import { EXACT_CHARGED_ORDER, exactChargedLatex } from './exact-charged';
 
 /**
  * LaTeX of a_k. d = 2: Bernoulli numbers, rational. d ≥ 3: the exact form in π and B(s/m, ½) from
@@ -27,16 +28,16 @@ export function coeffLatex(bulk: Bulk, k: number, value: number, poly?: number[]
 }
 
 /**
- * LaTeX of the charged brane's c_K (coefficient of l^{2−d}(l/zh)^K) at the bulk's q: the polynomial in q²
- * with 15-digit decimal coefficients (marked ≈), and its value at this q. The exact form in π and B(s/m, ½)
- * exists (same atoms as the brane) but is not carried out for the charged brane.
+ * LaTeX of the charged brane's c_K (coefficient of l^{2−d}(l/zh)^K) as a polynomial in q²: the exact form in
+ * π and B(s/m, ½) (exact-charged.ts) for K ≤ EXACT_CHARGED_ORDER·d, beyond it 15-digit decimals marked ≈
+ * with a note. The value at the bulk's q is the SeriesCoeff's `value`.
  */
 export function chargedLatex(bulk: Bulk, K: number, poly: number[]): { latex: string; exact: boolean } {
-	const q2 = bulk.params.q2 as number;
+	const d = bulk.d;
+	if (K <= EXACT_CHARGED_ORDER * d) return { latex: exactChargedLatex(d, K), exact: true };
 	const terms = poly.map((c, r) => (r === 0 ? sci(c) : `${sci(c)}\\,q^{${2 * r}}`)).filter((_, r) => poly[r] !== 0);
-	const value = poly.reduceRight((s, c) => s * q2 + c, 0);
 	const body = terms.length ? terms.join(' + ').replace(/\+ -/g, '- ') : '0';
-	return { latex: `\\approx ${body}\\;(= ${sci(value)}\\text{ at } q^{2} = ${q2})\\quad\\text{(term }(l/z_h)^{${K}}\\text{; decimals)}`, exact: false };
+	return { latex: `\\approx ${body}\\quad\\text{(exact form computed to order ${EXACT_CHARGED_ORDER})}`, exact: false };
 }
 
 function sci(x: number): string {
