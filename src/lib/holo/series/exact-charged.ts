@@ -11,8 +11,9 @@ import { chargedPowers } from './charged';
  * atoms by exact.ts's `betaShifted`. Checked against the double-precision c_K in series-charged.test.ts.
  *
  * Cost: the ζ-series is d times longer than the brane's t-series (mostly empty entries), and each c_K is a
- * polynomial in q²; cold, order 10 takes < 0.1 s for d ≤ 10 (order 14 ≲ 0.5 s), but the strings grow past 10⁵ characters by order 10 at d ≥ 5, so the LaTeX is exact to
- * EXACT_CHARGED_ORDER and decimal beyond (series/latex.ts).
+ * polynomial in q²; cold, order 10 takes < 0.1 s for d ≤ 10 (order 14 ≲ 0.5 s), but the strings grow past
+ * 10⁵ characters by order 10 at d ≥ 5, so the LaTeX is exact to EXACT_CHARGED_ORDER and decimal beyond
+ * (series/latex.ts).
  */
 export const EXACT_CHARGED_ORDER = 6;
 
