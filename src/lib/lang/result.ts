@@ -43,7 +43,8 @@ export interface Download {
 export interface SeriesResult {
 	kind: 'series';
 	label: string;
-	terms: { k: number; coeff: number; latex: string }[];
+	/** `power`: the exponent of l/scale the term multiplies (k·d, except for the charged brane's mixed powers) */
+	terms: { k: number; coeff: number; latex: string; power?: number }[];
 	latex: string;
 	order?: Order;
 	warning?: string;

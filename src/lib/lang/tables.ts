@@ -88,10 +88,10 @@ export function tableRef(t: TableResult): StepRef | undefined {
 	return { ...(typeof last === 'number' ? { value: last } : {}), fields, ...(order !== undefined ? { order } : {}) };
 }
 
-/** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series. */
+/** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series (each term at its own power of ℓ/scale). */
 export function seriesLatex(st: V.SeriesTerms): string {
 	const d = st.d;
-	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{z_h}\\right)^{${t.k * d}}`);
+	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{${st.scale}}\\right)^{${t.power}}`);
 	const pre = d === 2 ? '' : `\\ell^{${2 - d}}`;
 	return `\\Delta A = ${pre}\\Big[${terms.join(' + ') || '0'}\\Big]`;
 }

@@ -185,14 +185,21 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 export const DEFAULT_TOL = 1e-3;
 
 export interface SeriesTerms {
-	terms: { k: number; coeff: number; latex: string }[];
+	terms: { k: number; coeff: number; latex: string; power: number }[];
 	d: number;
+	/** the length the series variable is measured in: z_h, or z_p for the plane wave */
+	scale: 'z_h' | 'z_p';
 }
 
 export function seriesAt(p: Point): SeriesTerms {
 	const n = requireSeries(p);
 	const c = holo.seriesCoeffs(p.bulk, n);
-	return { terms: c.map((t) => ({ k: t.k, coeff: t.value, latex: t.latex })), d: p.bulk.d };
+	const d = p.bulk.d;
+	return {
+		terms: c.map((t) => ({ k: t.k, coeff: t.value, latex: t.latex, power: t.power ?? t.k * d })),
+		d,
+		scale: p.bulk.name === 'wave' ? 'z_p' : 'z_h'
+	};
 }
 
 export interface CheckAt {

@@ -101,9 +101,24 @@ describe('records name their fields as API.md lists them', () => {
 		const r = new Pad().run('use boosted d=4 zh=1 v=0.6; coeffs darea o=4 | tex').results[1] as SeriesResult;
 		expect(r.kind).toBe('series');
 		const c = holo.seriesCoeffs(boosted(0.6), 4);
-		expect(r.terms).toEqual(c.map((t) => ({ k: t.k, coeff: t.value, latex: t.latex })));
+		expect(r.terms).toEqual(c.map((t) => ({ k: t.k, coeff: t.value, latex: t.latex, power: 4 * t.k })));
 		expect(r.latex).toMatch(/^\\Delta A = \\ell\^\{-2\}\\Big\[/);
 		expect(r.order).toBe(4);
+	});
+
+	it('coeffs of the charged brane carry each term at its own power of l/zh (d and 2(d−1) mix)', () => {
+		const r = new Pad().run('use charged d=4 zh=1 q=0.5; coeffs darea o=3').results[1] as SeriesResult;
+		const c = holo.seriesCoeffs(holo.makeBulk('charged', { d: 4, zh: 1, q: 0.5 }), 3);
+		expect(r.terms.map((t) => t.power)).toEqual(c.map((t) => t.power));
+		// order 3 keeps every power ≤ 3d = 12: 4, 6, 8, 10, 12 (the q² term enters at 2(d−1) = 6)
+		expect(r.terms.map((t) => t.power)).toEqual([4, 6, 8, 10, 12]);
+		expect(r.latex).toContain('\\left(\\frac{\\ell}{z_h}\\right)^{6}');
+	});
+
+	it('writes the plane wave series in l/zp', () => {
+		const r = new Pad().run('use wave d=4 zp=1; coeffs darea o=2').results[1] as SeriesResult;
+		expect(r.latex).toContain('\\frac{\\ell}{z_p}');
+		expect(r.latex).not.toContain('z_h');
 	});
 });
 
