@@ -12,6 +12,18 @@ export interface GaussRule {
 
 const cache = new Map<number, GaussRule>();
 
+/** P_n(z) and P_n'(z) by the three-term recurrence (P_{n−1} falls out of the same loop). */
+function legendre(n: number, z: number): { p: number; dp: number } {
+	let p0 = 1;
+	let p1 = z;
+	for (let k = 2; k <= n; k++) {
+		const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
+		p0 = p1;
+		p1 = p2;
+	}
+	return { p: p1, dp: (n * (z * p1 - p0)) / (z * z - 1) };
+}
+
 export function gaussLegendre(n: number): GaussRule {
 	const hit = cache.get(n);
 	if (hit) return hit;
@@ -20,29 +32,13 @@ export function gaussLegendre(n: number): GaussRule {
 	const m = Math.floor((n + 1) / 2);
 	for (let i = 0; i < m; i++) {
 		let z = Math.cos((Math.PI * (i + 0.75)) / (n + 0.5));
-		let dp = 0;
 		for (let it = 0; it < 100; it++) {
-			let p0 = 1;
-			let p1 = z;
-			for (let k = 2; k <= n; k++) {
-				const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
-				p0 = p1;
-				p1 = p2;
-			}
-			if (n === 1) p0 = 1;
-			dp = (n * (z * p1 - p0)) / (z * z - 1);
-			const dz = p1 / dp;
+			const { p, dp } = legendre(n, z);
+			const dz = p / dp;
 			z -= dz;
 			if (Math.abs(dz) < 1e-16) break;
 		}
-		let p0 = 1;
-		let p1 = z;
-		for (let k = 2; k <= n; k++) {
-			const p2 = ((2 * k - 1) * z * p1 - (k - 1) * p0) / k;
-			p0 = p1;
-			p1 = p2;
-		}
-		dp = (n * (z * p1 - p0)) / (z * z - 1);
+		const { dp } = legendre(n, z);
 		x[i] = -z;
 		x[n - 1 - i] = z;
 		w[i] = w[n - 1 - i] = 2 / ((1 - z * z) * dp * dp);

@@ -1,4 +1,5 @@
 import { beta } from '../special/beta';
+import { addMul } from './coeffs';
 
 /**
  * Small-width series of the charged brane (planar Reissner–Nordström–AdS, d ≥ 3):
@@ -49,14 +50,6 @@ function binom(a: number, k: number): number {
 	return r;
 }
 
-function addMul(out: Poly, a: Poly, b: Poly, c: number): void {
-	const N = out.length - 1;
-	for (let i = 0; i < a.length; i++) {
-		const x = a[i];
-		if (x === 0) continue;
-		for (let j = 0; j + i <= N && j < b.length; j++) out[i + j] += c * x * b[j];
-	}
-}
 
 const isZero = (p: Poly) => p.every((x) => x === 0);
 

@@ -23,7 +23,8 @@ function zeros(M: number, N: number): Series {
 	return Array.from({ length: M + 1 }, () => new Float64Array(N + 1));
 }
 
-function addMul(out: Poly, a: Poly, b: Poly, c: number): void {
+/** out += c·a·b, truncated at out's length (polynomials in one parameter, lowest power first). */
+export function addMul(out: Float64Array, a: Float64Array, b: Float64Array, c: number): void {
 	const N = out.length - 1;
 	for (let i = 0; i < a.length; i++) {
 		const x = a[i];
