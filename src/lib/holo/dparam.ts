@@ -1,7 +1,7 @@
 import { HoloError } from './errors';
 import { gaussLegendre } from './numeric/gauss';
-import { solveStrip } from './strip';
-import type { Bulk, PowerTerm } from './types';
+import { solveStrip, type TurningPoint } from './strip';
+import type { Bulk, PowerTerm, Slice } from './types';
 
 /**
  * d A_fin / d param at fixed width l, param ∈ {zh, v, q} (zp for the wave), per unit transverse volume.
@@ -44,20 +44,17 @@ function termDerivatives(bulk: Bulk, param: string): { df: PowerTerm[]; dh: Powe
 
 const GL = 24;
 
-/** d A_fin/d param (= d ΔA/d param) at fixed l. */
-export function dAreaDParam(bulk: Bulk, l: number, param: string): number {
-	if (!['brane', 'boosted', 'charged', 'wave'].includes(bulk.name)) {
-		throw new HoloError(`dAreaDParam is for brane, boosted, charged and wave (got ${bulk.name})`, 'bulk');
-	}
-	const { df, dh } = termDerivatives(bulk, param);
-	const sol = solveStrip(bulk.slice, l);
-	const { d } = bulk;
+/**
+ * ∂_λ A_fin at fixed l on the solution with turning point `tp`, for ∂_λ f and ∂_λ h given as power terms in
+ * z/scale (the integral of the module comment). The first-law code uses it with its own variations.
+ */
+export function areaParameterDerivative(s: Slice, tp: TurningPoint, df: PowerTerm[], dh: PowerTerm[]): number {
+	const d = s.d;
 	const m = 2 * (d - 1);
-	const s = bulk.slice;
 	const scale = s.scale ?? 1;
-	const zs = sol.zstar;
-	const horizon = s.zh !== undefined;
-	const lz = horizon ? Math.log1p(-sol.point.eta) : Math.log(zs / scale);
+	const zs = tp.z;
+	const horizon = s.zh !== undefined && s.scale === s.zh;
+	const lz = horizon ? Math.log1p(-tp.eta) : Math.log(zs / scale);
 	const fT = (s.fTerms ?? []).filter((x) => x.p !== 0);
 	const hT = (s.hTerms ?? []).filter((x) => x.p !== 0);
 	const A = fT.map((x) => x.c * Math.exp(x.p * lz));
@@ -99,4 +96,13 @@ export function dAreaDParam(bulk: Bulk, l: number, param: string): number {
 		}
 	}
 	return Math.pow(zs, 2 - d) * sum;
+}
+
+/** d A_fin/d param (= d ΔA/d param) at fixed l. */
+export function dAreaDParam(bulk: Bulk, l: number, param: string): number {
+	if (!['brane', 'boosted', 'charged', 'wave'].includes(bulk.name)) {
+		throw new HoloError(`dAreaDParam is for brane, boosted, charged and wave (got ${bulk.name})`, 'bulk');
+	}
+	const { df, dh } = termDerivatives(bulk, param);
+	return areaParameterDerivative(bulk.slice, solveStrip(bulk.slice, l).point, df, dh);
 }

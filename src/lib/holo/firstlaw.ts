@@ -39,10 +39,9 @@
  */
 import { HoloError } from './errors';
 import { solveStrip } from './strip';
-import { gaussLegendre } from './numeric/gauss';
+import { areaParameterDerivative } from './dparam';
 import { boostedCoeffPolys, seriesCoeffs } from './series/index';
-import type { Bulk, PowerTerm, SeriesCoeff, Slice } from './types';
-import type { TurningPoint } from './strip';
+import type { Bulk, SeriesCoeff } from './types';
 
 export type Order = number | 'exact';
 
@@ -87,54 +86,8 @@ function checkOrder(order: Order): void {
 	}
 }
 
-/** ∂_λ A at fixed l for ∂_λ f, ∂_λ h given as power terms in z/scale (module comment). */
-export function areaParameterDerivative(slice: Slice, tp: TurningPoint, df: PowerTerm[], dh: PowerTerm[]): number {
-	const d = slice.d;
-	const m = 2 * (d - 1);
-	const scale = slice.scale ?? 1;
-	const horizon = slice.zh !== undefined && slice.scale === slice.zh;
-	const lz = horizon ? Math.log1p(-tp.eta) : Math.log(tp.z / scale);
-	const fT = (slice.fTerms ?? []).filter((t) => t.p !== 0 && t.c !== 0);
-	const hT = (slice.hTerms ?? []).filter((t) => t.p !== 0 && t.c !== 0);
-	const A = fT.map((t) => t.c * Math.exp(t.p * lz));
-	const B = hT.map((t) => t.c * Math.exp(t.p * lz));
-	let fstar = horizon ? 0 : 1;
-	let slope = 0;
-	fT.forEach((t, j) => {
-		fstar += horizon ? t.c * Math.expm1(t.p * lz) : A[j];
-		slope -= t.p * A[j];
-	});
-	const hstar = 1 + B.reduce((s, b) => s + b, 0);
-	const E = df.map((t) => t.c * Math.exp(t.p * lz));
-	const Hd = dh.map((t) => t.c * Math.exp(t.p * lz));
-	const a = slope > fstar ? Math.sqrt(fstar / slope) : 1;
-	const smax = Math.asinh(1 / a);
-	const panels = Math.max(1, Math.ceil(smax / 1.4));
-	const hw = smax / panels / 2;
-	const rule = gaussLegendre(24);
-	let sum = 0;
-	for (let k = 0; k < panels; k++) {
-		for (let i = 0; i < 24; i++) {
-			const sig = (2 * k + 1) * hw + hw * rule.x[i];
-			const s = a * Math.sinh(sig);
-			const jac = 2 * s * a * Math.cosh(sig) * hw * rule.w[i];
-			const lu = Math.log1p(-s * s);
-			let F = fstar;
-			fT.forEach((t, j) => (F += A[j] * Math.expm1(t.p * lu)));
-			let N = Math.expm1(-m * lu);
-			hT.forEach((t, j) => (N += B[j] * Math.expm1((t.p - m) * lu)));
-			let dF = 0;
-			df.forEach((t, j) => (dF += E[j] * Math.exp(t.p * lu)));
-			let dH = 0;
-			dh.forEach((t, j) => (dH += Hd[j] * Math.exp(t.p * lu)));
-			if (!(F > 0) || !(N > 0)) throw new HoloError(`no strip surface below z*=${tp.z}`, 'l');
-			const um = Math.exp(-m * lu);
-			sum += jac * ((dH * um) / Math.sqrt(F * N) - (dF * Math.sqrt(N)) / (F * Math.sqrt(F)));
-		}
-	}
-	void hstar;
-	return Math.pow(tp.z, 2 - d) * sum;
-}
+// the extremality integral ∂_λ A at fixed l lives in dparam.ts, shared with dAreaDParam
+export { areaParameterDerivative };
 
 /** Exact ∂ΔA/∂w and ∂ΔA/∂q (the vacuum part does not depend on w, q). */
 function exactGradient(bulk: Bulk, l: number): { Aw: number; Aq: number; zstar: number } {
