@@ -1,4 +1,4 @@
-import { isHttpError, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
+import { error, isHttpError, json, type RequestEvent, type RequestHandler } from '@sveltejs/kit';
 import { z, type ZodType } from 'zod';
 
 /** An expected API failure with the `{ ok:false, error }` body of API.md. */
@@ -50,4 +50,17 @@ export async function readBody<S extends ZodType>(event: RequestEvent, schema: S
 		failure(400, `Invalid body: ${issues.map((i) => (i.path ? `${i.path}: ` : '') + i.message).join('; ')}`, { issues });
 	}
 	return parsed.data;
+}
+
+/**
+ * Runs server work for a page load or form action: an expected failure (a missing or foreign pad is the same
+ * 404) becomes SvelteKit's page error with its status and message, as the API would answer.
+ */
+export function orPageError<T>(work: () => T): T {
+	try {
+		return work();
+	} catch (e) {
+		if (e instanceof ApiFailure) error(e.status, e.message);
+		throw e;
+	}
 }

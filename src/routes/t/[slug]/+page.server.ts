@@ -1,6 +1,6 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { ApiFailure } from '$lib/server/http';
+import { orPageError } from '$lib/server/http';
 import { findSharedPad, forkPad, transcriptOf } from '$lib/server/transcripts';
 import katex from 'katex';
 import { useKatex } from '$lib/client/tex';
@@ -8,17 +8,8 @@ import { useKatex } from '$lib/client/tex';
 // typeset formulas in the first paint, as the console does (its layout registers KaTeX for the (app) pages)
 useKatex(katex);
 
-function sharedOr404(slug: string) {
-	try {
-		return findSharedPad(slug);
-	} catch (e) {
-		if (e instanceof ApiFailure) error(e.status, e.message);
-		throw e;
-	}
-}
-
 export const load: PageServerLoad = ({ params, locals }) => {
-	const transcript = transcriptOf(sharedOr404(params.slug));
+	const transcript = transcriptOf(orPageError(() => findSharedPad(params.slug)));
 	const role = locals.user?.role;
 	return { slug: params.slug, transcript, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
 };
@@ -29,7 +20,7 @@ export const actions: Actions = {
 		const user = locals.user;
 		if (!user) redirect(303, `/signin?next=/t/${encodeURIComponent(params.slug)}`);
 		if (user.role !== 'member' && user.role !== 'admin') return fail(403, { message: 'Readers cannot fork; ask an admin to make you a member.' });
-		const pad = forkPad(sharedOr404(params.slug), user);
+		const pad = forkPad(orPageError(() => findSharedPad(params.slug)), user);
 		redirect(303, `/pads/${pad.id}`);
 	}
 };

@@ -1,23 +1,13 @@
-import { error, fail, redirect } from '@sveltejs/kit';
+import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { ApiFailure } from '$lib/server/http';
+import { orPageError } from '$lib/server/http';
 import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad } from '$lib/server/pads';
 import type { BulkState, Result, UnitsState } from '$lib/lang/result';
 import type { StepData } from '$lib/client/types';
 
-/** Any id that is not the user's own or invited pad is the same 404, as in the API. */
-function readable<T>(f: () => T): T {
-	try {
-		return f();
-	} catch (e) {
-		if (e instanceof ApiFailure) error(e.status, e.message);
-		throw e;
-	}
-}
-
 export const load: PageServerLoad = async ({ locals, params }) => {
 	const user = locals.user!;
-	const pad = readable(() => findReadablePad(user, params.id));
+	const pad = orPageError(() => findReadablePad(user, params.id));
 	const steps: StepData[] = padSteps(pad.id).map((s) => ({
 		id: s.id,
 		n: s.n,
@@ -48,13 +38,13 @@ export const actions: Actions = {
 		const title = String((await request.formData()).get('title') ?? '').trim();
 		if (!title) return fail(400, { message: 'A pad needs a title.' });
 		if (title.length > 120) return fail(400, { message: 'Keep the title under 120 characters.' });
-		renamePad(readable(() => findOwnPad(user, params.id)), title);
+		renamePad(orPageError(() => findOwnPad(user, params.id)), title);
 		return { renamed: title };
 	},
 	delete: async ({ locals, params }) => {
 		const user = locals.user;
 		if (!user || user.role === 'reader') return fail(403, { message: 'Only the pad’s owner may delete it.' });
-		deletePad(readable(() => findOwnPad(user, params.id)));
+		deletePad(orPageError(() => findOwnPad(user, params.id)));
 		const next = listPads(user.id)[0];
 		redirect(303, next ? `/pads/${next.id}` : '/');
 	}

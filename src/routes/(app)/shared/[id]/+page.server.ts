@@ -1,26 +1,17 @@
 import { error, fail, redirect, type RequestEvent } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { z } from 'zod';
-import { ApiFailure } from '$lib/server/http';
+import { ApiFailure, orPageError } from '$lib/server/http';
 import { emailSchema } from '$lib/server/auth/accounts';
 import { findOwnPad, findReadablePad, padSteps } from '$lib/server/pads';
 import { createShare, listShares, revokeShare, transcriptOf } from '$lib/server/transcripts';
 import { invitePerson } from '$lib/server/invites';
 
-function orFail<T>(work: () => T): T {
-	try {
-		return work();
-	} catch (e) {
-		if (e instanceof ApiFailure) error(e.status, e.message);
-		throw e;
-	}
-}
-
 /** The read-only view of a pad for the people invited to it; its owner also manages links and invitations here. */
 export const load: PageServerLoad = ({ params, locals, url }) => {
 	if (!locals.user) redirect(303, `/signin?next=/shared/${encodeURIComponent(params.id)}`);
 	const user = locals.user;
-	const pad = orFail(() => findReadablePad(user, params.id));
+	const pad = orPageError(() => findReadablePad(user, params.id));
 	const isOwner = pad.ownerId === user.id;
 	return {
 		id: pad.id,
@@ -35,7 +26,7 @@ function ownPad(event: RequestEvent) {
 	const user = event.locals.user;
 	if (!user) redirect(303, '/signin');
 	if (user.role === 'reader') error(403, 'Readers cannot share pads.');
-	return { user, pad: orFail(() => findOwnPad(user, event.params.id!)) };
+	return { user, pad: orPageError(() => findOwnPad(user, event.params.id!)) };
 }
 
 const shareForm = z.object({ days: z.union([z.literal(''), z.coerce.number().int().min(1).max(365)]) });
@@ -51,7 +42,7 @@ export const actions: Actions = {
 	revoke: async (event) => {
 		const { pad } = ownPad(event);
 		const slug = String((await event.request.formData()).get('slug') ?? '');
-		orFail(() => revokeShare(pad, slug));
+		orPageError(() => revokeShare(pad, slug));
 		return { message: 'Revoked; that link now answers “not found”.' };
 	},
 	invite: async (event) => {
