@@ -1,7 +1,7 @@
 import { fraction } from './btz';
-import { betaShifted, binomRat, derivative, mulSeries, nAtoms, powSeries } from './exact';
+import { betaShifted, binomRat, derivative, divideByLeading, mulSeries, nAtoms, powSeries } from './exact';
 import { formatTerms } from './exact-latex';
-import { addProduct, addTo, invertMonomial, monomial, normalize, rat, ratMul, terms, zero, type LPoly, type Term } from './laurent';
+import { addProduct, addTo, monomial, normalize, rat, ratMul, terms, zero, type LPoly, type Term } from './laurent';
 import { chargedPowers } from './charged';
 
 /**
@@ -39,12 +39,7 @@ function exactCharged(d: number, n: number): Map<number, Term[]> {
 	W.forEach(normalize);
 	S.forEach(normalize);
 	const W0 = W[0];
-	const iW0 = invertMonomial(W0);
-	const P = W.map((p) => {
-		const o = zero(N);
-		addProduct(o, p, iW0);
-		return normalize(o);
-	});
+	const P = divideByLeading(W, N);
 	const dG = derivative(mulSeries(powSeries(P, d - 2, M, N), S, M));
 	const [w0] = terms(W0);
 	const out = new Map<number, Term[]>();

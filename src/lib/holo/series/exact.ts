@@ -82,6 +82,16 @@ function zeros(M: number, N: number): Series {
 	return Array.from({ length: M + 1 }, () => zero(N));
 }
 
+/** Each coefficient of a series divided by the leading one (a monomial), so the series starts at 1. */
+export function divideByLeading(W: Series, N: number): Series {
+	const inv = invertMonomial(W[0]);
+	return W.map((p) => {
+		const o = zero(N);
+		addProduct(o, p, inv);
+		return normalize(o);
+	});
+}
+
 export function mulSeries(A: Series, B: Series, M: number): Series {
 	const out = zeros(M, A[0].n);
 	for (let i = 0; i <= M; i++) for (let j = 0; i + j <= M; j++) addProduct(out[i + j], A[i], B[j]);
@@ -148,12 +158,7 @@ export function exactSeries(d: number, n: number, kind: ExactKind): ExactSeries 
 	for (let r = 0; r <= M && (withKappa || r === 0); r++) sq[r] = monomial(N, ratMul(rat(2), binomRat(1, 2, r)), { 0: r * kapE });
 	const Wt = mulSeries(W, sq, M);
 	const W0 = Wt[0];
-	const iW0 = invertMonomial(W0);
-	const P = Wt.map((p) => {
-		const o = zero(N);
-		addProduct(o, p, iW0);
-		return normalize(o);
-	});
+	const P = divideByLeading(Wt, N);
 	const G = mulSeries(powSeries(P, d - 2, M, N), S, M);
 	const dG = derivative(G);
 	// W₀ = c₀·∏ atom^{e₀}: its power is applied to the decoded terms (the exponents grow like d·k)
