@@ -5,8 +5,14 @@ import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad }
 import type { BulkState, Result, UnitsState } from '$lib/lang/result';
 import type { StepData } from '$lib/client/types';
 
+/**
+ * The layout redirects a visitor without a session, but SvelteKit runs this load beside the layout's (a
+ * `__data.json` request too), so it checks for itself: a missing session never reaches the pad lookup, and an
+ * existing pad and a missing one answer the same redirect.
+ */
 export const load: PageServerLoad = async ({ locals, params }) => {
-	const user = locals.user!;
+	const user = locals.user;
+	if (!user) redirect(303, `/signin?next=/pads/${encodeURIComponent(params.id)}`);
 	const pad = orPageError(() => findReadablePad(user, params.id));
 	const steps: StepData[] = padSteps(pad.id).map((s) => ({
 		id: s.id,
