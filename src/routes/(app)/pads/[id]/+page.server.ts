@@ -8,11 +8,11 @@ import type { StepData } from '$lib/client/types';
 /**
  * The layout redirects a visitor without a session, but SvelteKit runs this load beside the layout's (a
  * `__data.json` request too), so it checks for itself: a missing session never reaches the pad lookup, and an
- * existing pad and a missing one answer the same redirect.
+ * existing pad and a missing one answer the same redirect (the layout's).
  */
-export const load: PageServerLoad = async ({ locals, params }) => {
+export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const user = locals.user;
-	if (!user) redirect(303, `/signin?next=/pads/${encodeURIComponent(params.id)}`);
+	if (!user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
 	const pad = orPageError(() => findReadablePad(user, params.id));
 	const steps: StepData[] = padSteps(pad.id).map((s) => ({
 		id: s.id,
