@@ -25,8 +25,11 @@ const order = z.union([z.number(), z.literal('exact')]);
  * plain value or a flat record of numbers, so nothing nested or unbounded rides along on an unknown key.
  */
 const extra = z.union([z.number(), z.string().max(2000), z.boolean(), z.null(), numbers]);
-/** an object with exactly these typed fields plus, at most, plain extras */
-const shape = <T extends z.ZodRawShape>(fields: T) => z.object(fields).catchall(extra);
+/**
+ * An object with exactly these typed fields plus, at most, plain extras. Typed as a loose object (extras are
+ * `unknown` to TypeScript): an index signature of `extra` would clash with the named fields' own types.
+ */
+const shape = <T extends z.ZodRawShape>(fields: T) => z.object(fields).catchall(extra) as unknown as z.ZodObject<T, z.core.$loose>;
 
 /** The result types of src/lib/lang/result.ts, field by field: an allow-list, not a loose bag. */
 export const resultSchema = z.discriminatedUnion('kind', [
