@@ -11,7 +11,7 @@
  * find out), after checking the backup the same way; the file it replaces is kept aside, never deleted.
  */
 import Database from 'better-sqlite3';
-import { copyFileSync, existsSync, mkdirSync, renameSync, rmSync, statSync } from 'node:fs';
+import { closeSync, copyFileSync, existsSync, fsyncSync, mkdirSync, openSync, renameSync, rmSync, statSync } from 'node:fs';
 import { basename, dirname, join } from 'node:path';
 
 /** Tables every Bulkpad database has (drizzle's journal among them): a file without them is not one. */
@@ -94,6 +94,16 @@ export function isDatabaseInUse(file: string): boolean {
 	}
 }
 
+/** Flushes a file's (or a folder's entries') data to the disk, so a power cut cannot leave half a restore. */
+function syncPath(path: string) {
+	const fd = openSync(path, 'r');
+	try {
+		fsyncSync(fd);
+	} finally {
+		closeSync(fd);
+	}
+}
+
 /**
  * Puts the checked backup in place of `target` while no process holds `target`; the old file (with any WAL
  * and shared-memory files beside it) is renamed to `<target>.before-restore-<time>` and kept.
@@ -114,6 +124,8 @@ export function restoreDatabase(backup: string, target: string, now = new Date()
 	mkdirSync(dirname(target), { recursive: true });
 	const incoming = join(dirname(target), `.${basename(target)}.restoring`);
 	copyFileSync(backup, incoming);
+	syncPath(incoming);
 	renameSync(incoming, target);
+	syncPath(dirname(target));
 	return { keptAside };
 }
