@@ -194,7 +194,8 @@ export function scalarAt(verb: Verb, p: Point): ScalarAt {
 		case 'zstar':
 			return plain(p.bulk.name === 'soliton' ? solitonSurfaceAt(p).zstar : holo.zstarOf(p.bulk, p.q.l!));
 		case 'width':
-			return plain(holo.widthOf(p.bulk, p.q.zstar!));
+			// a turning point below the cap is by definition the connected surface's
+			return plain(holo.widthOf(p.bulk, p.q.zstar!), p.bulk.name === 'soliton' ? { tag: ' [connected surface]' } : {});
 		case 'area':
 			return plain(ball ? ballArea(p, verb) : stripArea(p));
 		case 'darea':
@@ -337,6 +338,7 @@ export function recordNote(verb: Verb, p: Point): string | undefined {
 	if (verb === 'phases') return 'soliton strip: connected surface below l_c, disconnected (two sheets to the cap) above; dA_dl_jump = ∂A/∂l above l_c minus below';
 	if (verb === 'thermo' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'μ, ρ in the normalisation of the action (R + d(d−1) − F²)/16πG: μ = √((d−1)/(2(d−2))) q/zh, e + p = T s + μ ρ';
 	if (verb === 'energy' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'Q = ρ l, ρ as in thermo';
+	if (verb === 'mi' && p.bulk.name === 'soliton') return 'each strip area is the RT (minimal) one of the connected and disconnected surfaces';
 	return undefined;
 }
 

@@ -133,6 +133,12 @@ describe('soliton answers say their phase; phases verb (item 5)', () => {
 		expect(area.note).toMatch(/l_c = /);
 		expect(first<S>(p.run('entropy l=0.65 phase=disconnected').results).value).toBe(A.solitonDisconnectedArea(P) / 4);
 	});
+	it('width and mi in the soliton say which surface they are about', () => {
+		const p = new Pad();
+		p.run('use soliton d=4');
+		expect(first<S>(p.run('width zstar=0.3').results).label).toMatch(/\[connected surface\]/);
+		expect(first<Rec>(p.run('mi pair l=0.3 gap=0.1').results).note).toMatch(/RT \(minimal\)/);
+	});
 	it('phases gives l_c, l_max and the jump of ∂A/∂l (engine values)', () => {
 		const p = new Pad();
 		p.run('use soliton d=4');
