@@ -3,6 +3,7 @@ import { deltaArea, energy, makeBulk, thermo } from '$lib/holo/index';
 import { firstLaw, firstLawCoefficients, mu } from '$lib/holo/analysis';
 import { chargeCoupling } from '$lib/holo/bulks/charged';
 import { expectAbs, expectRel } from '../check';
+import mp from '../../../fixtures/holo/analysis/charged_firstlaw.json';
 
 // Charged brane, two parameters (zh, q): δΔS = α δΔE + β δΔQ, T_ent = 1/α, μ_Q = −β/α (firstlaw.ts).
 // Normalisation of μ and ρ: bulks/charged.ts (action (1/16πG)∫√−g (R + d(d−1) − F²)).
@@ -60,6 +61,17 @@ describe('charged first law: T_ent ΔS = ΔE − μ_Q ΔQ (derived, checked agai
 			const dS = rich(S, dz, dc);
 			const rhs = r.alpha * rich(E, dz, dc) + r.zeta * rich(Q, dz, dc);
 			expectRel(`charged d=4 q=0.7 l=0.8: δΔS along (δzh, δq) = (${dz}, ${dc})`, dS, rhs, 1e-8, 'Richardson differences');
+		}
+	});
+
+	it('exact α, β, T_ent, μ_Q: derived, checked against an independent mpmath evaluation in the fixture runner (charged_firstlaw.py: 25 digits, direct integrals in z, central differences in zh and q)', () => {
+		for (const r of mp.rows) {
+			const got = firstLawCoefficients(makeBulk('charged', { d: r.d, zh: r.zh, q: r.q }), r.l, 'exact');
+			const at = `charged d=${r.d} q=${r.q} l=${r.l}`;
+			expectRel(`${at} α`, r.alpha, got.alpha, 1e-9, 'mpmath fixture');
+			expectRel(`${at} β`, r.beta, got.zeta, 1e-8, 'mpmath fixture');
+			expectRel(`${at} T_ent`, r.tent, got.tent, 1e-9, 'mpmath fixture');
+			expectRel(`${at} μ_Q`, r.muQ, got.mu, 1e-8, 'mpmath fixture');
 		}
 	});
 
