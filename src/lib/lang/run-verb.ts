@@ -87,7 +87,8 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const shown = { ...base };
 	if (sweptIsBulk) delete shown[swept!.key]; // the table's first column shows it
 	const bulkText = describeBulk({ name: bulkName, params: shown });
-	const sym = SYMBOLS[verb]?.text ?? verb;
+	// a table's label names the charge chemical potential too (a single value's label comes from the engine's answer)
+	const sym = verb === 'mu' && bulkName === 'charged' && (base.d ?? 4) !== 2 ? 'μ_Q' : (SYMBOLS[verb]?.text ?? verb);
 	const results: Result[] = [];
 	let ref: StepRef | undefined;
 

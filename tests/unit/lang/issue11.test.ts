@@ -48,6 +48,7 @@ describe('mu names its chemical potential (items 1, 7)', () => {
 		expect(e.message).toMatch(/no momentum/);
 		expect('mu l=0.5 of=momentum'.slice(e.start, e.end)).toBe('momentum');
 		expect(p.fail('mu l=0.5 of=spin').message).toMatch(/of must be one of charge, momentum/);
+		expect(first<T>(p.run('mu l=0.5,1').results).label).toMatch(/^μ_Q vs l/);
 	});
 	it('boosted: conjugate to ΔP_y; the note says the small-l sign is a convention and the large-l limit μ → v, T_ent → T/γ', () => {
 		const p = new Pad();
