@@ -3,7 +3,8 @@
  *
  * Definition (PHYSICS.md, "First law of entanglement"): with ΔE = l T_tt and ΔP_y = l T^{ty}, α and ζ solve
  * δΔS = α δΔE + ζ δΔP_y for the variations of the bulk's two parameters at fixed l; T_ent = 1/α, μ = −ζ/α.
- * Static bulks (brane, boosted at v = 0, charged at fixed q) use the one-parameter form: α = δΔS/δΔE, μ = 0.
+ * Static bulks (brane, boosted at v = 0, charged at d = 2 with q = 0) use the one-parameter form: α = δΔS/δΔE,
+ * μ = 0. The charged brane (d ≥ 3) has the same two-parameter form with the charge ΔQ in place of ΔP_y.
  *
  * Parameters. The brane, the boosted brane and the wave are one family of slices
  *   f = 1 − w z^d,  h = 1 + q z^d,  w = zh^{−d},  q = γ²v² zh^{−d}   (wave: w = 0, q = zp^{−d}),
@@ -54,7 +55,7 @@ import type { Bulk, SeriesCoeff } from './types';
 
 export type Order = number | 'exact';
 
-/** Where a bulk sits in the (w, q) family, or the charged brane's one-parameter form. */
+/** Where a bulk sits in the (w, q) family, or the charged brane's (w, charge) form. */
 interface Family {
 	kind: 'static' | 'boosted' | 'wave' | 'charged';
 	d: number;
