@@ -45,10 +45,10 @@ const LETTERS = /[A-Za-z]+/y;
 
 export const MAX_MATH_LENGTH = 20_000;
 
-/** The formula with line breaks folded into spaces (a blank line would end math mode), or null when any part is not allowed. */
+/** The formula without blank lines (one would end math mode), or null when any part of it is not allowed. */
 export function safeMath(latex: string): string | null {
 	if (latex.length > MAX_MATH_LENGTH || latex.includes('^^')) return null;
-	const src = latex.replace(/\s*\r?\n\s*/g, ' ');
+	const src = latex.replace(/\r/g, '').replace(/\n(?:[ \t]*\n)+/g, '\n');
 	const envs: string[] = [];
 	let depth = 0;
 	let delimiters = 0;
