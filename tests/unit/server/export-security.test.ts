@@ -2,6 +2,7 @@
 // every formula Bulkpad's own engine writes still passes the allow-list.
 import { describe, expect, it } from 'vitest';
 import { Pad } from '../lang/pad';
+import { hostileFormulas } from '../../helpers/hostile-tex';
 import { renderLatex, texText } from '../../../src/lib/server/export/latex';
 import { renderMarkdown } from '../../../src/lib/server/export/markdown';
 import { safeMath } from '../../../src/lib/server/export/safe-math';
@@ -19,43 +20,7 @@ const doc = (results: Results, extra: Partial<PadDocument> = {}): PadDocument =>
 	...extra
 });
 
-/** Attacks on a compiling collaborator: file reads and writes, shell escape, catcode and expansion tricks, leaving math mode. */
-export const HOSTILE_LATEX = [
-	'\\input{/etc/hostname}',
-	'\\include{/etc/hostname}',
-	'x \\openin5=/etc/hostname \\read5 to \\secret \\secret',
-	'\\immediate\\write18{touch /tmp/bulkpad-pwned}',
-	'\\ExplSyntaxOn \\tex_write:D 18 {touch~/tmp/bulkpad-pwned} \\ExplSyntaxOff',
-	'^^5cinput{/etc/hostname}',
-	'x^^5c^^69nput',
-	'\\csname input\\endcsname{/etc/hostname}',
-	'\\catcode`\\^=7 x',
-	'\\def\\x{\\input}\\x{/etc/hostname}',
-	'\\let\\x=\\input \\x{/etc/hostname}',
-	'\\expandafter\\input\\string{/etc/hostname}',
-	'\\lowercase{\\INPUT}',
-	'\\scantokens{\\input{/etc/hostname}}',
-	'\\directlua{os.execute("touch /tmp/bulkpad-pwned")}',
-	'\\pdfprimitive\\input{x}',
-	'\\special{! (/tmp/x) run}',
-	'\\newwrite\\w \\openout\\w=x.tex',
-	'\\] \\input{/etc/hostname} \\[',
-	'\\text{$\\input{/etc/hostname}$}',
-	'\\end{document}',
-	'\\begin{verbatim}x\\end{verbatim}',
-	'\\begin{array}{@{\\input{/etc/hostname}}c} 1 \\end{array}',
-	'\\operatorname{\\input{x}}',
-	'\\begin{array}{c} 1 \\end{matrix}',
-	'\\left( x',
-	'x } \\input{y} {',
-	'% \\input{y}',
-	'#1',
-	'~\\input',
-	'x\\\n\\input{y}',
-	'Δ',
-	'\\mathrm{\\Input}',
-	'\\frac12\\usepackage{shellesc}'
-];
+const HOSTILE_LATEX = hostileFormulas();
 
 /** Control words the exporter itself writes around formulas and text. */
 const DOCUMENT_WORDS = new Set(
