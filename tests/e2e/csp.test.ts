@@ -52,8 +52,11 @@ describe('under the Content-Security-Policy', () => {
 	it('the sign-in page sends its policy and runs its theme script (nonce) without a violation', async () => {
 		const answer = await page.goto(`${baseUrl}/signin`);
 		expect(answer?.headers()['content-security-policy']).toMatch(/script-src 'self' 'nonce-/);
-		// the inline theme script ran: it decides the class before paint
-		expect(await page.evaluate(() => typeof document.documentElement.classList.contains('dark'))).toBe('boolean');
+		// the inline theme script runs (its nonce matches): it sets the chosen theme's class before paint
+		await page.evaluate(() => localStorage.setItem('bulkpad-theme', 'dark'));
+		await page.reload();
+		expect(await page.evaluate(() => document.documentElement.classList.contains('dark'))).toBe(true);
+		await page.evaluate(() => localStorage.removeItem('bulkpad-theme'));
 		expect(await pageViolations(page)).toEqual([]);
 	});
 
