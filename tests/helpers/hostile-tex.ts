@@ -11,6 +11,7 @@ export function hostileFormulas(read = '/etc/hostname', marker = '/tmp/bulkpad-p
 		`\\ExplSyntaxOn \\sys_shell_now:n {touch~${marker}} \\ExplSyntaxOff`,
 		`^^5cinput{${read}}`,
 		'x^^5c^^69nput',
+		'x^\r^5cinput{y}',
 		`\\csname input\\endcsname{${read}}`,
 		'\\catcode`\\^=7 x',
 		`\\def\\x{\\input}\\x{${read}}`,

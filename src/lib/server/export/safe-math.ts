@@ -47,8 +47,10 @@ export const MAX_MATH_LENGTH = 20_000;
 
 /** The formula without blank lines (one would end math mode), or null when any part of it is not allowed. */
 export function safeMath(latex: string): string | null {
-	if (latex.length > MAX_MATH_LENGTH || latex.includes('^^')) return null;
+	if (latex.length > MAX_MATH_LENGTH) return null;
 	const src = latex.replace(/\r/g, '').replace(/\n(?:[ \t]*\n)+/g, '\n');
+	// TeX reads ^^5c as a backslash before anything else sees it; checked after the clean-up, which could join two ^
+	if (src.includes('^^')) return null;
 	const envs: string[] = [];
 	let depth = 0;
 	let delimiters = 0;
