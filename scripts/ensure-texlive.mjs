@@ -2,7 +2,8 @@
 // pdflatex is missing (as root), or stop loudly — that test is never skipped.
 import { spawnSync } from 'node:child_process';
 
-const PDFLATEX = process.env.PDFLATEX_PATH ?? 'pdflatex';
+// the test runs `pdflatex` from PATH, so this checks the same one
+const PDFLATEX = 'pdflatex';
 const found = () => spawnSync(PDFLATEX, ['--version'], { stdio: 'ignore' }).status === 0;
 
 if (!found()) {
