@@ -50,7 +50,7 @@ describe('CRUD', () => {
 	});
 
 	it('gives a default title to an empty body and refuses bad titles', async () => {
-		const empty = await owner.request('POST', '/api/pads');
+		const empty = await owner.request('POST', '/api/pads', undefined, { 'content-type': 'application/json' });
 		expect(empty.status).toBe(201);
 		expect(empty.body.pad.title.length).toBeGreaterThan(0);
 		expectFailure(await owner.post('/api/pads', { title: '' }), 400);

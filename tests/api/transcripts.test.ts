@@ -239,7 +239,8 @@ describe('fork', () => {
 function postFrom(localAddress: string, path: string, agent: Agent): Promise<number> {
 	const url = new URL(inject('baseUrl') + path);
 	return new Promise((resolve, reject) => {
-		const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', localAddress, agent }, (res) => {
+		const headers = { 'content-type': 'application/json' };
+		const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers, localAddress, agent }, (res) => {
 			res.resume();
 			res.on('end', () => resolve(res.statusCode ?? 0));
 		});

@@ -50,8 +50,9 @@ export class Client {
 	patch<T = any>(path: string, body: unknown) {
 		return this.request<T>('PATCH', path, body);
 	}
+	/** Without a body, but declaring JSON as a browser page of Bulkpad's does (the server refuses other writes). */
 	del<T = any>(path: string) {
-		return this.request<T>('DELETE', path);
+		return this.request<T>('DELETE', path, undefined, { 'content-type': 'application/json' });
 	}
 }
 
