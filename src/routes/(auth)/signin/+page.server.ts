@@ -1,11 +1,12 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { checkCredentials, signInSchema, startSession } from '$lib/server/auth/accounts';
+import { checkCredentials, emailSchema, signInSchema, startSession } from '$lib/server/auth/accounts';
+import { resendConfirmation } from '$lib/server/auth/signup';
 import { ApiFailure } from '$lib/server/http';
 
 export const load: PageServerLoad = ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
-	return { next: url.searchParams.get('next') ?? '' };
+	return { next: url.searchParams.get('next') ?? '', confirmed: url.searchParams.has('confirmed'), reset: url.searchParams.has('reset') };
 };
 
 /** Only same-site paths, so a crafted link cannot send a fresh session elsewhere. */
@@ -21,11 +22,24 @@ export const actions: Actions = {
 		if (!parsed.success) return fail(400, { email, message: 'Enter your e-mail and password.' });
 		try {
 			const user = await checkCredentials(parsed.data, event.getClientAddress());
-			await startSession(event.cookies, user.id);
+			await startSession(event.cookies, user.id, event.request.headers.get('user-agent') ?? '');
 		} catch (e) {
-			if (e instanceof ApiFailure) return fail(e.status, { email, message: e.message });
+			if (e instanceof ApiFailure) return fail(e.status, { email, message: e.message, unconfirmed: e.extra.unconfirmed === true });
 			throw e;
 		}
 		redirect(303, safeNext(String(form.get('next') ?? '')));
+	},
+	/** A new confirmation link; the same answer for any address. */
+	resend: async (event) => {
+		const form = await event.request.formData();
+		const email = emailSchema.safeParse(String(form.get('email') ?? ''));
+		if (!email.success) return fail(400, { message: 'Enter a valid e-mail address.' });
+		try {
+			resendConfirmation(email.data, event.getClientAddress());
+		} catch (e) {
+			if (e instanceof ApiFailure) return fail(e.status, { email: email.data, message: e.message });
+			throw e;
+		}
+		return { email: email.data, resent: true };
 	}
 };
