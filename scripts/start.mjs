@@ -33,6 +33,18 @@ run(['--import', 'tsx', 'scripts/seed.ts', ...(demo ? ['--demo'] : [])]);
 if (built('dist/eval-worker.mjs') < newest('src/lib')) run(['scripts/build-worker.mjs']);
 if (built('build/handler.js') < sources) run(['node_modules/vite/bin/vite.js', 'build']);
 
+// The demo has no mail server: unless SMTP_HOST names one, mail (sign-up confirmations, invitations, resets)
+// goes to the local stand-in and lands as JSON files in data/mail/.
+if (demo && !process.env.SMTP_HOST) {
+	const { startFakeSmtp } = await import('./fake-smtp.mjs');
+	try {
+		const smtp = await startFakeSmtp({ port: Number(process.env.SMTP_PORT ?? 2525), dir: process.env.MAIL_DIR ?? 'data/mail' });
+		console.log(`demo mail: fake SMTP on 127.0.0.1:${smtp.port}, messages in ${process.env.MAIL_DIR ?? 'data/mail'}/`);
+	} catch (e) {
+		console.log(`demo mail: port ${process.env.SMTP_PORT ?? 2525} is taken (${e.code ?? e.message}); using whatever listens there`);
+	}
+}
+
 const port = process.env.PORT ?? '3000';
 // request bodies may carry a whole dataset upload (BULKPAD_UPLOAD_MAX_BYTES) plus its multipart envelope
 const uploadMax = Number(process.env.BULKPAD_UPLOAD_MAX_BYTES ?? 1_000_000);
