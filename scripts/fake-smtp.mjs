@@ -27,7 +27,7 @@ export async function startFakeSmtp({ port = 0, dir }) {
 					writeFileSync(join(dir, `${Date.now()}-${++seq}.json`), JSON.stringify(record, null, 2));
 					const refusedFile = join(dir, 'undeliverable.txt');
 					const refused = existsSync(refusedFile) ? readFileSync(refusedFile, 'utf8').split('\n').filter(Boolean) : [];
-					if (to.some((a) => refused.includes(a))) {
+					if (to.some((a) => !!a && refused.includes(a))) {
 						const err = /** @type {Error & { responseCode?: number }} */ (new Error('mailbox unavailable'));
 						err.responseCode = 550;
 						return callback(err);

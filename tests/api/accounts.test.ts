@@ -84,7 +84,7 @@ describe('secrets stay secret', () => {
 	});
 
 	it('the sessions table holds only hashes of the cookies', async () => {
-		const c = await freshMember('hashed');
+		const c = await freshMember('cookie-digest');
 		const token = c.cookie.slice('auth_session='.length);
 		expect(token.length).toBeGreaterThan(20);
 		expect(sql('SELECT * FROM sessions WHERE id = ?', token)).toHaveLength(0);
@@ -315,5 +315,9 @@ describe('confirmation before sign-in', () => {
 		await waitForMail(email);
 		expect(sql('SELECT * FROM email_confirmations WHERE token_hash = ?', token)).toHaveLength(0);
 		expect(sql('SELECT * FROM email_confirmations WHERE token_hash = ?', sha256(token))).toHaveLength(1);
+		// the admin sees who has not confirmed yet
+		const listed = (await admin.get('/api/admin/users')).body.users.find((u: { email: string }) => u.email === email);
+		expect(listed.confirmedAt).toBeNull();
+		expect((await admin.get('/admin/users')).body).toContain('not confirmed yet');
 	});
 });
