@@ -321,3 +321,54 @@ describe('confirmation before sign-in', () => {
 		expect((await admin.get('/admin/users')).body).toContain('not confirmed yet');
 	});
 });
+
+describe('the account pages without JavaScript (form posts)', () => {
+	const HTML = { accept: 'text/html' };
+	const form = (fields: Record<string, string>) => {
+		const f = new FormData();
+		for (const [k, v] of Object.entries(fields)) f.set(k, v);
+		return f;
+	};
+
+	it('sign-up answers “confirm your address”, sign-in refuses until the confirm button is pressed, then lets in', async () => {
+		const email = `form-${Date.now()}@tests.test`;
+		const made = await new Client().request('POST', '/signup', form({ name: 'Form Filler', email, password: PASSWORD, invite: '' }), HTML);
+		expect(made.status).toBe(200);
+		expect(made.body).toContain('we sent a link to');
+		const c = new Client();
+		const early = await c.request('POST', '/signin', form({ email, password: PASSWORD, next: '' }), HTML);
+		expect(early.status).toBe(403);
+		expect(early.body).toContain('Mail me a new confirmation link');
+		const resent = await new Client().request('POST', '/confirm', form({ email }), HTML);
+		expect(resent.status).toBe(200);
+		expect(resent.body).toContain('a new link is on its way');
+
+		const token = await mailedToken(email, 'confirm');
+		const confirmed = await new Client().request('POST', `/confirm/${token}`, form({}), HTML);
+		expect(confirmed.status).toBe(303);
+		expect(confirmed.headers.get('location')).toBe('/signin?confirmed=1');
+		const signedIn = await c.request('POST', '/signin', form({ email, password: PASSWORD, next: '/keys' }), HTML);
+		expect(signedIn.status).toBe(303);
+		expect(signedIn.headers.get('location')).toBe('/keys');
+		expect((await c.get('/api/auth/me')).body.user.email).toBe(email);
+	});
+
+	it('an invitation page accepts for the signed-in user and sends them to the pad', async () => {
+		const owner = await freshMember('form-owner');
+		const pad = (await owner.post('/api/pads', { title: 'accepted by form' })).body.pad.id;
+		const guest = await freshMember('form-guest');
+		await owner.post(`/api/pads/${pad}/invite`, { email: await emailOf(guest) });
+		const token = await mailedToken(await emailOf(guest), 'invite');
+		const anon = await new Client().request('POST', `/invite/${token}`, form({}), HTML);
+		expect(anon.status).toBe(303);
+		expect(anon.headers.get('location')).toBe(`/signin?next=${encodeURIComponent(`/invite/${token}`)}`);
+		const accepted = await guest.request('POST', `/invite/${token}`, form({}), HTML);
+		expect(accepted.status).toBe(303);
+		expect(accepted.headers.get('location')).toBe(`/shared/${pad}`);
+		expect((await guest.get(`/shared/${pad}`)).body).toContain('accepted by form');
+		// the owner revokes from the sharing panel's form
+		const [inv] = (await owner.get(`/api/pads/${pad}/invitations`)).body.invitations;
+		expect((await owner.request('POST', `/shared/${pad}?/uninvite`, form({ invitation: inv.id }), HTML)).status).toBe(200);
+		expectFailure(await guest.get(`/api/pads/${pad}`), 404);
+	});
+});

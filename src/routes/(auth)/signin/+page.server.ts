@@ -1,7 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
-import { checkCredentials, emailSchema, signInSchema, startSession } from '$lib/server/auth/accounts';
-import { resendConfirmation } from '$lib/server/auth/signup';
+import { checkCredentials, signInSchema, startSession } from '$lib/server/auth/accounts';
 import { ApiFailure } from '$lib/server/http';
 
 export const load: PageServerLoad = ({ locals, url }) => {
@@ -28,18 +27,5 @@ export const actions: Actions = {
 			throw e;
 		}
 		redirect(303, safeNext(String(form.get('next') ?? '')));
-	},
-	/** A new confirmation link; the same answer for any address. */
-	resend: async (event) => {
-		const form = await event.request.formData();
-		const email = emailSchema.safeParse(String(form.get('email') ?? ''));
-		if (!email.success) return fail(400, { message: 'Enter a valid e-mail address.' });
-		try {
-			resendConfirmation(email.data, event.getClientAddress());
-		} catch (e) {
-			if (e instanceof ApiFailure) return fail(e.status, { email: email.data, message: e.message });
-			throw e;
-		}
-		return { email: email.data, resent: true };
 	}
 };
