@@ -83,7 +83,7 @@ describe('keys & sessions', () => {
 		await page.fill('input[autocomplete=new-password]', 'another long secret');
 		await page.click('button:has-text("Change the password")');
 		await page.getByText('Password changed').waitFor();
-		expect(await page.locator('[aria-label=sessions] tbody tr').count()).toBe(1);
+		await expect.poll(() => page.locator('[aria-label=sessions] tbody tr').count(), { timeout: 30_000 }).toBe(1);
 		expect((await other.get('/api/auth/me')).status).toBe(401);
 		await screenshot(page, 'accounts-keys-sessions');
 		await ctx.close();
