@@ -4,7 +4,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { warmPool } from '$lib/server/eval/pool';
 import { randomUUID } from 'node:crypto';
-import { getLucia } from '$lib/server/auth/lucia';
+import { authenticateSession } from '$lib/server/auth/sessions';
 import { findUserByApiKey } from '$lib/server/auth/apikey';
 import { applySecurityHeaders } from '$lib/server/security/headers';
 import { judgeWrite } from '$lib/server/security/writes';
@@ -45,22 +45,7 @@ const authenticate: Handle = async ({ event, resolve }) => {
 		return resolve(event);
 	}
 
-	const lucia = getLucia();
-	const sessionId = event.cookies.get(lucia.sessionCookieName);
-	if (sessionId) {
-		const { session, user } = await lucia.validateSession(sessionId);
-		if (session?.fresh) {
-			const c = lucia.createSessionCookie(session.id);
-			event.cookies.set(c.name, c.value, { path: '.', ...c.attributes });
-		}
-		if (!session) {
-			const c = lucia.createBlankSessionCookie();
-			event.cookies.set(c.name, c.value, { path: '.', ...c.attributes });
-		}
-		event.locals.session = session;
-		event.locals.user = user ? { id: user.id, email: user.email, name: user.name, role: user.role } : null;
-		if (user) event.locals.via = 'session';
-	}
+	await authenticateSession(event);
 	return resolve(event);
 };
 

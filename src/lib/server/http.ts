@@ -29,7 +29,11 @@ export function api(handler: (event: RequestEvent) => Promise<Response> | Respon
 		try {
 			return await handler(event);
 		} catch (e) {
-			if (e instanceof ApiFailure) return json({ ok: false, error: { message: e.message, ...e.extra } }, { status: e.status });
+			if (e instanceof ApiFailure) {
+				// a rate limit says when to come back (429 with Retry-After)
+				const headers = typeof e.extra.retryAfter === 'number' ? { 'retry-after': String(e.extra.retryAfter) } : undefined;
+				return json({ ok: false, error: { message: e.message, ...e.extra } }, { status: e.status, headers });
+			}
 			if (isHttpError(e)) return json({ ok: false, error: { message: e.body.message } }, { status: e.status });
 			if (isTooLarge(e)) return json({ ok: false, error: { message: tooLargeMessage(e) } }, { status: 413 });
 			throw e;
