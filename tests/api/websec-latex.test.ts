@@ -64,13 +64,18 @@ beforeAll(async () => {
 		format: 'bulkpad-pad',
 		version: 1,
 		title: `${attack} ^^5cinput`,
-		bulk: { name: 'brane', params: { d: 4, zh: 1, x: `\\write18{touch ${marker}}` } },
+		bulk: { name: 'brane', params: { d: 4, zh: 1 } },
 		units: { system: 'geo', G: 1 },
 		steps: [
 			{ n: 1, input: `darea l=0.3 // \\end{verbatim}${attack}`, status: 'ok', results, error: null },
 			{ n: 2, input: 'x', status: 'error', results: null, error: { message: `\\immediate\\write18{touch ${marker}}${attack}` } }
 		]
 	};
+	// a TeX payload in a bulk parameter never gets as far as the export: import checks bulks with the language's schemas
+	const hostileBulk = { ...doc, bulk: { name: 'brane', params: { d: 4, zh: 1, x: `\\write18{touch ${marker}}` } } };
+	const refused = await member.post('/api/pads/import', hostileBulk);
+	expect(refused.status).toBe(400);
+	expect(refused.body.error.message).toMatch(/key 'x' does not apply/);
 	const imported = await member.post('/api/pads/import', doc);
 	expect(imported.status, JSON.stringify(imported.body)).toBe(201);
 	const exported = await member.get(`/api/pads/${imported.body.pad.id}/export?format=tex`);
