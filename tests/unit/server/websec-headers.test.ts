@@ -42,7 +42,11 @@ describe('judgeWrite', () => {
 		['POST', { 'content-type': 'multipart/form-data; boundary=x', origin: 'http://127.0.0.1:3001' }, false],
 		['POST', { 'content-type': 'application/x-www-form-urlencoded' }, false],
 		['POST', { 'content-type': 'application/json-seq' }, false],
-		['PUT', { 'content-type': 'application/octet-stream' }, false]
+		['PUT', { 'content-type': 'application/octet-stream' }, false],
+		// a script with its key: no browser sends one on its own, so no forgery to fear (bare DELETE, CSV upload)
+		['DELETE', { authorization: 'Bearer bp_abc' }, true],
+		['POST', { authorization: 'Bearer bp_abc', 'content-type': 'multipart/form-data; boundary=x' }, true],
+		['POST', { authorization: 'Basic abc' }, false]
 	] as const)('%s %j → served %s', (method, headers, served) => expect(judgeWrite(req(method, headers), url).ok).toBe(served));
 
 	it('says 415 and what to send for a bare write, 403 for a foreign form', () => {
