@@ -38,7 +38,7 @@ describe('result shapes of POST /api/eval (API.md)', () => {
 		}
 	});
 
-	it('issue 11 fields: resum error, validity radius_err, entropy note, the soliton phases record', async () => {
+	it('meaning fields: resum error, validity radius_err, entropy note, the soliton phases record', async () => {
 		const [r] = await results('resum l=0.8 o=6');
 		expect(r).toMatchObject({ kind: 'scalar', label: expect.stringMatching(/± /), note: expect.any(String) });
 		expect(typeof (r.fields as Record<string, unknown>).error).toBe('number');

@@ -37,7 +37,7 @@ export const BULK_SCHEMAS = {
 		.strict()
 		.superRefine((b, ctx) => {
 			// PHYSICS.md: extremal at q² = d/(d−2); beyond it T < 0 and there is no horizon at zh
-			// issue 11: at d = 2 the charge drops out of f (plain BTZ) but would change e and p: refused
+			// at d = 2 the charge drops out of f (plain BTZ) but would change e and p: refused
 			if (b.d === 2 && b.q !== 0) {
 				ctx.addIssue({ code: 'custom', path: ['q'], message: 'charged needs d ≥ 3 for q ≠ 0: at d = 2 the charge drops out of the metric (plain BTZ)' });
 			}

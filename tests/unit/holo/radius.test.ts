@@ -7,7 +7,7 @@ import { expectRel } from './check';
 type Ref = { a: string[]; radius_tau: string; radius_l: string; uncertainty_rel: string };
 const R = ref as unknown as Record<string, Ref>;
 
-describe('radius of convergence of the brane series (issue 11, item 3)', () => {
+describe('radius of convergence of the brane series', () => {
 	it('d = 2: 2π zh exactly — ΔA = 2 ln(sinh x / x), x = l/(2zh), is singular where sinh x = 0, x = iπ (Calabrese & Cardy, J. Stat. Mech. (2004) P06002)', () => {
 		for (const zh of [1, 2.5]) {
 			const e = seriesRadiusEstimate(makeBulk('brane', { d: 2, zh }));

@@ -10,7 +10,7 @@ import { expectRel } from '../check';
 
 const fit = (l1: number, y1: number, l2: number, y2: number) => (l2 * y2 - l1 * y1) / (l2 - l1);
 
-describe('boosted μ and T_ent: the large-l limit is the thermodynamic one (issue 11, item 7)', () => {
+describe('boosted μ and T_ent: the large-l limit is the thermodynamic one', () => {
 	it('T_ent → T/γ and μ → v to 1e-4 at l = 20 zh with the 1/l correction fitted (common practice)', () => {
 		for (const [d, v] of [
 			[4, 0.6],
@@ -32,7 +32,7 @@ describe('boosted μ and T_ent: the large-l limit is the thermodynamic one (issu
 	it('small l: μ has the opposite sign to v (a convention of ΔP_y = l T^{ty}, not thermodynamics) and crosses 0 once', () => {
 		const b = makeBulk('boosted', { d: 4, zh: 1, v: 0.6 });
 		const m = [0.3, 1, 2, 4, 8].map((l) => firstLawCoefficients(b, l, 'exact').mu);
-		// the issue's audit numbers at d = 4, v = 0.6 (reported in issue 11): −0.30 at l = 0.3, +0.44 at l = 8
+		// the issue's audit numbers at d = 4, v = 0.6: −0.30 at l = 0.3, +0.44 at l = 8
 		expect(m[0]).toBeLessThan(0);
 		expect(m[4]).toBeGreaterThan(0);
 		const flips = m.slice(1).filter((x, i) => Math.sign(x) !== Math.sign(m[i])).length;

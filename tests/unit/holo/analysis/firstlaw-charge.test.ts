@@ -133,7 +133,7 @@ describe('charged first law: T_ent ΔS = ΔE − μ_Q ΔQ (derived, checked agai
 	});
 });
 
-describe('charged at d = 2 is refused (issue 11, item 4)', () => {
+describe('charged at d = 2 is refused', () => {
 	it('q ≠ 0 at d = 2 names q; q = 0 is the BTZ brane', () => {
 		expect(() => makeBulk('charged', { d: 2, zh: 1, q: 0.5 })).toThrow(/d ≥ 3/);
 		try {

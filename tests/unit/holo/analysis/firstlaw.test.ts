@@ -133,7 +133,7 @@ describe('first law, order n', () => {
 		expect(() => firstLaw(b, 0.4, 13)).toThrow(/order/);
 	});
 
-	// since issue 11 the charged law has two parameters (firstlaw-charge.test.ts); along δzh at fixed q it reads
+	// the charged law has two parameters (firstlaw-charge.test.ts); along δzh at fixed q it reads
 	// 4π ∂_zhΔA = α ∂_zh ê + β ∂_zh(ρ̂ l), which at β → 0 is the old one-parameter form checked here
 	it('charged brane: exact α, β reproduce the zh-derivative of ΔA along fixed q (finite differences; derived)', () => {
 		const l = 0.6;

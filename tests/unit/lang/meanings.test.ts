@@ -1,5 +1,5 @@
 /**
- * Issue 11 in the language: every derived number says what it is (scheme, phase, conjugate, approximant) and
+ * In the language, every derived number says what it is (scheme, phase, conjugate, approximant) and
  * how far to trust it (error estimate, radius uncertainty). Values are the engine's, called directly.
  */
 import { describe, expect, it, vi } from 'vitest';
