@@ -85,17 +85,25 @@ results.push(
 );
 const branes = [3, 6, 10].map((d) => H.makeBulk('brane', { d, zh: 1 }));
 results.push(
-	bench('exact LaTeX a_1..a_12, cold (brane d=3, 6, 10)', () => {
-		H.clearExactCache();
-		for (const b of branes) H.seriesCoeffs(b, 12);
-	}, { minRuns: 3, minMs: 0 })
+	bench(
+		'exact LaTeX a_1..a_12, cold (brane d=3, 6, 10)',
+		() => {
+			H.clearExactCache();
+			for (const b of branes) H.seriesCoeffs(b, 12);
+		},
+		{ minRuns: 3, minMs: 0 }
+	)
 );
 const boosts = [3, 6, 10].map((d) => H.makeBulk('boosted', { d, zh: 1, v: 0.6 }));
 results.push(
-	bench('exact LaTeX a_1..a_12(κ), cold (boosted d=3, 6, 10)', () => {
-		H.clearExactCache();
-		for (const b of boosts) H.seriesCoeffs(b, 12);
-	}, { minRuns: 3, minMs: 0 })
+	bench(
+		'exact LaTeX a_1..a_12(κ), cold (boosted d=3, 6, 10)',
+		() => {
+			H.clearExactCache();
+			for (const b of boosts) H.seriesCoeffs(b, 12);
+		},
+		{ minRuns: 3, minMs: 0 }
+	)
 );
 
 /**
@@ -107,9 +115,30 @@ const ROUNDS = 7;
 const compared = [];
 if (Base) {
 	const exact = [
-		['exact ΔA brane d=4 l=0.5 zh=1', (E) => ((b) => () => E.deltaArea(b, 0.5))(E.makeBulk('brane', { d: 4, zh: 1 }))],
-		['exact ΔA boosted d=4 v=0.6 l=0.5', (E) => ((b) => () => E.deltaArea(b, 0.5))(E.makeBulk('boosted', { d: 4, zh: 1, v: 0.6 }))],
-		['exact ΔA brane d=4 l=5 (near horizon)', (E) => ((b) => () => E.deltaArea(b, 5))(E.makeBulk('brane', { d: 4, zh: 1 }))]
+		[
+			'exact ΔA brane d=4 l=0.5 zh=1',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 0.5)
+				)(E.makeBulk('brane', { d: 4, zh: 1 }))
+		],
+		[
+			'exact ΔA boosted d=4 v=0.6 l=0.5',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 0.5)
+				)(E.makeBulk('boosted', { d: 4, zh: 1, v: 0.6 }))
+		],
+		[
+			'exact ΔA brane d=4 l=5 (near horizon)',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 5)
+				)(E.makeBulk('brane', { d: 4, zh: 1 }))
+		]
 	];
 	const median = (xs) => [...xs].sort((a, b) => a - b)[xs.length >> 1];
 	for (const [name, make] of exact) {
@@ -164,7 +193,10 @@ const lines = [
 	'',
 	'| benchmark | median (µs) | runs | goal |',
 	'|---|---|---|---|',
-	...results.map((r, i) => `| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`),
+	...results.map(
+		(r, i) =>
+			`| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`
+	),
 	'',
 	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',
 	...(compared.length

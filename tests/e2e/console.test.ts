@@ -64,7 +64,9 @@ describe('the console', () => {
 		const table = results.find((r) => r.kind === 'table');
 		if (table) {
 			const cells = await step.locator('table.data-table tbody td').evaluateAll((tds) => tds.map((td) => td.getAttribute('title')));
-			expect(cells.map((c) => (c === 'no value' ? null : Number(c)))).toEqual(table.rows!.flat().map((v) => (v === null ? null : Number(v))));
+			expect(cells.map((c) => (c === 'no value' ? null : Number(c)))).toEqual(
+				table.rows!.flat().map((v) => (v === null ? null : Number(v)))
+			);
 			const heads = await step.locator('table.data-table thead th').allTextContents();
 			expect(heads.map((h) => h.trim())).toEqual(table.columns!.map((c) => (/^o\d+$/.test(c) ? `order ${c.slice(1)}` : c)));
 		} else {
@@ -81,7 +83,8 @@ describe('the console', () => {
 		await expect.poll(() => plot.count()).toBe(1);
 		const cols = await plot.locator('path.series-path').evaluateAll((ps) => ps.map((p) => p.getAttribute('data-col')));
 		expect(cols).toEqual(['o1', 'o2', 'o3', 'exact']);
-		for (const d of await plot.locator('path.series-path').evaluateAll((ps) => ps.map((p) => p.getAttribute('d') ?? ''))) expect(d).toMatch(/^M[\d.]+,[\d.]+L/);
+		for (const d of await plot.locator('path.series-path').evaluateAll((ps) => ps.map((p) => p.getAttribute('d') ?? '')))
+			expect(d).toMatch(/^M[\d.]+,[\d.]+L/);
 		const box = (await plot.locator('svg').boundingBox())!;
 		await page.mouse.move(box.x + box.width * 0.5, box.y + box.height * 0.5);
 		await expect.poll(() => plot.locator('.plot-readout').textContent()).toMatch(/l = [\d.]+.*order 1.*exact/);
