@@ -62,7 +62,8 @@ export default async function setup(project: TestProject) {
 	let log = '';
 	server.stdout?.on('data', (b) => (log += b));
 	server.stderr?.on('data', (b) => (log += b));
-	const deadline = Date.now() + 30_000;
+	// only catches a server that never comes up: booting and warming the worker threads is slow on a busy machine
+	const deadline = Date.now() + 180_000;
 	for (;;) {
 		try {
 			const r = await fetch(`${baseUrl}/api/health`);
