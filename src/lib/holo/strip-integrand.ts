@@ -28,17 +28,19 @@ export interface NodeValues {
 
 export interface StripIntegrand {
 	/** f(z*) */
-	readonly fstar: number;
+	fstar: number;
 	/** h(z*) */
-	readonly hstar: number;
+	hstar: number;
 	/** h* − 1, formed from the terms where there are terms (1 + B − 1 would lose B ≪ 1) */
-	readonly hstarM1: number;
+	hstarM1: number;
 	/** −z* f'(z*): with f* it sets the width of the peak near a horizon */
-	readonly cslope: number;
+	cslope: number;
 	/** d h* / d ln z* (0 for a black box, which has no slope) */
-	readonly dhstar: number;
+	dhstar: number;
 	/** whether `fill` can give the derivatives in ln z* (dF, dNl) */
 	readonly hasSlope: boolean;
+	/** Sets the turning point: the values above, and what `fill` needs. */
+	moveTo(tp: TurningPoint): void;
 	/** Fills v at every node of X; dF and dNl too when `slope` (only if `hasSlope`). */
 	fill(X: Nodes, v: NodeValues, slope: boolean): void;
 }
@@ -56,44 +58,44 @@ export function nodeValuesFor(X: Nodes): NodeValues {
 	return X.values;
 }
 
-/** The integrand of a slice with power terms at the turning point tp. */
+/** The integrand of a slice with power terms. */
 export class PowerTermIntegrand implements StripIntegrand {
-	readonly fstar: number;
-	readonly hstar: number;
-	readonly hstarM1: number;
-	readonly cslope: number;
-	readonly dhstar: number;
+	fstar = NaN;
+	hstar = NaN;
+	hstarM1 = NaN;
+	cslope = NaN;
+	dhstar = NaN;
 	readonly hasSlope = true;
 	private readonly P: Prepared;
-	/** c_j (z* / s)^p_j for the f terms and the h terms */
+	/** c_j (z* / s)^p_j for the f terms and the h terms at the current turning point */
 	private readonly A: Float64Array;
 	private readonly B: Float64Array;
 
-	constructor(P: Prepared, tp: TurningPoint) {
+	constructor(P: Prepared) {
+		this.P = P;
+		this.A = new Float64Array(P.fp.length);
+		this.B = new Float64Array(P.hp.length);
+	}
+
+	moveTo(tp: TurningPoint): void {
+		const { P, A, B } = this;
 		const { fp, fc, hp, hc } = P;
-		const nf = fp.length;
-		const nh = hp.length;
-		const A = new Float64Array(nf);
-		const B = new Float64Array(nh);
 		// at a horizon ln(z* / zh) = ln(1 − η) keeps η exact, and f* = Σ c (ζ^p − 1) avoids 1 − 1 + tiny
 		const lz = P.horizon ? Math.log1p(-tp.eta) : Math.log(tp.z / P.scale);
 		let fstar = P.horizon ? 0 : 1;
 		let cslope = 0;
-		for (let j = 0; j < nf; j++) {
+		for (let j = 0; j < A.length; j++) {
 			A[j] = fc[j] * Math.exp(fp[j] * lz);
 			fstar += P.horizon ? fc[j] * Math.expm1(fp[j] * lz) : A[j];
 			cslope -= fp[j] * A[j];
 		}
 		let hstarM1 = 0;
 		let dhstar = 0;
-		for (let j = 0; j < nh; j++) {
+		for (let j = 0; j < B.length; j++) {
 			B[j] = hc[j] * Math.exp(hp[j] * lz);
 			hstarM1 += B[j];
 			dhstar += hp[j] * B[j];
 		}
-		this.P = P;
-		this.A = A;
-		this.B = B;
 		this.fstar = fstar;
 		this.hstarM1 = hstarM1;
 		this.hstar = 1 + hstarM1;
@@ -162,27 +164,31 @@ export class PowerTermIntegrand implements StripIntegrand {
 	}
 }
 
-/** The integrand of a black-box slice (f and h as functions) at the turning point tp. */
+/** The integrand of a black-box slice (f and h as functions). */
 export class BlackBoxIntegrand implements StripIntegrand {
-	readonly fstar: number;
-	readonly hstar: number;
-	readonly hstarM1: number;
-	readonly cslope: number;
-	readonly dhstar = 0;
+	fstar = NaN;
+	hstar = NaN;
+	hstarM1 = NaN;
+	cslope = NaN;
+	dhstar = 0;
 	readonly hasSlope = false;
 	private readonly P: Prepared;
-	private readonly zs: number;
+	private zs = NaN;
 
-	constructor(P: Prepared, tp: TurningPoint) {
-		const zs = tp.z;
+	constructor(P: Prepared) {
 		this.P = P;
+	}
+
+	moveTo(tp: TurningPoint): void {
+		const { slice } = this.P;
+		const zs = tp.z;
 		this.zs = zs;
-		this.fstar = P.slice.f(zs);
-		this.hstar = P.slice.h(zs);
+		this.fstar = slice.f(zs);
+		this.hstar = slice.h(zs);
 		this.hstarM1 = this.hstar - 1;
 		// a one-sided difference from inside, where f is known to be defined (past z* may lie a horizon)
 		const dz = 1e-6 * zs;
-		this.cslope = (zs * (this.fstar - P.slice.f(zs - dz))) / dz;
+		this.cslope = (zs * (this.fstar - slice.f(zs - dz))) / dz;
 	}
 
 	fill(X: Nodes, v: NodeValues): void {
@@ -203,7 +209,13 @@ export class BlackBoxIntegrand implements StripIntegrand {
 	}
 }
 
-/** The integrand for slice P at turning point tp: from the power terms when the slice has them. */
+/**
+ * The integrand of slice P moved to the turning point tp: from the power terms when the slice has them. One
+ * integrand per slice, kept with it and moved from point to point (the quadrature never re-enters itself), so a
+ * pass allocates nothing.
+ */
 export function integrandAt(P: Prepared, tp: TurningPoint): StripIntegrand {
-	return P.exact ? new PowerTermIntegrand(P, tp) : new BlackBoxIntegrand(P, tp);
+	const I = (P.integrand ??= P.exact ? new PowerTermIntegrand(P) : new BlackBoxIntegrand(P));
+	I.moveTo(tp);
+	return I;
 }

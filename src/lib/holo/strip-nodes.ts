@@ -4,7 +4,7 @@
  * peak width). See strip.ts for the integrals and the substitutions.
  */
 import { gaussLegendre } from './numeric/gauss';
-import type { NodeValues } from './strip-integrand';
+import type { NodeValues, StripIntegrand } from './strip-integrand';
 import type { PowerTerm, Slice } from './types';
 
 /** Turning point: z* and, when the slice is bounded (horizon or cap), η = 1 − z* / bound kept exact. */
@@ -31,6 +31,8 @@ export interface Prepared {
 	hp: Float64Array;
 	hc: Float64Array;
 	slice: Slice;
+	/** the slice's integrand, moved from turning point to turning point (see strip-integrand.ts) */
+	integrand?: StripIntegrand;
 }
 
 const prepared = new WeakMap<Slice, Prepared>();
