@@ -47,7 +47,9 @@ if (baseRef) {
 }
 
 function bench(name, fn, { minRuns = 20, minMs = 400, quiet = false } = {}) {
-	for (let i = 0; i < 5; i++) fn(); // warm-up (JIT)
+	// warm-up (JIT): at least 5 calls and 200 ms, so the first row is not timed on colder code than the others
+	const w0 = performance.now();
+	for (let i = 0; i < 5 || performance.now() - w0 < 200; i++) fn();
 	const times = [];
 	const t0 = performance.now();
 	while (times.length < minRuns || performance.now() - t0 < minMs) {
