@@ -45,7 +45,14 @@ try {
 	const b = await light();
 	stop = true;
 	await heavyLoop;
-	const loaded = { rps: b.requests.average, p50_ms: b.latency.p50, p99_ms: b.latency.p99, errors: b.errors, non2xx: b.non2xx, heavy_runs: heavyRuns };
+	const loaded = {
+		rps: b.requests.average,
+		p50_ms: b.latency.p50,
+		p99_ms: b.latency.p99,
+		errors: b.errors,
+		non2xx: b.non2xx,
+		heavy_runs: heavyRuns
+	};
 	emit({ name: 'eval darea l=0.5 during heavy sweeps', ...loaded });
 
 	writeSection(

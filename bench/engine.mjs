@@ -3,30 +3,53 @@
 // prints one JSON line per benchmark and updates the "engine" section of bench/RESULTS.md.
 import { build } from 'esbuild';
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const out = join(mkdtempSync(join(tmpdir(), 'bulkpad-bench-')), 'holo.mjs');
-await build({
-	stdin: {
-		contents: `export * from './src/lib/holo/index.ts'; export { clearCoeffCache } from './src/lib/holo/series/coeffs.ts'; export { clearExactCache } from './src/lib/holo/series/exact-latex.ts';`,
-		resolveDir: root,
-		loader: 'ts'
-	},
-	bundle: true,
-	format: 'esm',
-	platform: 'neutral',
-	mainFields: ['module', 'main'],
-	outfile: out,
-	logLevel: 'error'
-});
-const H = await import(pathToFileURL(out).href);
+const tmp = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
 
-function bench(name, fn, { minRuns = 20, minMs = 400 } = {}) {
-	for (let i = 0; i < 5; i++) fn(); // warm-up (JIT)
+/** Bundles src/lib/holo under `dir` into one ES module and imports it. */
+async function loadEngine(dir, name) {
+	const outfile = join(tmp, `${name}.mjs`);
+	await build({
+		stdin: {
+			contents: `export * from './src/lib/holo/index.ts'; export { clearCoeffCache } from './src/lib/holo/series/coeffs.ts'; export { clearExactCache } from './src/lib/holo/series/exact-latex.ts';`,
+			resolveDir: dir,
+			loader: 'ts'
+		},
+		bundle: true,
+		format: 'esm',
+		platform: 'neutral',
+		mainFields: ['module', 'main'],
+		outfile,
+		// a base tree extracted to a temporary folder still takes its packages (mathjs) from this checkout
+		nodePaths: [join(root, 'node_modules')],
+		logLevel: 'error'
+	});
+	return import(pathToFileURL(outfile).href);
+}
+
+const H = await loadEngine(root, 'holo');
+
+// BULKPAD_BENCH_BASE=<git ref> also bundles src/lib/holo as it is at that ref and times the exact ΔA rows of both
+// engines in alternating rounds of the same run, so a refactor is judged against its base on the same load.
+const baseRef = process.env.BULKPAD_BENCH_BASE;
+let Base = null;
+if (baseRef) {
+	const baseDir = join(tmp, 'base');
+	mkdirSync(baseDir);
+	const tar = execFileSync('git', ['-C', root, 'archive', baseRef, 'src/lib/holo'], { maxBuffer: 1 << 28 });
+	execFileSync('tar', ['-x', '-C', baseDir], { input: tar });
+	Base = await loadEngine(baseDir, 'base');
+}
+
+function bench(name, fn, { minRuns = 20, minMs = 400, quiet = false } = {}) {
+	// warm-up (JIT): at least 5 calls and 200 ms, so the first row is not timed on colder code than the others
+	const w0 = performance.now();
+	for (let i = 0; i < 5 || performance.now() - w0 < 200; i++) fn();
 	const times = [];
 	const t0 = performance.now();
 	while (times.length < minRuns || performance.now() - t0 < minMs) {
@@ -37,7 +60,7 @@ function bench(name, fn, { minRuns = 20, minMs = 400 } = {}) {
 	}
 	times.sort((x, y) => x - y);
 	const r = { name, median_us: Number(times[times.length >> 1].toFixed(2)), runs: times.length };
-	console.log(JSON.stringify(r));
+	if (!quiet) console.log(JSON.stringify(r));
 	return r;
 }
 
@@ -64,18 +87,75 @@ results.push(
 );
 const branes = [3, 6, 10].map((d) => H.makeBulk('brane', { d, zh: 1 }));
 results.push(
-	bench('exact LaTeX a_1..a_12, cold (brane d=3, 6, 10)', () => {
-		H.clearExactCache();
-		for (const b of branes) H.seriesCoeffs(b, 12);
-	}, { minRuns: 3, minMs: 0 })
+	bench(
+		'exact LaTeX a_1..a_12, cold (brane d=3, 6, 10)',
+		() => {
+			H.clearExactCache();
+			for (const b of branes) H.seriesCoeffs(b, 12);
+		},
+		{ minRuns: 3, minMs: 0 }
+	)
 );
 const boosts = [3, 6, 10].map((d) => H.makeBulk('boosted', { d, zh: 1, v: 0.6 }));
 results.push(
-	bench('exact LaTeX a_1..a_12(κ), cold (boosted d=3, 6, 10)', () => {
-		H.clearExactCache();
-		for (const b of boosts) H.seriesCoeffs(b, 12);
-	}, { minRuns: 3, minMs: 0 })
+	bench(
+		'exact LaTeX a_1..a_12(κ), cold (boosted d=3, 6, 10)',
+		() => {
+			H.clearExactCache();
+			for (const b of boosts) H.seriesCoeffs(b, 12);
+		},
+		{ minRuns: 3, minMs: 0 }
+	)
 );
+
+/**
+ * Base against current for the exact ΔA rows: ROUNDS alternating rounds (base first in even rounds, current first
+ * in odd ones, so neither always gets the warmer machine), each a full `bench`; the figure is the median of
+ * the rounds' medians.
+ */
+const ROUNDS = 7;
+const compared = [];
+if (Base) {
+	const exact = [
+		[
+			'exact ΔA brane d=4 l=0.5 zh=1',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 0.5)
+				)(E.makeBulk('brane', { d: 4, zh: 1 }))
+		],
+		[
+			'exact ΔA boosted d=4 v=0.6 l=0.5',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 0.5)
+				)(E.makeBulk('boosted', { d: 4, zh: 1, v: 0.6 }))
+		],
+		[
+			'exact ΔA brane d=4 l=5 (near horizon)',
+			(E) =>
+				(
+					(b) => () =>
+						E.deltaArea(b, 5)
+				)(E.makeBulk('brane', { d: 4, zh: 1 }))
+		]
+	];
+	const median = (xs) => [...xs].sort((a, b) => a - b)[xs.length >> 1];
+	for (const [name, make] of exact) {
+		const fns = { base: make(Base), current: make(H) };
+		const runs = { base: [], current: [] };
+		for (let k = 0; k < ROUNDS; k++) {
+			for (const which of k % 2 ? ['current', 'base'] : ['base', 'current']) {
+				runs[which].push(bench(name, fns[which], { minRuns: 2000, quiet: true }).median_us);
+			}
+		}
+		const r = { name, base_us: median(runs.base), current_us: median(runs.current) };
+		console.log(JSON.stringify({ ...r, base: baseRef }));
+		compared.push(r);
+	}
+}
 
 // the same exact computation with mpmath (15 digits), for the ratio
 let py = null;
@@ -111,13 +191,26 @@ const lines = [
 	'<!-- engine:start -->',
 	'## engine (src/lib/holo)',
 	'',
-	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up.`,
+	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times).`,
 	'',
 	'| benchmark | median (µs) | runs | goal |',
 	'|---|---|---|---|',
-	...results.map((r, i) => `| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`),
+	...results.map(
+		(r, i) =>
+			`| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`
+	),
 	'',
 	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',
+	...(compared.length
+		? [
+				'',
+				`Against \`${baseRef}\` in the same run (BULKPAD_BENCH_BASE; median of ${ROUNDS} alternating rounds, µs):`,
+				'',
+				'| benchmark | base | current |',
+				'|---|---|---|',
+				...compared.map((r) => `| ${r.name} | ${r.base_us} | ${r.current_us} |`)
+			]
+		: []),
 	'<!-- engine:end -->'
 ];
 const file = join(root, 'bench/RESULTS.md');

@@ -16,18 +16,28 @@ const BUDGET_KB = 150;
 const worker = process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs';
 if (!existsSync(`${buildDir}/index.js`) || !existsSync(worker)) throw new Error(`build first: no ${buildDir}/index.js or ${worker}`);
 
-
 const dir = mkdtempSync(join(tmpdir(), 'bulkpad-web-'));
 const env = { ...process.env, DATABASE_URL: join(dir, 'web.db'), NODE_ENV: 'production', BULKPAD_INSECURE_COOKIES: '1' };
 const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts', '--demo'], { env, encoding: 'utf8' });
 if (seed.status !== 0) throw new Error(seed.stderr);
 const port = await freePort();
 const baseUrl = `http://127.0.0.1:${port}`;
-const server = spawn(process.execPath, [`${buildDir}/index.js`], { env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl }, stdio: 'ignore' });
+const server = spawn(process.execPath, [`${buildDir}/index.js`], {
+	env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl },
+	stdio: 'ignore'
+});
 const browser = await chromium.launch({
 	executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
 	headless: true,
-	args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync']
+	args: [
+		'--no-sandbox',
+		'--disable-gpu',
+		'--disable-quic',
+		'--no-first-run',
+		'--disable-background-networking',
+		'--disable-component-update',
+		'--disable-sync'
+	]
 });
 
 try {
@@ -40,7 +50,10 @@ try {
 		await new Promise((r) => setTimeout(r, 100));
 	}
 	const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
-	const signin = await ctx.request.post(`${baseUrl}/api/auth/signin`, { data: { email: 'ines@sable.test', password: 'bulkpad-demo' }, headers: { origin: baseUrl } });
+	const signin = await ctx.request.post(`${baseUrl}/api/auth/signin`, {
+		data: { email: 'ines@sable.test', password: 'bulkpad-demo' },
+		headers: { origin: baseUrl }
+	});
 	if (!signin.ok()) throw new Error(`sign-in failed: ${signin.status()}`);
 	// the seeded pad with formulas, tables and a sweep plot: the heaviest first paint of the demo
 	const padUrl = await (async () => {
@@ -89,7 +102,8 @@ try {
 			() =>
 				new Promise((resolve) => {
 					const check = () => {
-						const ok = document.querySelector('.console[data-ready]') && document.activeElement?.getAttribute('aria-label') === 'input line';
+						const ok =
+							document.querySelector('.console[data-ready]') && document.activeElement?.getAttribute('aria-label') === 'input line';
 						if (ok) resolve(performance.now());
 						else requestAnimationFrame(check);
 					};
@@ -111,7 +125,13 @@ try {
 	}
 	const tti = median(ttis);
 	const fcp = fcps.length ? median(fcps) : null;
-	emit({ name: 'pad page time to interactive (input focused, hydrated, takes a key), cold cache', median_ms: Math.round(tti), min_ms: Math.round(Math.min(...ttis)), max_ms: Math.round(Math.max(...ttis)), runs: RUNS });
+	emit({
+		name: 'pad page time to interactive (input focused, hydrated, takes a key), cold cache',
+		median_ms: Math.round(tti),
+		min_ms: Math.round(Math.min(...ttis)),
+		max_ms: Math.round(Math.max(...ttis)),
+		runs: RUNS
+	});
 	if (fcp !== null) emit({ name: 'pad page first contentful paint, cold cache', median_ms: Math.round(fcp) });
 	const ttfb = median(navs.map((n) => n.ttfb));
 	const html = median(navs.map((n) => n.html));

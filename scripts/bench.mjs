@@ -2,7 +2,9 @@
 import { readdirSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 
-const all = readdirSync('bench').filter((f) => f.endsWith('.mjs')).map((f) => f.slice(0, -4));
+const all = readdirSync('bench')
+	.filter((f) => f.endsWith('.mjs'))
+	.map((f) => f.slice(0, -4));
 const names = process.argv.slice(2).length ? process.argv.slice(2) : all;
 for (const name of names) {
 	if (!all.includes(name)) {

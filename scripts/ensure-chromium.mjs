@@ -10,7 +10,10 @@ if (!existsSync(CHROMIUM)) {
 	}
 	console.log(`${CHROMIUM} is missing: installing Debian's chromium package…`);
 	const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-	for (const args of [['update', '-qq'], ['install', '-y', '-qq', 'chromium']]) {
+	for (const args of [
+		['update', '-qq'],
+		['install', '-y', '-qq', 'chromium']
+	]) {
 		const r = spawnSync('apt-get', args, { stdio: 'inherit', env });
 		if (r.status !== 0) {
 			console.error(`\n✗ apt-get ${args.join(' ')} failed (exit ${r.status}); the browser tests cannot run.\n`);

@@ -17,7 +17,9 @@ export function writeSection(name, markdown) {
 	const start = `<!-- bench:${name} -->`;
 	const end = `<!-- /bench:${name} -->`;
 	const block = `${start}\n${markdown.trim()}\n${end}`;
-	let text = existsSync(RESULTS) ? readFileSync(RESULTS, 'utf8') : '# Bench results\n\nWritten by `npm run bench -- <name>`; each section is replaced when its bench runs again.\n';
+	let text = existsSync(RESULTS)
+		? readFileSync(RESULTS, 'utf8')
+		: '# Bench results\n\nWritten by `npm run bench -- <name>`; each section is replaced when its bench runs again.\n';
 	const i = text.indexOf(start);
 	const j = text.indexOf(end);
 	text = i >= 0 && j > i ? text.slice(0, i) + block + text.slice(j + end.length) : `${text.trimEnd()}\n\n${block}\n`;

@@ -23,7 +23,10 @@ export async function startBuiltServer(extraEnv = {}) {
 	if (seed.status !== 0) throw new Error(seed.stderr);
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;
-	const child = spawn(process.execPath, ['build/index.js'], { env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl }, stdio: 'ignore' });
+	const child = spawn(process.execPath, ['build/index.js'], {
+		env: { ...env, PORT: String(port), HOST: '127.0.0.1', ORIGIN: baseUrl },
+		stdio: 'ignore'
+	});
 	for (let i = 0; i < 200; i++) {
 		try {
 			if ((await fetch(`${baseUrl}/api/health`)).ok) break;
@@ -48,7 +51,10 @@ export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo') {
 		headers: { 'content-type': 'application/json', origin: baseUrl },
 		body: JSON.stringify({ email, password })
 	});
-	const cookie = r.headers.getSetCookie().find((c) => c.startsWith('auth_session='))?.split(';')[0];
+	const cookie = r.headers
+		.getSetCookie()
+		.find((c) => c.startsWith('auth_session='))
+		?.split(';')[0];
 	const k = await fetch(`${baseUrl}/api/keys`, {
 		method: 'POST',
 		headers: { 'content-type': 'application/json', origin: baseUrl, cookie },

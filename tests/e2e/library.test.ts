@@ -67,7 +67,9 @@ describe('datasets and the macro library in the browser', () => {
 		const card = page.locator('article').filter({ has: page.locator('h3', { hasText: 'charged-scan' }) });
 		await card.locator('button:has-text("approve")').click();
 		await expect
-			.poll(async () => (await (await page.request.get(`${baseUrl}/api/macros?state=approved`)).json()).macros.map((m: { name: string }) => m.name))
+			.poll(async () =>
+				(await (await page.request.get(`${baseUrl}/api/macros?state=approved`)).json()).macros.map((m: { name: string }) => m.name)
+			)
 			.toContain('charged-scan');
 		await screenshot(page, 'library-approved');
 

@@ -32,7 +32,10 @@ describe('share → transcript → replay', () => {
 		for (const line of ['use brane d=2 zh=1', 'dentropy l=3', 'mi pair l=1 gap=0.3 d=2']) {
 			await page.keyboard.type(line);
 			await page.keyboard.press('Enter');
-			await page.waitForFunction((n) => document.body.innerText.includes(`#${n}`), line === 'use brane d=2 zh=1' ? 1 : line.startsWith('dentropy') ? 2 : 3);
+			await page.waitForFunction(
+				(n) => document.body.innerText.includes(`#${n}`),
+				line === 'use brane d=2 zh=1' ? 1 : line.startsWith('dentropy') ? 2 : 3
+			);
 		}
 		await page.click('button:has-text("share")');
 		const link = page.locator('a.share-url');

@@ -8,7 +8,7 @@ export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 export const ARTIFACTS = 'tests/artifacts';
 
 export async function launch(viewport = { width: 1280, height: 800 }): Promise<BrowserContext> {
-	return chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'bulkpad-chromium-')), {
+	const ctx = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'bulkpad-chromium-')), {
 		executablePath: CHROMIUM,
 		headless: true,
 		viewport,
@@ -22,6 +22,11 @@ export async function launch(viewport = { width: 1280, height: 800 }): Promise<B
 			'--disable-sync'
 		]
 	});
+	// Playwright's 30 s default for a click, a navigation or a wait is a speed limit on a busy machine; these
+	// only have to catch a hang
+	ctx.setDefaultTimeout(90_000);
+	ctx.setDefaultNavigationTimeout(90_000);
+	return ctx;
 }
 
 export async function signInThroughForm(page: Page, baseUrl: string, email: string, password = 'bulkpad-demo') {

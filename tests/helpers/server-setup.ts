@@ -49,7 +49,10 @@ export default async function setup(project: TestProject) {
 		BULKPAD_SIGNIN_PER_MINUTE: '30',
 		BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS: '100000',
 		BULKPAD_REPLAY_PER_MINUTE: '1000',
-		BULKPAD_EVAL_BUDGET_MS: '2000',
+		// Generous, so that no ordinary test line depends on the machine's speed (a busy machine may run a light
+		// line many times slower than usual); the one budget test uses a line that can never finish in any
+		// budget, so it only waits these seconds out.
+		BULKPAD_EVAL_BUDGET_MS: '20000',
 		BODY_SIZE_LIMIT: String(1_000_000 + 65_536)
 	};
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
@@ -64,7 +67,8 @@ export default async function setup(project: TestProject) {
 	let log = '';
 	server.stdout?.on('data', (b) => (log += b));
 	server.stderr?.on('data', (b) => (log += b));
-	const deadline = Date.now() + 30_000;
+	// only catches a server that never comes up: booting and warming the worker threads is slow on a busy machine
+	const deadline = Date.now() + 180_000;
 	for (;;) {
 		try {
 			const r = await fetch(`${baseUrl}/api/health`);

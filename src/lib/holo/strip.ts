@@ -1,8 +1,12 @@
 import { HoloError } from './errors';
-import { gaussLegendre } from './numeric/gauss';
 import { findRootBrent } from './numeric/brent';
+import { findRootNewton } from './numeric/newton';
 import { gamma } from './special/gamma';
-import type { PowerTerm, Slice } from './types';
+import { nodesFor, prepare, type Prepared, type StripIntegrals, type TurningPoint } from './strip-nodes';
+import { integrandAt, nodeValuesFor } from './strip-integrand';
+import type { Slice } from './types';
+
+export type { StripIntegrals, TurningPoint } from './strip-nodes';
 
 /**
  * The strip RT surface on any slice (see `Slice`): width and finite area as functions of the turning point.
@@ -15,163 +19,15 @@ import type { PowerTerm, Slice } from './types';
  * (Ryu & Takayanagi, JHEP 08 (2006) 045, for the vacuum integrals). g − 1 is formed as expm1(ln g) from
  * log1p's of the small quantities, so the subtraction loses nothing as u → 0.
  *
- * Quadrature: u = 1 − s² removes the 1/√(1−u) endpoint singularity; near a horizon f(u z*) ≈ f* + c s² adds a
- * log-like peak of width a = √(f* / c), removed by s = a sinh σ (exact for that model). The σ range
+ * Quadrature (nodes: strip-nodes.ts; the integrand from power terms or a black box: strip-integrand.ts; the root
+ * in l: numeric/newton.ts): u = 1 − s² removes the 1/√(1−u) endpoint singularity; near a horizon
+ * f(u z*) ≈ f* + c s² adds a log-like peak of width a = √(f* / c), removed by s = a sinh σ (exact for that
+ * model). The σ range
  * [0, asinh(1/a)] is cut into panels of length ≤ 1.4, each with n-point Gauss–Legendre; all differences
  * (u^p − 1, f(uz*) − f*, 1 − z* / zh) are formed with expm1/log1p from sparse power terms, so the result keeps
  * full relative accuracy up to the horizon. Error: the rule converges like ρ^{−2n} with ρ ≳ 2.4 for d ≤ 10
  * (nearest complex zero of N); measured ≤ 1e−13 relative against 30-digit mpmath (tests/fixtures/holo).
  */
-
-/** Turning point: z* and, when the slice is bounded (horizon or cap), η = 1 − z* / bound kept exact. */
-export interface TurningPoint {
-	z: number;
-	eta: number;
-}
-
-export interface StripIntegrals {
-	zstar: number;
-	width: number;
-	areaFinite: number;
-}
-
-interface Prepared {
-	d: number;
-	m: number;
-	scale: number;
-	bound: number; // zh, zmax or Infinity
-	horizon: boolean;
-	exact: boolean; // power terms available
-	fp: Float64Array; // powers of the non-constant f terms
-	fc: Float64Array;
-	hp: Float64Array;
-	hc: Float64Array;
-	slice: Slice;
-}
-
-const prepared = new WeakMap<Slice, Prepared>();
-
-function split(terms: PowerTerm[] | undefined): [Float64Array, Float64Array] {
-	const t = (terms ?? []).filter((x) => x.p !== 0 && x.c !== 0);
-	return [Float64Array.from(t.map((x) => x.p)), Float64Array.from(t.map((x) => x.c))];
-}
-
-function prepare(slice: Slice): Prepared {
-	const hit = prepared.get(slice);
-	if (hit) return hit;
-	const exact = !!(slice.fTerms && slice.hTerms);
-	const [fp, fc] = split(slice.fTerms);
-	const [hp, hc] = split(slice.hTerms);
-	const horizon = slice.zh !== undefined && exact && slice.scale === slice.zh;
-	const p: Prepared = {
-		d: slice.d,
-		m: 2 * (slice.d - 1),
-		scale: slice.scale ?? 1,
-		bound: slice.zh ?? slice.zmax ?? Infinity,
-		horizon,
-		exact,
-		fp,
-		fc,
-		hp,
-		hc,
-		slice
-	};
-	prepared.set(slice, p);
-	return p;
-}
-
-const GL_N = 24;
-const PANEL = 1.4;
-
-/** Quadrature nodes in u with everything that depends only on u (and the slice's powers), for a given a. */
-interface Nodes {
-	n: number;
-	jac: Float64Array; // weight · du/dσ
-	lu: Float64Array; // ln u
-	u: Float64Array;
-	N0: Float64Array; // u^{−m} − 1
-	omum: Float64Array; // 1 − u^m
-	um: Float64Array; // u^m
-	u1d: Float64Array; // u^{1−d}
-	fE: Float64Array[]; // per f term: u^p − 1
-	fU: Float64Array[]; // per f term: u^p (not 1 + fE: that loses u^p ≪ 1 near u = 0)
-	hU: Float64Array[]; // per h term: u^p
-	hE: Float64Array[]; // per h term: u^p − 1
-	hN: Float64Array[]; // per h term: u^{p−m} − 1
-}
-
-const fixedNodes = new WeakMap<Prepared, Map<number, Nodes>>();
-
-function buildNodes(P: Prepared, a: number, extra: number): Nodes {
-	const smax = Math.asinh(1 / a);
-	const panels = Math.max(1, Math.ceil(smax / PANEL)) + extra;
-	const hw = smax / panels / 2;
-	const rule = gaussLegendre(GL_N);
-	const n = panels * GL_N;
-	const arr = () => new Float64Array(n);
-	const X: Nodes = {
-		n,
-		jac: arr(),
-		lu: arr(),
-		u: arr(),
-		N0: arr(),
-		omum: arr(),
-		um: arr(),
-		u1d: arr(),
-		fE: Array.from(P.fp, arr),
-		fU: Array.from(P.fp, arr),
-		hU: Array.from(P.hp, arr),
-		hE: Array.from(P.hp, arr),
-		hN: Array.from(P.hp, arr)
-	};
-	const { m, d } = P;
-	let q = 0;
-	for (let k = 0; k < panels; k++) {
-		const mid = (2 * k + 1) * hw;
-		for (let i = 0; i < GL_N; i++, q++) {
-			const sig = mid + hw * rule.x[i];
-			const s = a * Math.sinh(sig);
-			X.jac[q] = 2 * s * a * Math.cosh(sig) * hw * rule.w[i]; // du = 2s ds, ds = a cosh σ dσ
-			const lu = Math.log1p(-s * s);
-			X.lu[q] = lu;
-			X.u[q] = 1 - s * s;
-			X.N0[q] = Math.expm1(-m * lu);
-			X.omum[q] = -Math.expm1(m * lu);
-			X.um[q] = Math.exp(m * lu);
-			X.u1d[q] = Math.exp((1 - d) * lu);
-			P.fp.forEach((p, j) => {
-				X.fE[j][q] = Math.expm1(p * lu);
-				X.fU[j][q] = Math.exp(p * lu);
-			});
-			P.hp.forEach((p, j) => {
-				X.hU[j][q] = Math.exp(p * lu);
-				X.hE[j][q] = Math.expm1(p * lu);
-				X.hN[j][q] = Math.expm1((p - m) * lu);
-			});
-		}
-	}
-	return X;
-}
-
-/**
- * A large h* (the wave far beyond zp) moves complex zeros of N towards u ≈ (h*)^{−1/d}; extra panels keep the
- * rule converged there (about two per decade of h*).
- */
-function nodesFor(P: Prepared, a: number, hstar: number): Nodes {
-	const extra = hstar > 10 ? Math.ceil(2 * Math.log10(hstar)) : 0;
-	// a only has to be of the order of the peak width, so it is rounded down to a power of 2 and the node
-	// sets are cached per (a, extra)
-	const k = a >= 1 ? 0 : Math.min(1000, Math.ceil(-Math.log2(a)));
-	const key = k * 64 + extra;
-	let byKey = fixedNodes.get(P);
-	if (!byKey) fixedNodes.set(P, (byKey = new Map()));
-	let X = byKey.get(key);
-	if (!X) {
-		if (byKey.size > 400) byKey.clear();
-		byKey.set(key, (X = buildNodes(P, Math.pow(2, -k), extra)));
-	}
-	return X;
-}
 
 /** Width factor W = l/z* and, with `wantArea`, the parts of the area relative to the vacuum. */
 interface Parts {
@@ -191,79 +47,28 @@ interface Parts {
  * even when ΔA/A ~ (l/zh)^d is tiny.
  */
 function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean, wantSlope = false): Parts {
-	const { d, m, fp, fc, hp, hc } = P;
+	const d = P.d;
 	const zs = tp.z;
-	const zeta = zs / P.scale;
-	const nf = fp.length;
-	const nh = hp.length;
-	const A = new Float64Array(nf);
-	const B = new Float64Array(nh);
-	let fstar: number;
-	let hstar: number;
-	let hstarM1: number; // h* − 1 formed from the terms (1 + B − 1 would lose B ≪ 1)
-	let cslope = 0;
-	let dhstar = 0; // d h* / d ln z*
-	if (P.exact) {
-		const lz = P.horizon ? Math.log1p(-tp.eta) : Math.log(zeta);
-		fstar = P.horizon ? 0 : 1;
-		for (let j = 0; j < nf; j++) {
-			A[j] = fc[j] * Math.exp(fp[j] * lz);
-			fstar += P.horizon ? fc[j] * Math.expm1(fp[j] * lz) : A[j];
-			cslope -= fp[j] * A[j];
-		}
-		hstarM1 = 0;
-		for (let j = 0; j < nh; j++) {
-			B[j] = hc[j] * Math.exp(hp[j] * lz);
-			hstarM1 += B[j];
-			dhstar += hp[j] * B[j];
-		}
-		hstar = 1 + hstarM1;
-	} else {
-		fstar = P.slice.f(zs);
-		hstar = P.slice.h(zs);
-		hstarM1 = hstar - 1;
-		const dz = 1e-6 * zs;
-		cslope = (zs * (fstar - P.slice.f(zs - dz))) / dz;
-	}
+	const I = integrandAt(P, tp);
+	const { fstar, hstar, hstarM1, cslope, dhstar } = I;
 	if (!(fstar > 0) || !(hstar > 0) || !Number.isFinite(fstar * hstar)) {
 		throw new HoloError(`the metric is not positive at the turning point z*=${zs}`, 'zstar');
 	}
 	const a = cslope > fstar ? Math.sqrt(fstar / cslope) : 1;
 	const X = nodesFor(P, a, hstar);
+	const slope = wantSlope && I.hasSlope;
+	const v = nodeValuesFor(X);
+	I.fill(X, v, slope);
+	const { F: Fs, Fm1: Fm1s, hm1: hm1s, dh: dhs, dN: dNs, dF: dFs, dNl: dNls } = v;
 	let wd = 0;
 	let ad = 0;
 	let sd = 0; // ∫ ∂_{ln z*} (f N)^{−1/2} du
-	const slope = wantSlope && P.exact;
 	for (let q = 0; q < X.n; q++) {
-		let F: number;
-		let Fm1: number;
-		let hm1: number;
-		let dh: number; // h(uz*) − h*
-		let dN: number; // N − N₀
-		if (P.exact) {
-			F = fstar;
-			Fm1 = 0;
-			for (let j = 0; j < nf; j++) {
-				F += A[j] * X.fE[j][q];
-				Fm1 += A[j] * X.fU[j][q];
-			}
-			hm1 = 0;
-			dh = 0;
-			dN = 0;
-			for (let j = 0; j < nh; j++) {
-				hm1 += B[j] * X.hU[j][q];
-				dh += B[j] * X.hE[j][q];
-				dN += B[j] * X.hN[j][q];
-			}
-		} else {
-			const z = X.u[q] * zs;
-			F = P.slice.f(z);
-			Fm1 = F - 1;
-			const hu = P.slice.h(z);
-			hm1 = hu - 1;
-			dh = hu - hstar;
-			dN = hu / X.um[q] - hstar - X.N0[q];
-		}
+		const F = Fs[q];
+		const Fm1 = Fm1s[q];
+		const hm1 = hm1s[q];
+		const dh = dhs[q];
+		const dN = dNs[q];
 		const N0 = X.N0[q];
 		const N = N0 + dN;
 		if (!(F > 0) || !(N > 0) || !(hm1 > -1) || !Number.isFinite(F * N * hm1)) {
@@ -277,14 +82,7 @@ function integrate(P: Prepared, tp: TurningPoint, wantArea: boolean, wantSlope =
 		const lnNN0 = Math.log1p(dN / N0);
 		const em = Math.expm1(-0.5 * (logF + lnNN0));
 		wd += (X.jac[q] * em) / Math.sqrt(N0);
-		if (slope) {
-			// ∂ ln F and ∂ N with respect to ln z*: every term c (u z*/s)^p contributes p times itself
-			let dF = 0;
-			for (let j = 0; j < nf; j++) dF += fp[j] * A[j] * X.fU[j][q];
-			let dNl = 0;
-			for (let j = 0; j < nh; j++) dNl += hp[j] * B[j] * X.hN[j][q];
-			sd -= (0.5 * X.jac[q] * (1 + em) * (dF / F + dNl / N)) / Math.sqrt(N0);
-		}
+		if (slope) sd -= (0.5 * X.jac[q] * (1 + em) * (dFs[q] / F + dNls[q] / N)) / Math.sqrt(N0);
 		if (wantArea) {
 			const omum = X.omum[q];
 			const lnQQ0 = Math.log1p((X.um[q] * dh) / ((1 + hm1) * omum));
@@ -417,42 +215,47 @@ function unreachable(l: number): HoloError {
 	return new HoloError(`no turning point found for l=${l}`, 'l', 'the width may be unreachable in this bulk');
 }
 
-function newtonRoot(P: Prepared, x: number, lnl: number, bounded: boolean): number {
-	let lo = -Infinity; // g(lo) < 0 < g(hi): l(z*) increases with z*
-	let hi = Infinity;
-	for (let it = 0; it < 100; it++) {
-		const tp = pointOf(P, x);
-		const r = integrate(P, tp, false, true);
-		// near a horizon l grows linearly in x, so Newton on l/l₀ − 1 lands in one or two steps; further out
-		// ln l is the nearly linear one
-		const lr = Math.exp(Math.log(r.width) - lnl);
-		const lin = bounded && x > 0;
-		const g = lin ? lr - 1 : Math.log(lr);
-		if (g === 0) return x;
-		if (g < 0) lo = x;
-		else hi = x;
-		const dg = r.slope * (bounded ? tp.eta : 1) * (lin ? lr : 1);
-		let next = x - g / dg;
-		const ok = dg > 0 && Number.isFinite(next) && next > lo && next < hi;
-		if (ok && Math.abs(next - x) <= 1e-7 * Math.max(1, Math.abs(x))) return next;
-		if (!ok) {
-			// bisect a finite bracket; otherwise step outwards (the logit/log variable grows like ln l)
-			if (Number.isFinite(lo) && Number.isFinite(hi)) next = 0.5 * (lo + hi);
-			else next = Number.isFinite(lo) ? lo + Math.max(1, Math.abs(g) / 0.5) : hi - Math.max(1, Math.abs(g));
-		}
-		if (Number.isFinite(lo) && Number.isFinite(hi) && hi - lo <= 4e-16 * Math.max(1, Math.abs(x))) return next;
-		if (bounded && next > 700 && lo < 700) next = Number.isFinite(hi) ? 0.5 * (lo + hi) : 700;
-		else if (bounded && next > 700) {
-			throw new HoloError(
-				`l=${Math.exp(lnl)} puts the turning point within e^−700 of the horizon`,
-				'l',
-				'that is beyond double precision; there ΔA = l/zh^{d−1} + const to all printed digits'
-			);
-		}
-		if (Math.abs(next) > 800) throw unreachable(Math.exp(lnl));
-		x = next;
+/**
+ * x = logit(z* / zh) = ln(z* / (η zh)) above which the turning point is out of reach: η = e^{−700} ≈ 1e−304 is the
+ * last decade before η underflows (double's smallest normal is e^{−708.4} ≈ 2.2e−308). l grows like ln(1/η) there;
+ * this is a brane strip of l ≈ 700, 286, 104 zh for d = 2, 4, 10, where ΔA = l/zh^{d−1} + const to every printed
+ * digit.
+ */
+const HORIZON_X_MAX = 700;
+/**
+ * |x| past which there is no turning point to find: e^{±800} over/underflows a double (|ln| ≤ 709.8), so z* (or
+ * η) itself is no longer representable.
+ */
+const X_LIMIT = 800;
+/** Newton stops once a step is below this relative size (see `solveStrip`: the error after it is ~1e−14). */
+const NEWTON_XTOL = 1e-7;
+/** Quadrature passes before giving up (2–4 are typical). */
+const NEWTON_MAX_ITER = 100;
+
+function newtonRoot(P: Prepared, x0: number, lnl: number, bounded: boolean): number {
+	const r = findRootNewton(
+		(x) => {
+			const tp = pointOf(P, x);
+			const s = integrate(P, tp, false, true);
+			// near a horizon l grows linearly in x, so Newton on l/l₀ − 1 lands in one or two steps; further out
+			// ln l is the nearly linear one
+			const lr = Math.exp(Math.log(s.width) - lnl);
+			const lin = bounded && x > 0;
+			const g = lin ? lr - 1 : Math.log(lr);
+			return { g, dg: s.slope * (bounded ? tp.eta : 1) * (lin ? lr : 1) };
+		},
+		x0,
+		{ xtol: NEWTON_XTOL, maxIter: NEWTON_MAX_ITER, ceiling: bounded ? HORIZON_X_MAX : Infinity, limit: X_LIMIT }
+	);
+	if (r.reason === 'ceiling') {
+		throw new HoloError(
+			`l=${Math.exp(lnl)} puts the turning point within e^−700 of the horizon`,
+			'l',
+			'that is beyond double precision; there ΔA = l/zh^{d−1} + const to all printed digits'
+		);
 	}
-	throw unreachable(Math.exp(lnl));
+	if (r.reason) throw unreachable(Math.exp(lnl));
+	return r.x;
 }
 
 function brentRoot(P: Prepared, x0: number, lnl: number, l: number): number {

@@ -57,7 +57,7 @@ export function receivedMail(): ReceivedMail[] {
 }
 
 /** The first message to `to` that `match` accepts, waiting for the fake SMTP server to write it. */
-export async function waitForMail(to: string, match: (m: ReceivedMail) => boolean = () => true, timeoutMs = 10_000): Promise<ReceivedMail> {
+export async function waitForMail(to: string, match: (m: ReceivedMail) => boolean = () => true, timeoutMs = 60_000): Promise<ReceivedMail> {
 	const deadline = Date.now() + timeoutMs;
 	for (;;) {
 		const found = receivedMail().find((m) => m.to.includes(to) && match(m));
