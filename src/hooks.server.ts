@@ -6,7 +6,7 @@ import { getLucia } from '$lib/server/auth/lucia';
 import { findUserByApiKey } from '$lib/server/auth/apikey';
 
 export const init: ServerInit = () => {
-	// load the engine into the worker threads in the background; requests do not wait for it
+	// start the evaluation processes in the background; requests do not wait for them
 	if (!building) warmPool().catch((e) => console.error('could not warm the evaluation pool', e));
 };
 

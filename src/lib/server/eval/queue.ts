@@ -1,0 +1,186 @@
+/**
+ * The queue in front of the evaluation processes. Its interface is what a fleet would implement too (a
+ * Redis/BullMQ queue with workers on other machines): `enqueue(job, owner, priority, { signal })` resolves
+ * with the answer; aborting the signal cancels the line whether it is waiting or running.
+ *
+ * Policy, so one person's lines never cost anyone else much:
+ * - light lines go first; heavy lines (sweeps, balls, metric bulks, macros, compare) next; replays last;
+ * - within a class, the owner with the fewest lines running goes first, then first come first served;
+ * - one heavy line per owner runs at a time, and heavy lines together leave one process free for light lines
+ *   whenever there are two or more processes;
+ * - a line waits at most `queueWaitMs`, then answers 503 "queued behind N lines" (code 'busy'); an owner
+ *   with `pendingPerOwner` lines already waiting gets 429 (code 'throttled'). Waiting never counts against a
+ *   line's time budget: the budget starts when its process starts it.
+ */
+import type { PoolAnswer, PoolJob, Slot } from './pool';
+import type { EvalAnswer } from './worker';
+
+export type Priority = 'light' | 'heavy' | 'replay';
+const RANK: Record<Priority, number> = { light: 0, heavy: 1, replay: 2 };
+
+export type QueueJob = Omit<PoolJob, 'budgetMs' | 'signal' | 'onProgress'>;
+
+export interface EnqueueOptions {
+	budgetMs?: number;
+	signal?: AbortSignal;
+	onProgress?: (p: { done: number; total: number }) => void;
+}
+
+export interface QueueAnswer extends PoolAnswer {
+	/** time spent waiting for a process, reported apart from the running time */
+	waitMs: number;
+}
+
+export interface EvalQueue {
+	enqueue(job: QueueJob, owner: string, priority: Priority, opts?: EnqueueOptions): Promise<QueueAnswer>;
+	stats(): { waiting: number; running: number };
+}
+
+/** What the queue needs from a pool of evaluators (pool.ts's ProcessPool, or a fake in the unit tests). */
+export interface Runner {
+	readonly size: number;
+	take(): Slot | undefined;
+	run(slot: Slot, job: PoolJob): Promise<PoolAnswer>;
+	onIdle(cb: () => void): void;
+}
+
+interface Waiting {
+	seq: number;
+	job: QueueJob;
+	owner: string;
+	priority: Priority;
+	opts: EnqueueOptions;
+	enqueuedAt: number;
+	done: (a: QueueAnswer) => void;
+	timer: ReturnType<typeof setTimeout>;
+	onAbort: () => void;
+}
+
+export interface QueueSettings {
+	budgetMs: number;
+	queueWaitMs: number;
+	pendingPerOwner: number;
+}
+
+function refusal(input: string, code: 'busy' | 'throttled' | 'limit', message: string, retryAfter?: number): EvalAnswer {
+	return { ok: false, error: { message, start: 0, end: input.length, code, retryAfter } };
+}
+
+export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQueue {
+	const waiting: Waiting[] = [];
+	const runningBy = new Map<string, { all: number; heavy: number }>();
+	let running = 0;
+	let heavyRunning = 0;
+	let seq = 0;
+	const heavyCap = runner.size > 1 ? runner.size - 1 : 1;
+
+	const countsOf = (owner: string) => runningBy.get(owner) ?? { all: 0, heavy: 0 };
+	const isHeavy = (p: Priority) => p !== 'light';
+	const before = (a: Waiting, b: Waiting) => RANK[a.priority] - RANK[b.priority] || a.seq - b.seq;
+
+	function eligible(w: Waiting): boolean {
+		if (!isHeavy(w.priority)) return true;
+		return heavyRunning < heavyCap && countsOf(w.owner).heavy === 0;
+	}
+
+	function pick(): Waiting | undefined {
+		let best: Waiting | undefined;
+		for (const w of waiting) {
+			if (!eligible(w)) continue;
+			if (!best) best = w;
+			else if (RANK[w.priority] !== RANK[best.priority]) {
+				if (RANK[w.priority] < RANK[best.priority]) best = w;
+			} else {
+				const dw = countsOf(w.owner).all - countsOf(best.owner).all;
+				if (dw < 0 || (dw === 0 && w.seq < best.seq)) best = w;
+			}
+		}
+		return best;
+	}
+
+	function remove(w: Waiting) {
+		const i = waiting.indexOf(w);
+		if (i >= 0) waiting.splice(i, 1);
+		clearTimeout(w.timer);
+		w.opts.signal?.removeEventListener('abort', w.onAbort);
+	}
+
+	function pump() {
+		for (;;) {
+			if (!waiting.length) return;
+			const w = pick();
+			if (!w) return;
+			const slot = runner.take();
+			if (!slot) return;
+			remove(w);
+			start(w, slot);
+		}
+	}
+
+	function start(w: Waiting, slot: Slot) {
+		const c = { ...countsOf(w.owner) };
+		c.all++;
+		if (isHeavy(w.priority)) c.heavy++;
+		runningBy.set(w.owner, c);
+		running++;
+		if (isHeavy(w.priority)) heavyRunning++;
+		const waitMs = performance.now() - w.enqueuedAt;
+		runner
+			.run(slot, { ...w.job, budgetMs: w.opts.budgetMs ?? settings.budgetMs, signal: w.opts.signal, onProgress: w.opts.onProgress })
+			.then((a) => w.done({ ...a, waitMs }))
+			.finally(() => {
+				const now = countsOf(w.owner);
+				const next = { all: now.all - 1, heavy: now.heavy - (isHeavy(w.priority) ? 1 : 0) };
+				if (next.all === 0) runningBy.delete(w.owner);
+				else runningBy.set(w.owner, next);
+				running--;
+				if (isHeavy(w.priority)) heavyRunning--;
+				pump();
+			});
+	}
+
+	runner.onIdle(pump);
+
+	return {
+		enqueue(job, owner, priority, opts = {}) {
+			return new Promise<QueueAnswer>((done) => {
+				if (opts.signal?.aborted) return done({ answer: refusal(job.input, 'limit', 'evaluation cancelled'), runMs: 0, waitMs: 0 });
+				const mine = waiting.filter((w) => w.owner === owner).length;
+				if (mine >= settings.pendingPerOwner) {
+					return done({
+						answer: refusal(job.input, 'throttled', `you have ${mine} lines waiting already; wait for them to finish`, 5),
+						runMs: 0,
+						waitMs: 0
+					});
+				}
+				const w: Waiting = {
+					seq: ++seq,
+					job,
+					owner,
+					priority,
+					opts,
+					enqueuedAt: performance.now(),
+					done,
+					timer: setTimeout(() => {
+						const ahead = running + waiting.filter((o) => o !== w && before(o, w) < 0).length;
+						remove(w);
+						const s = Math.round(settings.queueWaitMs / 1000);
+						done({
+							answer: refusal(job.input, 'busy', `evaluation not started: queued behind ${ahead} lines for ${s} s; try again shortly`, 5),
+							runMs: 0,
+							waitMs: settings.queueWaitMs
+						});
+					}, settings.queueWaitMs),
+					onAbort: () => {
+						remove(w);
+						done({ answer: refusal(job.input, 'limit', 'evaluation cancelled'), runMs: 0, waitMs: performance.now() - w.enqueuedAt });
+					}
+				};
+				opts.signal?.addEventListener('abort', w.onAbort, { once: true });
+				waiting.push(w);
+				pump();
+			});
+		},
+		stats: () => ({ waiting: waiting.length, running })
+	};
+}
