@@ -5,7 +5,8 @@
  *
  * Policy, so one person's lines never cost anyone else much:
  * - light lines go first; heavy lines (sweeps, balls, metric bulks, macros, compare) next; replays last;
- * - within a class, the owner with the fewest lines running goes first, then first come first served;
+ * - within a class, the owner with the fewest lines running goes first, then the owner whose last line started
+ *   longest ago (round robin between owners), then first come first served;
  * - one heavy line per owner runs at a time, and heavy lines together leave one process free for light lines
  *   whenever there are two or more processes;
  * - a line waits at most `queueWaitMs`, then answers 503 "queued behind N lines" (code 'busy'); an owner
@@ -69,6 +70,9 @@ function refusal(input: string, code: 'busy' | 'throttled' | 'limit', message: s
 export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQueue {
 	const waiting: Waiting[] = [];
 	const runningBy = new Map<string, { all: number; heavy: number }>();
+	/** when each owner's latest line started (pruned with the owners that have nothing running or waiting) */
+	const lastStart = new Map<string, number>();
+	let starts = 0;
 	let running = 0;
 	let heavyRunning = 0;
 	let seq = 0;
@@ -92,7 +96,8 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 				if (RANK[w.priority] < RANK[best.priority]) best = w;
 			} else {
 				const dw = countsOf(w.owner).all - countsOf(best.owner).all;
-				if (dw < 0 || (dw === 0 && w.seq < best.seq)) best = w;
+				const dl = (lastStart.get(w.owner) ?? 0) - (lastStart.get(best.owner) ?? 0);
+				if (dw < 0 || (dw === 0 && (dl < 0 || (dl === 0 && w.seq < best.seq)))) best = w;
 			}
 		}
 		return best;
@@ -122,6 +127,7 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 		c.all++;
 		if (isHeavy(w.priority)) c.heavy++;
 		runningBy.set(w.owner, c);
+		lastStart.set(w.owner, ++starts);
 		running++;
 		if (isHeavy(w.priority)) heavyRunning++;
 		const waitMs = performance.now() - w.enqueuedAt;
@@ -131,8 +137,10 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 			.finally(() => {
 				const now = countsOf(w.owner);
 				const next = { all: now.all - 1, heavy: now.heavy - (isHeavy(w.priority) ? 1 : 0) };
-				if (next.all === 0) runningBy.delete(w.owner);
-				else runningBy.set(w.owner, next);
+				if (next.all === 0) {
+					runningBy.delete(w.owner);
+					if (!waiting.some((o) => o.owner === w.owner)) lastStart.delete(w.owner);
+				} else runningBy.set(w.owner, next);
 				running--;
 				if (isHeavy(w.priority)) heavyRunning--;
 				pump();
