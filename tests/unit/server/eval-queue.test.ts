@@ -70,6 +70,17 @@ describe('the evaluation queue', () => {
 		expect(p.started).toEqual(['first', 'y-light', 'x-light-2', 'heavy', 'replay']);
 	});
 
+	it("never lets one owner's flood of light lines starve another owner's heavy line", async () => {
+		const p = fakePool(2);
+		const q = createEvalQueue(p.runner, { ...settings, pendingPerOwner: 100 });
+		for (let i = 0; i < 20; i++) q.enqueue(job(`a-light-${i}`), 'a', 'light');
+		q.enqueue(job('b-heavy'), 'b', 'heavy');
+		expect(p.running()).toEqual(['a-light-0', 'a-light-1']);
+		await p.finish('a-light-0');
+		// a still has a line running, b has none: b's heavy line takes the free process
+		expect(p.running()).toEqual(['a-light-1', 'b-heavy']);
+	});
+
 	it('answers 429 (throttled) past the pending lines per owner, and cancels a waiting line without running it', async () => {
 		const p = fakePool(1);
 		const q = createEvalQueue(p.runner, settings);

@@ -14,7 +14,7 @@ const held = new Map<string, DatasetRows>();
 /**
  * TEST-ONLY hooks, enabled solely by BULKPAD_TEST_HOOKS=1 (tests/helpers/server-setup.ts sets it for the
  * built test server; nothing else does): '#test-hook allocate' allocates until this process dies at its heap
- * limit, '#test-hook spin' never returns. They let tests/api/abuse.test.ts prove that a dying evaluator costs
+ * limit, '#test-hook spin' busy-loops for two minutes. They let tests/api/abuse.test.ts prove that a dying evaluator costs
  * only its own line, now that the formula sandbox refuses every real line that could do this. Without the
  * variable the text is an ordinary line and the language refuses it.
  */
@@ -26,7 +26,8 @@ function testHook(input: string): EvalAnswer | undefined {
 		const hoard: number[][] = [];
 		for (;;) hoard.push(new Array(1 << 20).fill(Math.random()));
 	}
-	if (what === 'spin') for (;;);
+	// bounded, so an orphan (a server killed with SIGKILL cannot kill its evaluators) still ends by itself
+	if (what === 'spin') for (const end = Date.now() + 120_000; Date.now() < end; );
 	return undefined;
 }
 

@@ -153,6 +153,9 @@ export class ProcessPool {
 			serialization: 'advanced',
 			stdio: ['ignore', 'inherit', 'inherit', 'ipc']
 		});
+		// the server's open listener keeps it alive, not its evaluators: a server told to stop must be able to
+		child.unref();
+		(child.channel as { unref?: () => void } | undefined)?.unref?.();
 		const slot: Slot = { index, child, ready: false, held: new Map() };
 		this.slots[index] = slot;
 		child.on('message', (m: FromChild) => this.onMessage(slot, m, index));
@@ -217,13 +220,22 @@ export class ProcessPool {
 		for (const cb of this.listeners) cb();
 	}
 
-	async close(): Promise<void> {
+	/** Synchronous, for process 'exit' handlers. */
+	killAll(): void {
 		this.closed = true;
 		for (const s of this.slots) s.child.kill('SIGKILL');
+	}
+
+	async close(): Promise<void> {
+		this.killAll();
 	}
 }
 
 let shared: ProcessPool | undefined;
+
+// the evaluators go with the server, however it stops (a busy evaluator would not notice its channel closing)
+process.once('exit', () => shared?.killAll());
+process.once('sveltekit:shutdown' as never, () => void closePool());
 
 /** The server's pool: BULKPAD_EVAL_THREADS processes (the name predates processes; the meaning is the same). */
 export function getPool(): ProcessPool {

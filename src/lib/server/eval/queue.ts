@@ -4,9 +4,11 @@
  * with the answer; aborting the signal cancels the line whether it is waiting or running.
  *
  * Policy, so one person's lines never cost anyone else much:
- * - light lines go first; heavy lines (sweeps, balls, metric bulks, macros, compare) next; replays last;
- * - within a class, the owner with the fewest lines running goes first, then the owner whose last line started
- *   longest ago (round robin between owners), then first come first served;
+ * - the owner with the fewest lines running goes first, so a flood of lines from one owner (even light ones)
+ *   cannot starve another owner's line;
+ * - between owners running as many, light lines go first, heavy lines (sweeps, balls, metric bulks, macros,
+ *   compare) next, replays last; then the owner whose last line started longest ago (round robin); then
+ *   first come first served;
  * - one heavy line per owner runs at a time, and heavy lines together leave one process free for light lines
  *   whenever there are two or more processes;
  * - a line waits at most `queueWaitMs`, then answers 503 "queued behind N lines" (code 'busy'); an owner
@@ -80,26 +82,26 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 
 	const countsOf = (owner: string) => runningBy.get(owner) ?? { all: 0, heavy: 0 };
 	const isHeavy = (p: Priority) => p !== 'light';
-	const before = (a: Waiting, b: Waiting) => RANK[a.priority] - RANK[b.priority] || a.seq - b.seq;
 
 	function eligible(w: Waiting): boolean {
 		if (!isHeavy(w.priority)) return true;
 		return heavyRunning < heavyCap && countsOf(w.owner).heavy === 0;
 	}
 
+	/** Fewest lines running first (so one owner's flood never starves another), then light before heavy before replay, then owners in turn, then arrival. */
+	function ahead(a: Waiting, b: Waiting): boolean {
+		const byRunning = countsOf(a.owner).all - countsOf(b.owner).all;
+		if (byRunning !== 0) return byRunning < 0;
+		const byClass = RANK[a.priority] - RANK[b.priority];
+		if (byClass !== 0) return byClass < 0;
+		const byTurn = (lastStart.get(a.owner) ?? 0) - (lastStart.get(b.owner) ?? 0);
+		if (byTurn !== 0) return byTurn < 0;
+		return a.seq < b.seq;
+	}
+
 	function pick(): Waiting | undefined {
 		let best: Waiting | undefined;
-		for (const w of waiting) {
-			if (!eligible(w)) continue;
-			if (!best) best = w;
-			else if (RANK[w.priority] !== RANK[best.priority]) {
-				if (RANK[w.priority] < RANK[best.priority]) best = w;
-			} else {
-				const dw = countsOf(w.owner).all - countsOf(best.owner).all;
-				const dl = (lastStart.get(w.owner) ?? 0) - (lastStart.get(best.owner) ?? 0);
-				if (dw < 0 || (dw === 0 && (dl < 0 || (dl === 0 && w.seq < best.seq)))) best = w;
-			}
-		}
+		for (const w of waiting) if (eligible(w) && (!best || ahead(w, best))) best = w;
 		return best;
 	}
 
@@ -170,11 +172,11 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 					enqueuedAt: performance.now(),
 					done,
 					timer: setTimeout(() => {
-						const ahead = running + waiting.filter((o) => o !== w && before(o, w) < 0).length;
+						const behind = running + waiting.filter((o) => o !== w && ahead(o, w)).length;
 						remove(w);
 						const s = Math.round(settings.queueWaitMs / 1000);
 						done({
-							answer: refusal(job.input, 'busy', `evaluation not started: queued behind ${ahead} lines for ${s} s; try again shortly`, 5),
+							answer: refusal(job.input, 'busy', `evaluation not started: queued behind ${behind} lines for ${s} s; try again shortly`, 5),
 							runMs: 0,
 							waitMs: settings.queueWaitMs
 						});
