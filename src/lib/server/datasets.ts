@@ -2,7 +2,7 @@
  * Datasets: a member's own numbers (a CSV) kept per owner under a name the console can use,
  * `compare <name> …`. Only the owner ever sees one; any other id is the same 404.
  */
-import { and, desc, eq, sum } from 'drizzle-orm';
+import { and, desc, eq, sql, sum } from 'drizzle-orm';
 import { z } from 'zod';
 import { getDb, openDb, schema } from './db';
 import { newId } from './auth/accounts';
@@ -40,8 +40,16 @@ function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes
 }
 export type DatasetSummary = ReturnType<typeof summary>;
 
+/** The owner's datasets without their rows: SQLite counts them, so listing never parses a megabyte of JSON. */
 export function listDatasets(owner: AppUser): DatasetSummary[] {
-	return getDb().select().from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).orderBy(desc(schema.datasets.createdAt)).all().map(summary);
+	const d = schema.datasets;
+	return getDb()
+		.select({ id: d.id, name: d.name, columns: d.columns, rows: sql<number>`json_array_length(${d.rows})`, bytes: d.bytes, createdAt: d.createdAt })
+		.from(d)
+		.where(eq(d.ownerId, owner.id))
+		.orderBy(desc(d.createdAt))
+		.all()
+		.map((r) => ({ ...r, columns: r.columns as string[] }));
 }
 
 function findOwn(owner: AppUser, id: string): DatasetRow {

@@ -38,6 +38,12 @@ export interface PoolJob {
 	budgetMs: number;
 	onProgress?: (p: { done: number; total: number }) => void;
 	signal?: AbortSignal;
+	/**
+	 * Whether aborting the signal kills the process running the line. Light lines finish in milliseconds, so
+	 * killing and re-forking a process for one (seconds on a busy machine) would cost everyone more than
+	 * letting it end; the queue sets this for heavy lines and replays only.
+	 */
+	killOnCancel?: boolean;
 }
 
 export interface PoolAnswer {
@@ -108,7 +114,7 @@ export class ProcessPool {
 			const id = ++this.seq;
 			const running: Running = { id, job, done, onAbort: () => this.kill(slot, 'cancelled') };
 			slot.running = running;
-			job.signal?.addEventListener('abort', running.onAbort, { once: true });
+			if (job.killOnCancel !== false) job.signal?.addEventListener('abort', running.onAbort, { once: true });
 			running.timer = setTimeout(() => this.kill(slot, 'stuck'), job.budgetMs + START_GRACE_MS);
 			let message: ToChild;
 			try {

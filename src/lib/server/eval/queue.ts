@@ -21,7 +21,7 @@ import type { EvalAnswer } from './worker';
 export type Priority = 'light' | 'heavy' | 'replay';
 const RANK: Record<Priority, number> = { light: 0, heavy: 1, replay: 2 };
 
-export type QueueJob = Omit<PoolJob, 'budgetMs' | 'signal' | 'onProgress'>;
+export type QueueJob = Omit<PoolJob, 'budgetMs' | 'signal' | 'onProgress' | 'killOnCancel'>;
 
 export interface EnqueueOptions {
 	budgetMs?: number;
@@ -134,7 +134,13 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 		if (isHeavy(w.priority)) heavyRunning++;
 		const waitMs = performance.now() - w.enqueuedAt;
 		runner
-			.run(slot, { ...w.job, budgetMs: w.opts.budgetMs ?? settings.budgetMs, signal: w.opts.signal, onProgress: w.opts.onProgress })
+			.run(slot, {
+				...w.job,
+				budgetMs: w.opts.budgetMs ?? settings.budgetMs,
+				signal: w.opts.signal,
+				onProgress: w.opts.onProgress,
+				killOnCancel: isHeavy(w.priority)
+			})
 			.then((a) => w.done({ ...a, waitMs }))
 			.finally(() => {
 				const now = countsOf(w.owner);
