@@ -81,6 +81,20 @@ describe('the evaluation queue', () => {
 		expect(p.running()).toEqual(['a-light-1', 'b-heavy']);
 	});
 
+	it("takes heavy lines and replays in turn by owner, so one member's stream of heavy lines cannot starve a replay", async () => {
+		const p = fakePool(2);
+		const q = createEvalQueue(p.runner, settings);
+		q.enqueue(job('h-1'), 'h', 'heavy');
+		q.enqueue(job('h-2'), 'h', 'heavy');
+		q.enqueue(job('replay-1'), 'anon', 'replay');
+		q.enqueue(job('h-3'), 'h', 'heavy');
+		expect(p.running()).toEqual(['h-1']); // heavy lines leave one process to light ones
+		await p.finish('h-1');
+		expect(p.running()).toEqual(['replay-1']);
+		await p.finish('replay-1');
+		expect(p.running()).toEqual(['h-2']);
+	});
+
 	it('answers 429 (throttled) past the pending lines per owner, and cancels a waiting line without running it', async () => {
 		const p = fakePool(1);
 		const q = createEvalQueue(p.runner, settings);

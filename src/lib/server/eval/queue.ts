@@ -6,9 +6,9 @@
  * Policy, so one person's lines never cost anyone else much:
  * - the owner with the fewest lines running goes first, so a flood of lines from one owner (even light ones)
  *   cannot starve another owner's line;
- * - between owners running as many, light lines go first, heavy lines (sweeps, balls, metric bulks, macros,
- *   compare) next, replays last; then the owner whose last line started longest ago (round robin); then
- *   first come first served;
+ * - between owners running as many, light lines go first; heavy lines (sweeps, balls, metric bulks, macros,
+ *   compare) and replays then take turns by owner (whose last line started longest ago), heavy before replay
+ *   only between equals; then first come first served;
  * - one heavy line per owner runs at a time, and heavy lines together leave one process free for light lines
  *   whenever there are two or more processes;
  * - a line waits at most `queueWaitMs`, then answers 503 "queued behind N lines" (code 'busy'); an owner
@@ -88,14 +88,20 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 		return heavyRunning < heavyCap && countsOf(w.owner).heavy === 0;
 	}
 
-	/** Fewest lines running first (so one owner's flood never starves another), then light before heavy before replay, then owners in turn, then arrival. */
+	/**
+	 * Fewest lines running first (so one owner's flood never starves another), then light lines before the
+	 * rest, then owners in turn (so a stream of one member's heavy lines cannot starve a replay either), then
+	 * heavy before replay, then arrival.
+	 */
 	function ahead(a: Waiting, b: Waiting): boolean {
 		const byRunning = countsOf(a.owner).all - countsOf(b.owner).all;
 		if (byRunning !== 0) return byRunning < 0;
-		const byClass = RANK[a.priority] - RANK[b.priority];
-		if (byClass !== 0) return byClass < 0;
+		const byLight = Number(isHeavy(a.priority)) - Number(isHeavy(b.priority));
+		if (byLight !== 0) return byLight < 0;
 		const byTurn = (lastStart.get(a.owner) ?? 0) - (lastStart.get(b.owner) ?? 0);
 		if (byTurn !== 0) return byTurn < 0;
+		const byClass = RANK[a.priority] - RANK[b.priority];
+		if (byClass !== 0) return byClass < 0;
 		return a.seq < b.seq;
 	}
 
