@@ -17,7 +17,7 @@ function fakePool(size: number) {
 	let idle = () => {};
 	const runner: Runner = {
 		size,
-		take: () => free[0],
+		take: () => free[0], // which kind of process does not matter here: the heavy cap is the queue's own
 		run(slot: Slot, j: PoolJob) {
 			free.splice(free.indexOf(slot), 1);
 			started.push(j.input);
@@ -93,6 +93,14 @@ describe('the evaluation queue', () => {
 		expect(p.running()).toEqual(['replay-1']);
 		await p.finish('replay-1');
 		expect(p.running()).toEqual(['h-2']);
+	});
+
+	it("runs a replay's light step beside a heavy line instead of waiting for the heavy process", async () => {
+		const p = fakePool(2);
+		const q = createEvalQueue(p.runner, settings);
+		q.enqueue(job('h-1'), 'h', 'heavy');
+		q.enqueue(job('replay-light-step'), 'anon', 'replay', { weight: 'light' });
+		expect(p.running()).toEqual(['h-1', 'replay-light-step']);
 	});
 
 	it('answers 429 (throttled) past the pending lines per owner, and cancels a waiting line without running it', async () => {

@@ -38,7 +38,8 @@ export function evaluateLine(
 	opts: EvalOptions = {},
 	refs?: () => DatasetRefs
 ): Promise<QueueAnswer> {
-	const priority = opts.priority ?? (isHeavyLine(input, ctx.bulk.name) ? 'heavy' : 'light');
+	const heavy = isHeavyLine(input, ctx.bulk.name);
+	const priority = opts.priority ?? (heavy ? 'heavy' : 'light');
 	let named: DatasetRefs = [];
 	let others: string[] = [];
 	if (ownerId) {
@@ -61,6 +62,6 @@ export function evaluateLine(
 		},
 		owner,
 		priority,
-		opts
+		{ ...opts, weight: heavy ? 'heavy' : 'light' }
 	);
 }

@@ -9,6 +9,7 @@
  */
 import { fork, type ChildProcess } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import { setPriority } from 'node:os';
 import { resolve } from 'node:path';
 import type { PadContext } from '../../lang/result';
 import type { DatasetText, FromChild, ToChild } from './protocol';
@@ -69,6 +70,8 @@ export interface Slot {
 	ready: boolean;
 	running?: Running;
 	killed?: KillReason;
+	/** runs at a lower CPU priority (nice 10): the processes heavy lines may use */
+	lowPriority: boolean;
 	/** dataset id → bytes, oldest first: what this process holds */
 	held: Map<string, number>;
 }
@@ -98,9 +101,15 @@ export class ProcessPool {
 		this.listeners.add(cb);
 	}
 
-	/** A ready process with nothing to do, if any. */
-	take(): Slot | undefined {
-		return this.slots.find((s) => s.ready && !s.running && !s.killed);
+	/**
+	 * A ready process with nothing to do, if any. Heavy lines get only the low-priority processes (all but the
+	 * first, when there are two or more), so a process is always left for light lines and a heavy line's CPU
+	 * yields to theirs; light lines take the first process first.
+	 */
+	take(heavy = false): Slot | undefined {
+		const free = this.slots.filter((s) => s.ready && !s.running && !s.killed);
+		if (heavy) return this.size === 1 ? free[0] : free.find((s) => s.lowPriority);
+		return free.find((s) => !s.lowPriority) ?? free[0];
 	}
 
 	/** Processes alive and ready (for health reporting and tests). */
@@ -162,7 +171,15 @@ export class ProcessPool {
 		// the server's open listener keeps it alive, not its evaluators: a server told to stop must be able to
 		child.unref();
 		(child.channel as { unref?: () => void } | undefined)?.unref?.();
-		const slot: Slot = { index, child, ready: false, held: new Map() };
+		const lowPriority = this.size > 1 && index > 0;
+		if (lowPriority && child.pid) {
+			try {
+				setPriority(child.pid, 10);
+			} catch {
+				/* not permitted here: the process then competes at normal priority */
+			}
+		}
+		const slot: Slot = { index, child, ready: false, lowPriority, held: new Map() };
 		this.slots[index] = slot;
 		child.on('message', (m: FromChild) => this.onMessage(slot, m, index));
 		child.on('error', (e) => console.error(`evaluation process ${index}:`, e.message));

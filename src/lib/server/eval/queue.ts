@@ -9,8 +9,8 @@
  * - between owners running as many, light lines go first; heavy lines (sweeps, balls, metric bulks, macros,
  *   compare) and replays then take turns by owner (whose last line started longest ago), heavy before replay
  *   only between equals; then first come first served;
- * - one heavy line per owner runs at a time, and heavy lines together leave one process free for light lines
- *   whenever there are two or more processes;
+ * - one heavy line per owner runs at a time, and heavy lines run only in the low-CPU-priority processes, so
+ *   with two or more processes one is always left for light lines (a replay's light step counts as light);
  * - a line waits at most `queueWaitMs`, then answers 503 "queued behind N lines" (code 'busy'); an owner
  *   with `pendingPerOwner` lines already waiting gets 429 (code 'throttled'). Waiting never counts against a
  *   line's time budget: the budget starts when its process starts it.
@@ -24,6 +24,11 @@ const RANK: Record<Priority, number> = { light: 0, heavy: 1, replay: 2 };
 export type QueueJob = Omit<PoolJob, 'budgetMs' | 'signal' | 'onProgress' | 'killOnCancel'>;
 
 export interface EnqueueOptions {
+	/**
+	 * What the line costs, apart from its place in line: a replay's light step needs no heavy process. Heavy
+	 * unless the priority is 'light', when not given.
+	 */
+	weight?: 'light' | 'heavy';
 	budgetMs?: number;
 	signal?: AbortSignal;
 	onProgress?: (p: { done: number; total: number }) => void;
@@ -42,13 +47,15 @@ export interface EvalQueue {
 /** What the queue needs from a pool of evaluators (pool.ts's ProcessPool, or a fake in the unit tests). */
 export interface Runner {
 	readonly size: number;
-	take(): Slot | undefined;
+	/** a free evaluator; heavy lines get only those that run at low CPU priority */
+	take(heavy: boolean): Slot | undefined;
 	run(slot: Slot, job: PoolJob): Promise<PoolAnswer>;
 	onIdle(cb: () => void): void;
 }
 
 interface Waiting {
 	seq: number;
+	heavy: boolean;
 	job: QueueJob;
 	owner: string;
 	priority: Priority;
@@ -84,7 +91,7 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 	const isHeavy = (p: Priority) => p !== 'light';
 
 	function eligible(w: Waiting): boolean {
-		if (!isHeavy(w.priority)) return true;
+		if (!w.heavy) return true;
 		return heavyRunning < heavyCap && countsOf(w.owner).heavy === 0;
 	}
 
@@ -105,10 +112,14 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 		return a.seq < b.seq;
 	}
 
-	function pick(): Waiting | undefined {
-		let best: Waiting | undefined;
-		for (const w of waiting) if (eligible(w) && (!best || ahead(w, best))) best = w;
-		return best;
+	/** The first waiting line, in the order above, that may run now and finds an evaluator of its kind. */
+	function pick(): [Waiting, Slot] | undefined {
+		const order = waiting.filter(eligible).sort((a, b) => (ahead(a, b) ? -1 : ahead(b, a) ? 1 : 0));
+		for (const w of order) {
+			const slot = runner.take(w.heavy);
+			if (slot) return [w, slot];
+		}
+		return undefined;
 	}
 
 	function remove(w: Waiting) {
@@ -121,10 +132,9 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 	function pump() {
 		for (;;) {
 			if (!waiting.length) return;
-			const w = pick();
-			if (!w) return;
-			const slot = runner.take();
-			if (!slot) return;
+			const next = pick();
+			if (!next) return;
+			const [w, slot] = next;
 			remove(w);
 			start(w, slot);
 		}
@@ -133,11 +143,11 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 	function start(w: Waiting, slot: Slot) {
 		const c = { ...countsOf(w.owner) };
 		c.all++;
-		if (isHeavy(w.priority)) c.heavy++;
+		if (w.heavy) c.heavy++;
 		runningBy.set(w.owner, c);
 		lastStart.set(w.owner, ++starts);
 		running++;
-		if (isHeavy(w.priority)) heavyRunning++;
+		if (w.heavy) heavyRunning++;
 		const waitMs = performance.now() - w.enqueuedAt;
 		runner
 			.run(slot, {
@@ -145,18 +155,18 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 				budgetMs: w.opts.budgetMs ?? settings.budgetMs,
 				signal: w.opts.signal,
 				onProgress: w.opts.onProgress,
-				killOnCancel: isHeavy(w.priority)
+				killOnCancel: w.heavy
 			})
 			.then((a) => w.done({ ...a, waitMs }))
 			.finally(() => {
 				const now = countsOf(w.owner);
-				const next = { all: now.all - 1, heavy: now.heavy - (isHeavy(w.priority) ? 1 : 0) };
+				const next = { all: now.all - 1, heavy: now.heavy - (w.heavy ? 1 : 0) };
 				if (next.all === 0) {
 					runningBy.delete(w.owner);
 					if (!waiting.some((o) => o.owner === w.owner)) lastStart.delete(w.owner);
 				} else runningBy.set(w.owner, next);
 				running--;
-				if (isHeavy(w.priority)) heavyRunning--;
+				if (w.heavy) heavyRunning--;
 				pump();
 			});
 	}
@@ -177,6 +187,7 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 				}
 				const w: Waiting = {
 					seq: ++seq,
+					heavy: opts.weight ? opts.weight === 'heavy' : isHeavy(priority),
 					job,
 					owner,
 					priority,
