@@ -79,8 +79,12 @@ function refusal(input: string, code: 'busy' | 'throttled' | 'limit', message: s
 export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQueue {
 	const waiting: Waiting[] = [];
 	const runningBy = new Map<string, { all: number; heavy: number }>();
-	/** when each owner's latest line started (pruned with the owners that have nothing running or waiting) */
+	/**
+	 * When each owner's latest light and latest heavy line started (pruned with the owners that have nothing
+	 * running or waiting): turns are taken per kind, so a replay's light steps do not use up its heavy turn.
+	 */
 	const lastStart = new Map<string, number>();
+	const turnKey = (w: Waiting) => `${w.heavy ? 'h' : 'l'}:${w.owner}`;
 	let starts = 0;
 	let running = 0;
 	let heavyRunning = 0;
@@ -103,9 +107,9 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 	function ahead(a: Waiting, b: Waiting): boolean {
 		const byRunning = countsOf(a.owner).all - countsOf(b.owner).all;
 		if (byRunning !== 0) return byRunning < 0;
-		const byLight = Number(isHeavy(a.priority)) - Number(isHeavy(b.priority));
+		const byLight = Number(a.heavy) - Number(b.heavy);
 		if (byLight !== 0) return byLight < 0;
-		const byTurn = (lastStart.get(a.owner) ?? 0) - (lastStart.get(b.owner) ?? 0);
+		const byTurn = (lastStart.get(turnKey(a)) ?? 0) - (lastStart.get(turnKey(b)) ?? 0);
 		if (byTurn !== 0) return byTurn < 0;
 		const byClass = RANK[a.priority] - RANK[b.priority];
 		if (byClass !== 0) return byClass < 0;
@@ -145,7 +149,7 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 		c.all++;
 		if (w.heavy) c.heavy++;
 		runningBy.set(w.owner, c);
-		lastStart.set(w.owner, ++starts);
+		lastStart.set(turnKey(w), ++starts);
 		running++;
 		if (w.heavy) heavyRunning++;
 		const waitMs = performance.now() - w.enqueuedAt;
@@ -163,7 +167,10 @@ export function createEvalQueue(runner: Runner, settings: QueueSettings): EvalQu
 				const next = { all: now.all - 1, heavy: now.heavy - (w.heavy ? 1 : 0) };
 				if (next.all === 0) {
 					runningBy.delete(w.owner);
-					if (!waiting.some((o) => o.owner === w.owner)) lastStart.delete(w.owner);
+					if (!waiting.some((o) => o.owner === w.owner)) {
+						lastStart.delete(`h:${w.owner}`);
+						lastStart.delete(`l:${w.owner}`);
+					}
 				} else runningBy.set(w.owner, next);
 				running--;
 				if (w.heavy) heavyRunning--;
