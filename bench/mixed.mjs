@@ -14,11 +14,13 @@ const HEAVY_CONCURRENCY = 3;
 const REPLAYERS = 10;
 const SLUG = 'sable-boosted-first-law';
 
-// every bench client comes from 127.0.0.1, so the per-address replay limit is lifted to let ten "clients" through
-const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000', BULKPAD_REPLAY_PER_MINUTE: '1000000' });
+// every bench client comes from 127.0.0.1, so each replayer says who it is in X-Forwarded-For (read through
+// adapter-node's ADDRESS_HEADER) and meets the real per-address replay limit as ten separate clients would
+const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000', ADDRESS_HEADER: 'x-forwarded-for' });
 try {
-	const lightKey = await apiKeyFor(server.baseUrl, 'tomas@sable.test');
-	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test');
+	const local = { 'x-forwarded-for': '127.0.0.1' };
+	const lightKey = await apiKeyFor(server.baseUrl, 'tomas@sable.test', undefined, local);
+	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test', undefined, local);
 	const light = (duration = DURATION) =>
 		autocannon({
 			url: `${server.baseUrl}/api/eval`,
@@ -27,7 +29,7 @@ try {
 			duration,
 			// a request still unanswered after 30 s counts as an error (autocannon's default is 10 s)
 			timeout: 30,
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${lightKey}` },
+			headers: { 'content-type': 'application/json', authorization: `Bearer ${lightKey}`, ...local },
 			body: JSON.stringify({ input: LIGHT })
 		});
 	await light(3); // warm the processes and the JIT
@@ -50,14 +52,16 @@ try {
 	const heavyCall = () =>
 		fetch(`${server.baseUrl}/api/eval`, {
 			method: 'POST',
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${heavyKey}` },
+			headers: { 'content-type': 'application/json', authorization: `Bearer ${heavyKey}`, ...local },
 			body: JSON.stringify({ input: HEAVY })
 		}).then(async (r) => (await r.arrayBuffer(), r));
-	const replayCall = () =>
-		fetch(`${server.baseUrl}/api/t/${SLUG}/replay`, { method: 'POST', headers: { origin: server.baseUrl } }).then(async (r) => (await r.arrayBuffer(), r));
+	const replayCall = (i) => () =>
+		fetch(`${server.baseUrl}/api/t/${SLUG}/replay`, { method: 'POST', headers: { origin: server.baseUrl, 'x-forwarded-for': `10.0.0.${i + 1}` } }).then(
+			async (r) => (await r.arrayBuffer(), r)
+		);
 	const background = [
 		...Array.from({ length: HEAVY_CONCURRENCY }, () => loop('heavy', heavyCall)),
-		...Array.from({ length: REPLAYERS }, () => loop('replay', replayCall))
+		...Array.from({ length: REPLAYERS }, (_, i) => loop('replay', replayCall(i)))
 	];
 	await new Promise((r) => setTimeout(r, 500)); // let the heavy lines reach their processes
 	const mixed = await light();
@@ -82,7 +86,8 @@ anonymous clients replay the demo transcript back to back. ${machineLine().start
 
 A request unanswered after 30 s would count as an error. Light p99 under mixed load / idle p99: **×${ratio.toFixed(2)}** (goal ≤ ×3, zero errors and zero 5xx).
 Heavy answers: ${fmt(statuses.heavy)} (422 = stopped at its own 5 s budget; one heavy line per member runs at a time).
-Replay answers: ${fmt(statuses.replay)} (an unchanged transcript reuses its last fresh run; clients replaying at once share one run).`
+Replay answers: ${fmt(statuses.replay)} (each client at the default limit of ${process.env.BULKPAD_REPLAY_PER_MINUTE ?? 20} replays a minute per address, then 429;
+an unchanged transcript reuses its last fresh run; clients replaying at once share one run).`
 	);
 } finally {
 	await server.stop();

@@ -42,16 +42,17 @@ export async function startBuiltServer(extraEnv = {}) {
 	};
 }
 
-export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo') {
+/** `headers` go with both requests (e.g. X-Forwarded-For when the server reads addresses from it). */
+export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo', headers = {}) {
 	const r = await fetch(`${baseUrl}/api/auth/signin`, {
 		method: 'POST',
-		headers: { 'content-type': 'application/json', origin: baseUrl },
+		headers: { 'content-type': 'application/json', origin: baseUrl, ...headers },
 		body: JSON.stringify({ email, password })
 	});
 	const cookie = r.headers.getSetCookie().find((c) => c.startsWith('auth_session='))?.split(';')[0];
 	const k = await fetch(`${baseUrl}/api/keys`, {
 		method: 'POST',
-		headers: { 'content-type': 'application/json', origin: baseUrl, cookie },
+		headers: { 'content-type': 'application/json', origin: baseUrl, cookie, ...headers },
 		body: JSON.stringify({ label: 'bench' })
 	});
 	const body = await k.json();
