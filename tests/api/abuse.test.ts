@@ -3,6 +3,7 @@
 // and nothing one user sent changed what the next user computes.
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Client, freshMember, signedIn } from '../helpers/client';
+import { padWithSteps, sql } from './support/pads';
 
 /** f = 1 − z⁴ in d = 4 is the planar brane, so a metric line must give the brane's ΔA (same engine, same l). */
 const CLEAN_METRIC = 'use metric d=4 f="1-z^4" zh=1; darea l=0.5 o=exact';
@@ -138,6 +139,44 @@ describe('replays', () => {
 		const again = await anon.post(`/api/t/${DEMO_SLUG}/replay`);
 		expect(again.body.reused).toBe(true);
 		expect(again.body.steps.map((s: any) => [s.n, s.drift])).toEqual(r.body.steps.map((s: any) => [s.n, s.drift]));
+	});
+});
+
+describe('replay limits', () => {
+	it('limits fresh anonymous replays of one transcript, whatever the address', async () => {
+		const owner = await freshMember('macro-user');
+		// a step through the library ('@') is never reused, so every replay of this transcript runs afresh
+		const pad = await padWithSteps(owner, 'Macro replay', ['@btz-check l=1 c=12']);
+		const slug = (await owner.post(`/api/pads/${pad}/share`, {})).body.slug as string;
+		const anon = new Client();
+		// the test server's per-transcript limit is the default, 6 fresh runs a minute
+		for (let i = 0; i < 6; i++) {
+			const r = await anon.post(`/api/t/${slug}/replay`);
+			expect(r.status, JSON.stringify(r.body)).toBe(200);
+			expect(r.body.reused).toBeUndefined();
+		}
+		const seventh = await anon.post(`/api/t/${slug}/replay`);
+		expect(seventh.status).toBe(429);
+		expect(seventh.body.error.message).toMatch(/^This transcript is being replayed too often; try again in \d+ s\.$/);
+		// its owner is not an anonymous client: members replay without the transcript's limit
+		expect((await owner.post(`/api/pads/${pad}/replay`)).status).toBe(200);
+	});
+
+	it('stops a replay at its total budget and reports the remaining steps as skipped', async () => {
+		const owner = await freshMember('long-replay');
+		const pad = await padWithSteps(owner, 'Long replay', Array.from({ length: 11 }, () => 'zstar l=0.5'));
+		// eleven steps that each run to the 2 s line budget: past the test server's 20 s replay budget
+		sql("UPDATE steps SET input = '#test-hook spin' WHERE pad_id = ?", pad);
+		const r = await owner.post(`/api/pads/${pad}/replay`);
+		expect(r.status).toBe(200);
+		const ran = r.body.steps.filter((s: any) => !s.skipped);
+		const skipped = r.body.steps.filter((s: any) => s.skipped);
+		expect(skipped.length).toBeGreaterThanOrEqual(1);
+		expect(ran.length + skipped.length).toBe(11);
+		for (const s of skipped) expect(s.error.message).toBe('not replayed: the replay used its budget of 20.0 s');
+		for (const s of ran) expect(s.error.message).toMatch(/^evaluation stopped: over the time budget of \d\.\d s$/);
+		expect(r.body.skipped).toBe(skipped.length);
+		await expectServerFine();
 	});
 });
 
