@@ -19,7 +19,7 @@ if (!existsSync(`${buildDir}/index.js`) || !existsSync(worker)) throw new Error(
 
 const dir = mkdtempSync(join(tmpdir(), 'bulkpad-web-'));
 const env = { ...process.env, DATABASE_URL: join(dir, 'web.db'), NODE_ENV: 'production', BULKPAD_INSECURE_COOKIES: '1' };
-const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
+const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts', '--demo'], { env, encoding: 'utf8' });
 if (seed.status !== 0) throw new Error(seed.stderr);
 const port = await freePort();
 const baseUrl = `http://127.0.0.1:${port}`;

@@ -1,16 +1,22 @@
-// Demo data for a first start: the (fictional) Sable holography group, its people, pads, library and a
-// dataset. Runs only when the database has no users. Every result is computed by the engine now — nothing
-// here is a recorded number except the dataset, which is invented demo data (exact ΔA with a small
-// deterministic wobble standing in for someone's lattice numerics).
-import { count } from 'drizzle-orm';
+// `seed --demo` (or BULKPAD_DEMO=1): demo data for a first start — the (fictional) Sable holography group, its
+// people, pads, library and a dataset — only when the database has no users. Every result is computed by the
+// engine now; nothing here is a recorded number except the dataset, which is invented demo data (exact ΔA
+// with a small deterministic wobble standing in for someone's lattice numerics).
+// `seed` without the demo is the production path: it never makes an account, and fails while the demo's
+// accounts (known password) are in the database unless BULKPAD_KEEP_DEMO=1 says to keep them.
+import { count, eq, like } from 'drizzle-orm';
 import { openDb, schema } from '../src/lib/server/db/index';
 import { createUser, newId } from '../src/lib/server/auth/accounts';
+import { setSignupPolicy } from '../src/lib/server/auth/policy';
+import { hashToken, newToken } from '../src/lib/server/auth/tokens';
 import { createPad, finishStep, startStep, type PadRow } from '../src/lib/server/pads';
 import { runLine } from '../src/lib/lang/index';
 import type { PadContext, StepRef } from '../src/lib/lang/result';
-import { eq } from 'drizzle-orm';
+
 
 export const DEMO_PASSWORD = 'bulkpad-demo';
+/** every demo account's address ends so: the production start refuses to run while any exists */
+export const DEMO_DOMAIN = '@sable.test';
 
 const people = [
 	{ email: 'curator@sable.test', name: 'Noor Halvorsen', role: 'admin' },
@@ -111,15 +117,17 @@ function demoDataset() {
 	return rows;
 }
 
-export async function seedIfEmpty(): Promise<boolean> {
+export async function seedDemoIfEmpty(): Promise<boolean> {
 	const { db } = openDb();
 	const n = db.select({ n: count() }).from(schema.users).get()?.n ?? 0;
 	if (n > 0) return false;
 	const ids: Record<string, string> = {};
 	for (const p of people) {
-		const u = await createUser({ email: p.email, name: p.name, password: DEMO_PASSWORD }, p.role);
+		const u = await createUser({ email: p.email, name: p.name, password: DEMO_PASSWORD }, p.role, { confirmed: true });
 		ids[p.email] = u.id;
 	}
+	// the demo is for trying Bulkpad out: anyone may make an account (each still confirms its address)
+	setSignupPolicy({ mode: 'open', domains: [] });
 	for (const m of library) {
 		const id = newId();
 		db.insert(schema.macros)
@@ -139,12 +147,54 @@ export async function seedIfEmpty(): Promise<boolean> {
 		if (p.share) {
 			db.insert(schema.shares).values({ slug: 'sable-boosted-first-law', padId: pad.id, createdBy: ids[p.owner] }).run();
 		}
-		if (p.invite) db.insert(schema.padAccess).values({ padId: pad.id, email: p.invite }).run();
+		if (p.invite) {
+			// an invitation the referee has accepted already; its token was never mailed and is thrown away
+			const now = new Date();
+			db.insert(schema.invitations)
+				.values({
+					id: newId(),
+					padId: pad.id,
+					email: p.invite,
+					tokenHash: hashToken(newToken()),
+					invitedBy: ids[p.owner],
+					state: 'accepted',
+					acceptedBy: ids[p.invite],
+					acceptedAt: now,
+					expiresAt: now
+				})
+				.run();
+			db.insert(schema.padAccess).values({ padId: pad.id, email: p.invite }).run();
+		}
 	}
 	return true;
 }
 
+/** The production path: what is in the database, and whether it may be served. */
+export function checkProduction(keepDemo: boolean): { ok: boolean; message: string } {
+	const { db } = openDb();
+	const demo = db.select({ email: schema.users.email }).from(schema.users).where(like(schema.users.email, `%${DEMO_DOMAIN}`)).all();
+	if (demo.length > 0 && !keepDemo) {
+		return {
+			ok: false,
+			message:
+				`This database holds the demo's accounts (${demo.map((d) => d.email).join(', ')}), whose password is published. ` +
+				'Use another DATABASE_URL for production, or set BULKPAD_KEEP_DEMO=1 to serve the demo anyway.'
+		};
+	}
+	const admins = db.select({ n: count() }).from(schema.users).where(eq(schema.users.role, 'admin')).get()?.n ?? 0;
+	return {
+		ok: true,
+		message: admins > 0 ? 'production start: no demo data' : 'production start: no admin yet; make the first one with: npm run setup-admin -- --email you@example.org'
+	};
+}
+
 if (import.meta.url === `file://${process.argv[1]}`) {
-	const seeded = await seedIfEmpty();
-	console.log(seeded ? 'seeded the Sable group demo data' : 'database has users already: no seed');
+	if (process.argv.includes('--demo') || process.env.BULKPAD_DEMO === '1') {
+		const seeded = await seedDemoIfEmpty();
+		console.log(seeded ? 'seeded the Sable group demo data' : 'database has users already: no seed');
+	} else {
+		const { ok, message } = checkProduction(process.env.BULKPAD_KEEP_DEMO === '1');
+		(ok ? console.log : console.error)(message);
+		if (!ok) process.exit(2);
+	}
 }

@@ -1,5 +1,6 @@
 // `npm test`: unit, API and browser tests. The API and browser tests run against the real built server, so
-// this builds first. Chromium is installed when missing or the run fails — browser tests are never skipped.
+// this builds first. Chromium and pdflatex (the LaTeX export's compile test) are installed when missing or the
+// run fails — those tests are never skipped.
 import { spawnSync } from 'node:child_process';
 
 const step = (label, cmd, args) => {
@@ -15,6 +16,7 @@ const step = (label, cmd, args) => {
 
 const node = process.execPath;
 step('chromium', node, ['scripts/ensure-chromium.mjs']);
+step('pdflatex', node, ['scripts/ensure-texlive.mjs']);
 step('build (worker + app)', node, ['scripts/build-worker.mjs']);
 step('vite build', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']);
 step('vitest (unit, api, e2e)', node, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)]);

@@ -1,17 +1,36 @@
 import type { Handle, HandleServerError, ServerInit } from '@sveltejs/kit';
+import { json, text } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { warmPool } from '$lib/server/eval/pool';
 import { randomUUID } from 'node:crypto';
-import { getLucia } from '$lib/server/auth/lucia';
+import { authenticateSession } from '$lib/server/auth/sessions';
 import { findUserByApiKey } from '$lib/server/auth/apikey';
+import { applySecurityHeaders } from '$lib/server/security/headers';
+import { judgeWrite } from '$lib/server/security/writes';
 
 export const init: ServerInit = () => {
 	// start the evaluation processes in the background; requests do not wait for them
 	if (!building) warmPool().catch((e) => console.error('could not warm the evaluation pool', e));
 };
 
+/** Outermost, so every answer gets the headers: pages, JSON, downloads, redirects and the refusals below. */
+const secureHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	applySecurityHeaders(response.headers, event.url);
+	return response;
+};
+
+/** Before anyone is signed in: a cross-site write is refused whatever cookie or key it carries. */
+const refuseCrossSiteWrites: Handle = async ({ event, resolve }) => {
+	const verdict = judgeWrite(event.request, event.url);
+	if (verdict.ok) return resolve(event);
+	if (event.url.pathname.startsWith('/api/')) return json({ ok: false, error: { message: verdict.message } }, { status: verdict.status });
+	return text(verdict.message, { status: verdict.status });
+};
+
 /** Bearer keys for scripts; the session cookie for browsers. Roles are checked in each route. */
-export const handle: Handle = async ({ event, resolve }) => {
+const authenticate: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	event.locals.session = null;
 	event.locals.via = null;
@@ -26,27 +45,11 @@ export const handle: Handle = async ({ event, resolve }) => {
 		return resolve(event);
 	}
 
-	const lucia = getLucia();
-	const sessionId = event.cookies.get(lucia.sessionCookieName);
-	if (sessionId) {
-		const { session, user } = await lucia.validateSession(sessionId);
-		if (session?.fresh) {
-			const c = lucia.createSessionCookie(session.id);
-			event.cookies.set(c.name, c.value, { path: '.', ...c.attributes });
-		}
-		if (!session) {
-			const c = lucia.createBlankSessionCookie();
-			event.cookies.set(c.name, c.value, { path: '.', ...c.attributes });
-		}
-		event.locals.session = session;
-		event.locals.user = user ? { id: user.id, email: user.email, name: user.name, role: user.role } : null;
-		if (user) event.locals.via = 'session';
-	}
-	const response = await resolve(event);
-	response.headers.set('x-content-type-options', 'nosniff');
-	response.headers.set('referrer-policy', 'same-origin');
-	return response;
+	await authenticateSession(event);
+	return resolve(event);
 };
+
+export const handle: Handle = sequence(secureHeaders, refuseCrossSiteWrites, authenticate);
 
 export const handleError: HandleServerError = ({ error, event, status }) => {
 	const id = randomUUID().slice(0, 8);

@@ -19,7 +19,7 @@ export async function startBuiltServer(extraEnv = {}) {
 	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) throw new Error('build first: npm run build');
 	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
 	const env = { ...process.env, DATABASE_URL: join(dir, 'bench.db'), NODE_ENV: 'production', ...extraEnv };
-	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });
+	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts', '--demo'], { env, encoding: 'utf8' });
 	if (seed.status !== 0) throw new Error(seed.stderr);
 	const port = await freePort();
 	const baseUrl = `http://127.0.0.1:${port}`;

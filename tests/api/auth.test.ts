@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { Client, DEMO_PASSWORD, signedIn } from '../helpers/client';
+import { Client, DEMO_PASSWORD, mailedToken, signUpConfirmed, signedIn } from '../helpers/client';
+import { expectFailure } from '../helpers/roles';
 
 describe('health', () => {
 	it('answers ok after a real query against the seeded database', async () => {
@@ -37,19 +38,20 @@ describe('sign-in', () => {
 		expect(a.body.ok).toBe(false);
 	});
 
-	it('rate-limits repeated attempts on one account with 429, even with the right password', async () => {
-		// the test server allows 30 attempts per e-mail per minute (BULKPAD_SIGNIN_PER_MINUTE)
+	it('slows wrong passwords on one account with 429 and Retry-After, and the right password still gets in', async () => {
+		// the test server allows 30 wrong passwords per account and client per minute (BULKPAD_SIGNIN_PER_MINUTE);
+		// only failures count, so the owner's right password is never refused for someone's wrong tries
 		const email = `target-${Date.now()}@tests.test`;
-		await new Client().post('/api/auth/signup', { email, password: 'the right one!', name: 'Target' });
+		await signUpConfirmed(email, 'the right one!', 'Target');
 		const statuses: number[] = [];
-		for (let i = 0; i < 30; i++) {
-			const r = await new Client().post('/api/auth/signin', { email, password: `guess-${i}` });
-			statuses.push(r.status);
-		}
+		for (let i = 0; i < 10; i++) statuses.push((await new Client().post('/api/auth/signin', { email, password: `guess-${i}` })).status);
 		expect(statuses.every((s) => s === 401)).toBe(true);
-		const blocked = await new Client().post('/api/auth/signin', { email, password: 'the right one!' });
+		expect((await new Client().post('/api/auth/signin', { email, password: 'the right one!' })).status).toBe(200);
+		for (let i = 10; i < 30; i++) expect((await new Client().post('/api/auth/signin', { email, password: `guess-${i}` })).status).toBe(401);
+		const blocked = await new Client().post('/api/auth/signin', { email, password: `guess-30` });
 		expect(blocked.status).toBe(429);
 		expect(blocked.body.error.message).toMatch(/try again in \d+ s/);
+		expect(Number(blocked.headers.get('retry-after'))).toBeGreaterThan(0);
 	});
 
 	it('rejects a malformed body with 400 and the zod issues', async () => {
@@ -59,30 +61,46 @@ describe('sign-in', () => {
 		expect(Array.isArray(r.body.error.issues)).toBe(true);
 	});
 
-	it('signs up a member, refuses a second account with the same e-mail, and signs out', async () => {
+	it('signs up a member who confirms the address by mail before signing in, refuses a twin account, and signs out', async () => {
 		const c = new Client();
 		const email = `new-${Date.now()}@tests.test`;
 		const r = await c.post('/api/auth/signup', { email, password: 'long enough pw', name: 'New Theorist' });
 		expect(r.status).toBe(201);
 		expect(r.body.user).toMatchObject({ email, role: 'member' });
+		expect(r.body.confirmation).toEqual({ to: email, status: 'sent' });
+		// no session before the address is confirmed, and sign-in says why
+		expect(c.cookie).toBe('');
+		expect((await c.get('/api/auth/me')).status).toBe(401);
+		const early = await new Client().post('/api/auth/signin', { email, password: 'long enough pw' });
+		expect(early.status).toBe(403);
+		expect(early.body.error.message).toContain(`Confirm your address: we sent a link to ${email}`);
 		const again = await new Client().post('/api/auth/signup', { email, password: 'long enough pw', name: 'Twin' });
 		expect(again.status).toBe(409);
+
+		const token = await mailedToken(email, 'confirm');
+		expectFailure(await new Client().post('/api/auth/confirm', { token: token + 'x' }), 400);
+		expect((await new Client().post('/api/auth/confirm', { token })).body).toMatchObject({ ok: true, email, padId: null });
+		expectFailure(await new Client().post('/api/auth/confirm', { token }), 400);
+		expect((await c.post('/api/auth/signin', { email, password: 'long enough pw' })).status).toBe(200);
+		expect((await c.get('/api/auth/me')).body.user.email).toBe(email);
 		expect((await c.post('/api/auth/signout')).status).toBe(200);
 		expect((await c.get('/api/auth/me')).status).toBe(401);
 	});
 
-	it('signs up someone invited to a pad as a reader (an admin promotes them)', async () => {
-		const { freshMember } = await import('../helpers/client');
-		const owner = await freshMember('inviter');
-		const pad = (await owner.post('/api/pads', { title: 'for the referee' })).body.pad.id;
-		const email = `referee-${Date.now()}@tests.test`;
-		expect((await owner.post(`/api/pads/${pad}/invite`, { email })).status).toBe(200);
-		const c = new Client();
-		const r = await c.post('/api/auth/signup', { email, password: 'long enough pw', name: 'Referee' });
-		expect(r.status).toBe(201);
-		expect(r.body.user.role).toBe('reader');
-		expect((await c.get(`/api/pads/${pad}`)).status).toBe(200);
-		expect((await c.post('/api/eval', { input: 'zstar l=0.2' })).status).toBe(403);
+	it('mails a new confirmation link on request, answering the same for any address', async () => {
+		const email = `resend-${Date.now()}@tests.test`;
+		await new Client().post('/api/auth/signup', { email, password: 'long enough pw', name: 'Slow Reader' });
+		const first = await mailedToken(email, 'confirm');
+		expect((await new Client().post('/api/auth/confirm/resend', { email })).body).toEqual({ ok: true });
+		expect((await new Client().post('/api/auth/confirm/resend', { email: `ghost-${Date.now()}@tests.test` })).body).toEqual({ ok: true });
+		let second = first;
+		for (let i = 0; i < 150 && second === first; i++) {
+			await new Promise((r) => setTimeout(r, 100));
+			second = await mailedToken(email, 'confirm');
+		}
+		expect(second).not.toBe(first);
+		expect((await new Client().post('/api/auth/confirm', { token: second })).status).toBe(200);
+		expect((await new Client().post('/api/auth/signin', { email, password: 'long enough pw' })).status).toBe(200);
 	});
 
 	it('stores an argon2id hash, never the password', async () => {

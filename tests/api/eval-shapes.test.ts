@@ -38,6 +38,19 @@ describe('result shapes of POST /api/eval (API.md)', () => {
 		}
 	});
 
+	it('issue 11 fields: resum error, validity radius_err, entropy note, the soliton phases record', async () => {
+		const [r] = await results('resum l=0.8 o=6');
+		expect(r).toMatchObject({ kind: 'scalar', label: expect.stringMatching(/± /), note: expect.any(String) });
+		expect(typeof (r.fields as Record<string, unknown>).error).toBe('number');
+		const [v] = await results('validity darea o=3');
+		expect(typeof (v.fields as Record<string, unknown>).radius_err).toBe('number');
+		const [s] = await results('entropy l=0.4');
+		expect(s).toMatchObject({ label: expect.stringMatching(/^S_fin/), note: expect.stringContaining('subtracted') });
+		const [, p] = await results('use soliton d=4; phases');
+		expect(p.kind).toBe('record');
+		for (const f of ['l_c', 'l_max', 'dA_dl_jump']) expect(typeof (p.fields as Record<string, unknown>)[f], f).toBe('number');
+	});
+
 	it('table: first column the swept key, then o1, o2, exact', async () => {
 		const [t] = await results('darea l=0.1,0.2 o=1,2,exact');
 		expect(t).toMatchObject({ kind: 'table', label: expect.any(String), columns: ['l', 'o1', 'o2', 'exact'] });

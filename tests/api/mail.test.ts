@@ -2,7 +2,7 @@
 // password reset end to end, and the admin outbox.
 import { createHash } from 'node:crypto';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
-import { Client, freshMember } from '../helpers/client';
+import { Client, freshMember, mailedToken, signUpConfirmed } from '../helpers/client';
 import { expectFailure, freshWithRole, signInPatiently } from '../helpers/roles';
 import { emailOf, receivedMail, sql, waitForMail } from './support/pads';
 
@@ -20,48 +20,68 @@ beforeAll(async () => {
 });
 
 describe('invitations', () => {
-	it('records access, sends a real message and lists it in the outbox', async () => {
+	it('mails a single-use link, grants nothing until it is accepted, and the outbox keeps the message without the link', async () => {
 		const to = await emailOf(reader);
 		const r = await owner.post(`/api/pads/${padId}/invite`, { email: to.toUpperCase() });
 		expect(r.status, JSON.stringify(r.body)).toBe(200);
-		expect(r.body).toEqual({ ok: true, mail: { status: 'sent' } });
+		expect(r.body).toMatchObject({ ok: true, mail: { status: 'sent' }, invitation: { email: to, state: 'pending' } });
 
-		const mail = await waitForMail(to);
+		const mail = await waitForMail(to, (m) => m.subject.includes('shared a Bulkpad pad'));
 		expect(mail.subject).toBe('mail-owner shared a Bulkpad pad with you: Mutual information at small gap');
 		expect(mail.from).toContain('Bulkpad');
-		expect(mail.text).toContain(`${inject('baseUrl')}/shared/${padId}`);
-		expect(mail.text).not.toContain('/signup');
+		const token = await mailedToken(to, 'invite');
+		expect(mail.text).toContain(`${inject('baseUrl')}/invite/${token}`);
+		// only a hash of the token is stored
+		expect(sql('SELECT * FROM invitations WHERE token_hash = ?', token)).toHaveLength(0);
+		expect(sql('SELECT * FROM invitations WHERE token_hash = ?', createHash('sha256').update(token).digest('hex'))).toHaveLength(1);
 
-		// the address now reads the pad, sees it on /shared, and the admin outbox shows the message as sent
+		// the address alone opens nothing
+		expectFailure(await reader.get(`/api/pads/${padId}`), 404);
+		const outbox = await admin.get('/api/admin/outbox');
+		expect(outbox.status).toBe(200);
+		const row = outbox.body.messages.find((m: { to: string; subject: string }) => m.to === to && m.subject === mail.subject);
+		expect(row).toMatchObject({ status: 'sent', error: null, kind: 'invite' });
+		expect(row.text).toContain('[link withheld');
+		expect(JSON.stringify(outbox.body)).not.toContain(token);
+
+		// the invitation page shows the pad; accepting gives read access and spends the link
+		const page = await reader.get(`/invite/${token}`);
+		expect(page.status).toBe(200);
+		expect(page.body).toContain('Mutual information at small gap');
+		const accepted = await reader.post('/api/invitations/accept', { token });
+		expect(accepted.status, JSON.stringify(accepted.body)).toBe(200);
+		expect(accepted.body.pad.id).toBe(padId);
 		expect((await reader.get(`/api/pads/${padId}`)).status).toBe(200);
 		const shared = await reader.get('/shared');
 		expect(shared.status).toBe(200);
 		expect(shared.body).toContain('Mutual information at small gap');
-		const outbox = await admin.get('/api/admin/outbox');
-		expect(outbox.status).toBe(200);
-		const row = outbox.body.messages.find((m: { to: string; subject: string }) => m.to === to && m.subject === mail.subject);
-		expect(row).toMatchObject({ status: 'sent', error: null, text: mail.text.trimEnd() });
+		expectFailure(await (await freshMember('late-comer')).post('/api/invitations/accept', { token }), 404);
 	});
 
-	it('links a transcript when the pad has a live link, and sign-up when the address has no account', async () => {
+	it('links a transcript when the pad has a live link; a newcomer makes an account through the link and reads the pad once confirmed', async () => {
 		const { slug } = (await owner.post(`/api/pads/${padId}/share`, {})).body;
 		const stranger = `nobody-${Date.now()}@tests.test`;
 		expect((await owner.post(`/api/pads/${padId}/invite`, { email: stranger })).status).toBe(200);
 		const mail = await waitForMail(stranger);
 		expect(mail.text).toContain(`${inject('baseUrl')}/t/${slug}`);
-		expect(mail.text).toContain(`${inject('baseUrl')}/signup`);
-		// signing up with the invited address gives access at once
-		const joined = new Client();
-		expect((await joined.post('/api/auth/signup', { email: stranger, password: 'correct horse battery', name: 'Newcomer' })).status).toBe(201);
+		const token = await mailedToken(stranger, 'invite');
+		expect((await new Client().get(`/signup?invite=${token}`)).body).toContain('Mutual information at small gap');
+		const joined = await signUpConfirmed(stranger, 'correct horse battery', 'Newcomer', token);
+		expect((await joined.get('/api/auth/me')).body.user.role).toBe('reader');
 		expect((await joined.get(`/api/pads/${padId}`)).status).toBe(200);
 	});
 
-	it('inviting twice keeps one access row and sends a second message', async () => {
+	it('inviting twice makes two invitations with their own links and grants nothing yet', async () => {
 		const to = `twice-${Date.now()}@tests.test`;
 		await owner.post(`/api/pads/${padId}/invite`, { email: to });
 		await owner.post(`/api/pads/${padId}/invite`, { email: to });
-		expect(sql('SELECT * FROM pad_access WHERE pad_id = ? AND email = ?', padId, to)).toHaveLength(1);
+		expect(sql('SELECT * FROM invitations WHERE pad_id = ? AND email = ?', padId, to)).toHaveLength(2);
+		expect(sql('SELECT * FROM pad_access WHERE pad_id = ? AND email = ?', padId, to)).toHaveLength(0);
 		await waitForMail(to, () => receivedMail().filter((m) => m.to.includes(to)).length === 2);
+		const links = receivedMail()
+			.filter((m) => m.to.includes(to))
+			.map((m) => /\/invite\/([A-Za-z0-9_-]+)/.exec(m.text)?.[1]);
+		expect(new Set(links).size).toBe(2);
 	});
 
 	it('is for the owner, with a valid address that is not their own', async () => {
@@ -104,6 +124,11 @@ describe('password reset', () => {
 		expect(sql('SELECT * FROM password_resets WHERE token_hash = ?', token)).toHaveLength(0);
 		expect(sql('SELECT * FROM password_resets WHERE token_hash = ?', createHash('sha256').update(token).digest('hex'))).toHaveLength(1);
 
+		// the admin outbox says a reset link went out, to whom and when, but not the link
+		const outbox = (await admin.get('/api/admin/outbox')).body.messages.find((m: { to: string; kind: string }) => m.to === email && m.kind === 'reset');
+		expect(outbox).toMatchObject({ status: 'sent', subject: 'Set a new Bulkpad password' });
+		expect(outbox.text).not.toContain(token);
+
 		// the page for the link shows the form
 		expect((await new Client().get(`/reset/${token}`)).body).toContain('name="password"');
 
@@ -130,7 +155,7 @@ describe('password reset', () => {
 		const known = await freshMember('reset-known');
 		const knownEmail = await emailOf(known);
 		await new Client().post('/api/auth/reset', { email: knownEmail });
-		await waitForMail(knownEmail);
+		await waitForMail(knownEmail, (m) => m.subject === 'Set a new Bulkpad password');
 		expect(receivedMail().some((m) => m.to.includes(unknown))).toBe(false);
 		expectFailure(await new Client().post('/api/auth/reset', { email: 'nope' }), 400);
 	});
@@ -139,9 +164,10 @@ describe('password reset', () => {
 		const user = await freshMember('reset-expiry');
 		const email = await emailOf(user);
 		await new Client().post('/api/auth/reset', { email });
-		const first = tokenOf((await waitForMail(email)).text);
+		const isReset = (m: { subject: string }) => m.subject === 'Set a new Bulkpad password';
+		const first = tokenOf((await waitForMail(email, isReset)).text);
 		await new Client().post('/api/auth/reset', { email });
-		const second = tokenOf((await waitForMail(email, (m) => !m.text.includes(first))).text);
+		const second = tokenOf((await waitForMail(email, (m) => isReset(m) && !m.text.includes(first))).text);
 		expect(second).not.toBe(first);
 
 		sql('UPDATE password_resets SET expires_at = ? WHERE token_hash = ?', Date.now() - 1000, createHash('sha256').update(second).digest('hex'));
@@ -156,5 +182,7 @@ describe('password reset', () => {
 		const statuses: number[] = [];
 		for (let i = 0; i < 6; i++) statuses.push((await new Client().post('/api/auth/reset', { email })).status);
 		expect(statuses).toEqual([200, 200, 200, 200, 200, 429]);
+		const limited = await new Client().post('/api/auth/reset', { email });
+		expect(Number(limited.headers.get('retry-after'))).toBeGreaterThan(0);
 	});
 });

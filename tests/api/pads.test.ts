@@ -5,9 +5,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { Client, freshMember } from '../helpers/client';
+import { Client, freshMember, inviteAndAccept } from '../helpers/client';
 import { expectFailure, freshWithRole, signInPatiently } from '../helpers/roles';
-import { emailOf, padWithSteps } from './support/pads';
+import { padWithSteps } from './support/pads';
 
 const LINES = ['use brane d=3 zh=1', 'darea l=0.3 o=2', 'sweep darea l=0.1..0.5:5 o=1,exact', 'coeffs darea o=3 | tex', '#2 * 2', 'thermo'];
 
@@ -50,7 +50,7 @@ describe('CRUD', () => {
 	});
 
 	it('gives a default title to an empty body and refuses bad titles', async () => {
-		const empty = await owner.request('POST', '/api/pads');
+		const empty = await owner.request('POST', '/api/pads', undefined, { 'content-type': 'application/json' });
 		expect(empty.status).toBe(201);
 		expect(empty.body.pad.title.length).toBeGreaterThan(0);
 		expectFailure(await owner.post('/api/pads', { title: '' }), 400);
@@ -99,7 +99,7 @@ describe('other people', () => {
 
 	it('lets an invited reader read and export but not change the pad', async () => {
 		expectFailure(await reader.get(`/api/pads/${padId}`), 404);
-		expect((await owner.post(`/api/pads/${padId}/invite`, { email: await emailOf(reader) })).status).toBe(200);
+		await inviteAndAccept(owner, padId, reader);
 
 		const r = await reader.get(`/api/pads/${padId}`);
 		expect(r.status).toBe(200);
@@ -115,7 +115,7 @@ describe('other people', () => {
 
 	it('lets an invited member read but answers 404 to changes, as for any pad not theirs', async () => {
 		const invited = await freshMember('pad-invited');
-		expect((await owner.post(`/api/pads/${padId}/invite`, { email: await emailOf(invited) })).status).toBe(200);
+		await inviteAndAccept(owner, padId, invited);
 		expect((await invited.get(`/api/pads/${padId}`)).status).toBe(200);
 		expectFailure(await invited.patch(`/api/pads/${padId}`, { title: 'taken' }), 404);
 		expectFailure(await invited.del(`/api/pads/${padId}`), 404);

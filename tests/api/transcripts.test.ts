@@ -1,7 +1,7 @@
 // Share links, public transcripts, replay with drift marks, fork, and the replay rate limit.
 import { request as httpRequest, Agent } from 'node:http';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
-import { Client, freshMember } from '../helpers/client';
+import { Client, freshMember, inviteAndAccept } from '../helpers/client';
 import { expectFailure, freshWithRole, signInPatiently } from '../helpers/roles';
 import { padWithSteps, sql } from './support/pads';
 
@@ -198,7 +198,7 @@ describe('replay', () => {
 
 	it('replays an invited pad for the person invited (the /shared view), and for nobody else', async () => {
 		expectFailure(await member.post(`/api/pads/${padId}/replay`), 404);
-		expect((await owner.post(`/api/pads/${padId}/invite`, { email: (await member.get('/api/auth/me')).body.user.email })).status).toBe(200);
+		await inviteAndAccept(owner, padId, member);
 		const r = await member.post(`/api/pads/${padId}/replay`);
 		expect(r.status).toBe(200);
 		expect(r.body.drifted).toBe(0);
@@ -239,7 +239,8 @@ describe('fork', () => {
 function postFrom(localAddress: string, path: string, agent: Agent): Promise<number> {
 	const url = new URL(inject('baseUrl') + path);
 	return new Promise((resolve, reject) => {
-		const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', localAddress, agent }, (res) => {
+		const headers = { 'content-type': 'application/json' };
+		const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers, localAddress, agent }, (res) => {
 			res.resume();
 			res.on('end', () => resolve(res.statusCode ?? 0));
 		});

@@ -8,6 +8,7 @@ import { solitonArea, readSolitonParams } from './bulks/soliton';
 import type { Bulk } from './types';
 
 export { tent, mu, firstLaw, firstLawCoefficients, firstLawSeries, areaParameterDerivative } from './firstlaw';
+export type { MuOf } from './firstlaw';
 export type { Order, FirstLawCheck, FirstLawCoefficients, FirstLawDirection, FirstLawSeries, TentResult } from './firstlaw';
 
 export {
@@ -25,7 +26,7 @@ export type { BallDeltaArea } from './ball';
 export { mutualInformationArea, criticalGap } from './mutual';
 export type { MutualInformation, StripArea } from './mutual';
 
-export { resum, resumTent, choosePade } from './resum';
+export { resum, resumTent, choosePade, padeError, RESUM_WARN_REL } from './resum';
 export type { ResumResult } from './resum';
 
 export { padeApproximant, evalPade, nearestPole, polyRoots } from './numeric/pade';
@@ -41,9 +42,11 @@ export {
 	solitonMaxWidth,
 	solitonZstar,
 	solitonArea,
-	solitonCriticalWidth
+	solitonCriticalWidth,
+	solitonPhases,
+	solitonSurface
 } from './bulks/soliton';
-export type { SolitonParams, SolitonArea } from './bulks/soliton';
+export type { SolitonParams, SolitonArea, SolitonPhase, SolitonPhaseChoice, SolitonPhases, SolitonSurface } from './bulks/soliton';
 export { makeDpBulk, dpExponents, dpVacuumAreaFinite, dpStrip } from './bulks/dp';
 export type { DpParams, DpStrip } from './bulks/dp';
 

@@ -3,7 +3,8 @@
  *
  * Definition (PHYSICS.md, "First law of entanglement"): with ΔE = l T_tt and ΔP_y = l T^{ty}, α and ζ solve
  * δΔS = α δΔE + ζ δΔP_y for the variations of the bulk's two parameters at fixed l; T_ent = 1/α, μ = −ζ/α.
- * Static bulks (brane, boosted at v = 0, charged at fixed q) use the one-parameter form: α = δΔS/δΔE, μ = 0.
+ * Static bulks (brane, boosted at v = 0, charged at d = 2 with q = 0) use the one-parameter form: α = δΔS/δΔE,
+ * μ = 0. The charged brane (d ≥ 3) has the same two-parameter form with the charge ΔQ in place of ΔP_y.
  *
  * Parameters. The brane, the boosted brane and the wave are one family of slices
  *   f = 1 − w z^d,  h = 1 + q z^d,  w = zh^{−d},  q = γ²v² zh^{−d}   (wave: w = 0, q = zp^{−d}),
@@ -30,22 +31,31 @@
  * Richardson differences of core's ΔA to 1e-9; expect degradation only within ~1% of the horizon.
  * Caveat: the wave's order-1 α is 4π a₁ l (d−3)/((d−1)(d−2)) — zero at d = 3, where T_ent⁽¹⁾ is infinite.
  *
- * Charged brane (one parameter: w = zh^{−d} at fixed q; the chemical potential conjugate to the charge is not
- * computed): ê = l(d−1)(1+q²) w, and ΔA⁽ⁿ⁾ = l^{2−d} Σ_{K≤nd} c_K (l/zh)^K (series/charged.ts) gives
- *   ∂_wΔA = l² Σ_K (K/d) c_K x^{K−d},  x = l/zh,   α = 4π ∂_wΔA / (l(d−1)(1+q²)),
- * so for charged the arrays of FirstLawSeries run over every power of x = l/zh (not (l/zh)^d) up to nd − d;
- * at first order α = l/c_d, the BNTU value, for every q. Exact: ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA, ∂_zh by the
- * extremality formula above.
+ * Charged brane (two parameters, zh and q): the charge moves along any variation of zh or q, so the relation is
+ *   δΔS = α δΔE + β δΔQ,  T_ent = 1/α,  μ_Q = −β/α   (T_ent ΔS = ΔE − μ_Q ΔQ at first order in the variation),
+ * with ΔE = l e, ΔQ = l ρ and the normalisation of chargedThermo (bulks/charged.ts): action
+ * (1/16πG)∫√−g (R + d(d−1) − F²), A_t = μ(1 − (z/zh)^{d−2}), μ = g_d q/zh, g_d = √((d−1)/(2(d−2))),
+ * ρ̂ = 16πG ρ = 2(d−1) q/(g_d zh^{d−1}). Only μ_Q ΔQ is convention-free (a different Maxwell normalisation
+ * rescales μ and ρ inversely). In (w, q), w = zh^{−d}: ê = l(d−1)(1+q²) w, ρ̂ l = l 2(d−1) q w^{(d−1)/d}/g_d,
+ * and 4π ∂ΔA = α ∂ê + β ∂(ρ̂ l) for ∂ = ∂_w, ∂_q — the same linear algebra as the boost, with ΔP_y → ΔQ.
+ * Order n: ΔA⁽ⁿ⁾ = l^{2−d} Σ_{K≤nd} c_K(q²) (l/zh)^K (series/charged.ts) gives, with x = l/zh,
+ *   ∂_wΔA = l² Σ_K (K/d) c_K x^{K−d},   ∂_qΔA = l² w Σ_K ∂_q c_K x^{K−d},
+ * so for charged the arrays of FirstLawSeries run over every power of x = l/zh (not (l/zh)^d) up to nd − d.
+ * At first order only the z^d term of f enters, ΔA⁽¹⁾ ∝ ê: α = l/c_d (BNTU) and β = 0 for every q.
+ * Large l: ΔA → l s_A + const (s_A = zh^{1−d}), so α → 1/T_H and μ_Q → μ by the thermodynamic first law
+ * de = T ds + μ dρ, with 1/l corrections (tested at l = 20 zh). Exact: ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA and ∂_qΔA
+ * by the extremality formula above. No bulk here is both boosted and charged, so there is no three-term law.
  */
 import { HoloError } from './errors';
 import { solveStrip } from './strip';
 import { areaParameterDerivative } from './dparam';
 import { boostedCoeffPolys, seriesCoeffs } from './series/index';
+import { chargeCoupling } from './bulks/charged';
 import type { Bulk, SeriesCoeff } from './types';
 
 export type Order = number | 'exact';
 
-/** Where a bulk sits in the (w, q) family, or the charged brane's one-parameter form. */
+/** Where a bulk sits in the (w, q) family, or the charged brane's (w, charge) form. */
 interface Family {
 	kind: 'static' | 'boosted' | 'wave' | 'charged';
 	d: number;
@@ -57,6 +67,8 @@ interface Family {
 	scale: number;
 	zh?: number;
 	q2?: number;
+	/** charged: the charge parameter q of f (its sign is μ_Q's) */
+	charge?: number;
 }
 
 function familyOf(bulk: Bulk): Family {
@@ -73,7 +85,8 @@ function familyOf(bulk: Bulk): Family {
 		case 'wave':
 			return { kind: 'wave', d, w: 0, q: Math.pow(p.zp, -d), sign: 1, scale: p.zp };
 		case 'charged':
-			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 as number };
+			if (d === 2) return { kind: 'static', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh };
+			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 as number, charge: p.q as number };
 		default:
 			throw new HoloError(`the first law is defined here for brane, boosted, wave and charged, not ${bulk.name}`, 'bulk');
 	}
@@ -107,11 +120,19 @@ export function coefficientTable(d: number, n: number): number[][] {
 	return rows.slice(0, n);
 }
 
-/** Per-family constants: ê = l(E1 δw + E2 δq), p̂ = l(P1 δw + P2 δq) at the bulk's point. */
+/**
+ * Per-family constants: ê = l(E1 δw + E2 δq), p̂ = l(P1 δw + P2 δq) at the bulk's point. Charged: q is the
+ * charge parameter and p̂ the charge 16πG ΔQ = l ρ̂, ρ̂ = 2(d−1) q w^{(d−1)/d}/g_d (module comment).
+ */
 function energyMomentumSlopes(F: Family): { E1: number; E2: number; P1: number; P2: number } {
 	const d = F.d;
 	if (F.kind === 'wave') return { E1: d - 1, E2: d, P1: d / 2, P2: d };
-	if (F.kind === 'charged') return { E1: (d - 1) * (1 + (F.q2 as number)), E2: 0, P1: 0, P2: 0 };
+	if (F.kind === 'charged') {
+		const q = F.charge as number;
+		const g = chargeCoupling(d);
+		const wr = Math.pow(F.w, (d - 1) / d);
+		return { E1: (d - 1) * (1 + q * q), E2: 2 * (d - 1) * q * F.w, P1: (2 * (d - 1) * q * (d - 1) * wr) / (d * g * F.w), P2: (2 * (d - 1) * wr) / g };
+	}
 	const root = Math.sqrt(F.q * (F.q + F.w));
 	return { E1: d - 1, E2: d, P1: root > 0 ? (d * F.q) / (2 * root) : 0, P2: root > 0 ? (d * (2 * F.q + F.w)) / (2 * root) : Infinity };
 }
@@ -141,6 +162,8 @@ export interface FirstLawCoefficients {
 	tent: number;
 	mu: number;
 	twoParameter: boolean;
+	/** what μ is conjugate to: ΔP_y (boosted, wave), ΔQ (charged), nothing (static: μ = 0) */
+	conjugate: 'momentum' | 'charge' | null;
 	/** ∂ΔA/∂w, ∂ΔA/∂q at this order (or exact) */
 	Aw: number;
 	Aq: number;
@@ -191,17 +214,34 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q, terms };
 }
 
-/** Charged brane at fixed q, order n, in x = l/zh (module comment). */
+/**
+ * Charged brane, order n, in x = l/zh (module comment): W[K−d] = (K/d) c_K, Q[K−d] = w ∂_q c_K with
+ * ∂_q c_K = 2q Σ_j j p_j (q²)^{j−1} from the q²-polynomial of c_K; α, β (here `zeta`) solved as for the boost.
+ */
 function chargedSeries(bulk: Bulk, F: Family, l: number, n: number): FirstLawSeries {
 	const d = F.d;
+	const q = F.charge as number;
+	const q2 = q * q;
 	const terms = seriesCoeffs(bulk, n);
 	const W = new Array<number>(n * d - d + 1).fill(0);
-	for (const t of terms) W[(t.power as number) - d] += ((t.power as number) / d) * t.value;
-	const { E1 } = energyMomentumSlopes(F);
-	const alpha = W.map((x) => (4 * Math.PI * x) / E1);
-	const zero = W.map(() => 0);
+	const Q = W.slice();
+	for (const t of terms) {
+		const i = (t.power as number) - d;
+		W[i] += ((t.power as number) / d) * t.value;
+		const poly = t.poly ?? [t.value];
+		let dq = 0;
+		for (let j = poly.length - 1; j >= 1; j--) dq = dq * q2 + j * poly[j];
+		Q[i] += F.w * 2 * q * dq;
+	}
+	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const D = E1 * P2 - E2 * P1;
+	const alpha = W.map((x, i) => ((4 * Math.PI) / D) * (x * P2 - Q[i] * P1));
+	const zeta = W.map((x, i) => ((4 * Math.PI) / D) * (E1 * Q[i] - E2 * x));
+	// the first term is ∝ ê exactly (c_d = a₁(1+q²)): β₀ = 0 analytically, not up to rounding
+	zeta[0] = 0;
 	const tent = reciprocalSeries(alpha);
-	return { x: l / F.scale, variable: '(l/z_h)', alpha, zeta: zero, tent, mu: zero.slice(), W, Q: zero.slice(), terms };
+	const mu = multiplySeries(zeta, tent).map((v) => -v);
+	return { x: l / F.scale, variable: '(l/z_h)', alpha, zeta, tent, mu, W, Q, terms };
 }
 
 /** 1/Σ a_i x^i to the same length (a_0 ≠ 0). */
@@ -230,13 +270,12 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	checkOrder(order);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const F = familyOf(bulk);
-	const twoParameter = F.kind === 'boosted' || F.kind === 'wave';
+	const twoParameter = F.kind === 'boosted' || F.kind === 'wave' || F.kind === 'charged';
 	let Aw: number;
 	let Aq: number;
 	let series: FirstLawSeries | undefined;
 	if (order === 'exact') {
-		if (F.kind === 'charged') return chargedExact(bulk, F, l);
-		({ Aw, Aq } = exactGradient(bulk, l));
+		({ Aw, Aq } = F.kind === 'charged' ? chargedExactGradient(bulk, F, l) : exactGradient(bulk, l));
 	} else {
 		series = firstLawSeries(bulk, l, order);
 		Aw = l * l * sumSeries(series.W, series.x);
@@ -246,25 +285,29 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	let alpha: number;
 	let zeta = 0;
 	if (!twoParameter) alpha = (4 * Math.PI * Aw) / (l * E1);
-	else {
+	else if (series && F.kind === 'charged') {
+		// summed from the per-power series so that order 1 keeps β = 0 exactly
+		alpha = l * sumSeries(series.alpha, series.x);
+		zeta = l * sumSeries(series.zeta, series.x);
+	} else {
 		const D = l * (E1 * P2 - E2 * P1);
 		alpha = (4 * Math.PI * (Aw * P2 - Aq * P1)) / D;
 		zeta = (F.sign * 4 * Math.PI * (E1 * Aq - E2 * Aw)) / D;
 	}
-	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, Aw, Aq, series };
+	const conjugate = F.kind === 'charged' ? 'charge' : twoParameter ? 'momentum' : null;
+	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, conjugate, Aw, Aq, series };
 }
 
-/** Charged brane at fixed q: α = 4π ∂_zhΔA / ∂_zh ê, ê = l(d−1)(1+q²)/zh^d; Aw = ∂_wΔA, w = zh^{−d}. */
-function chargedExact(bulk: Bulk, F: Family, l: number): FirstLawCoefficients {
+/** Charged brane, exact: Aw = ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA, Aq = ∂_qΔA at fixed zh, both by extremality. */
+function chargedExactGradient(bulk: Bulk, F: Family, l: number): { Aw: number; Aq: number } {
 	const sol = solveStrip(bulk.slice, l);
 	const zh = F.zh as number;
-	// ∂_zh f = −Σ c_j p_j (z/zh)^{p_j} / zh for f = 1 + Σ c_j (z/zh)^{p_j}
+	const q = F.charge as number;
+	// ∂_zh f = −Σ c_j p_j (z/zh)^{p_j} / zh for f = 1 + Σ c_j (z/zh)^{p_j}; ∂_q f = −2q (z/zh)^d + 2q (z/zh)^{2(d−1)}
 	const df = (bulk.slice.fTerms ?? []).filter((t) => t.p !== 0).map((t) => ({ c: (-t.c * t.p) / zh, p: t.p }));
 	const dA = areaParameterDerivative(bulk.slice, sol.point, df, []);
-	const de = (-F.d * l * (F.d - 1) * (1 + (F.q2 as number))) / Math.pow(zh, F.d + 1);
-	const alpha = (4 * Math.PI * dA) / de;
-	const Aw = (-dA * Math.pow(zh, F.d + 1)) / F.d;
-	return { order: 'exact', l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, Aw, Aq: 0 };
+	const Aq = q === 0 ? 0 : areaParameterDerivative(bulk.slice, sol.point, [{ c: -2 * q, p: F.d }, { c: 2 * q, p: 2 * (F.d - 1) }], []);
+	return { Aw: (-dA * Math.pow(zh, F.d + 1)) / F.d, Aq };
 }
 
 export interface TentResult {
@@ -279,10 +322,23 @@ export function tent(bulk: Bulk, l: number, order: Order): TentResult {
 	return { value: r.tent, order, series: r.series };
 }
 
-/** Chemical potential μ = −ζ/α conjugate to ΔP_y at order n or exact (0 for static bulks). */
-export function mu(bulk: Bulk, l: number, order: Order): TentResult {
+export type MuOf = 'momentum' | 'charge';
+
+/**
+ * Chemical potential μ = −ζ/α at order n or exact, conjugate to ΔP_y (boosted, wave; 0 for the static brane)
+ * or to ΔQ (charged: μ_Q). `of` names which; asking for the one a bulk does not carry is an error, not a 0.
+ */
+export function mu(bulk: Bulk, l: number, order: Order, of?: MuOf): TentResult & { of: MuOf } {
+	const charged = bulk.name === 'charged' && bulk.d > 2;
+	const want: MuOf = of ?? (charged ? 'charge' : 'momentum');
+	if (want === 'charge' && !charged) {
+		throw new HoloError(`the ${bulk.name} bulk carries no charge: μ_Q is defined for charged (d ≥ 3)`, 'of', 'use of=momentum, or use charged …');
+	}
+	if (want === 'momentum' && charged) {
+		throw new HoloError('the charged brane carries no momentum along y: its μ is conjugate to the charge', 'of', 'use of=charge');
+	}
 	const r = firstLawCoefficients(bulk, l, order);
-	return { value: r.mu, order, series: r.series };
+	return { value: r.mu, order, series: r.series, of: want };
 }
 
 export interface FirstLawDirection {
@@ -330,8 +386,8 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 		const residual = next ? (l * l * add) / (4 * G) : lhs - rhs;
 		return { lhs, rhs, residual, residualExact: exact - rhs };
 	};
-	// charged: one parameter, δw = w (δ ln zh = −1/d at fixed q), like the scale direction of the others
+	// charged: scale δw = w (δ ln zh = −1/d at fixed q, F.q = 0), second direction δq = 1 at fixed zh
 	const scale = dir(F.w, F.q);
-	const shape = F.kind === 'boosted' ? dir(0, F.q) : F.kind === 'wave' ? dir(F.q, 0) : undefined;
+	const shape = F.kind === 'boosted' ? dir(0, F.q) : F.kind === 'wave' ? dir(F.q, 0) : F.kind === 'charged' ? dir(0, 1) : undefined;
 	return { ...co, G, scale, shape };
 }

@@ -17,6 +17,7 @@ export {
 	boostedCoeffPolys,
 	seriesValues,
 	seriesRadius,
+	seriesRadiusEstimate,
 	seriesPowers,
 	MAX_ORDER
 } from './series/index';

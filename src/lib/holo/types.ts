@@ -44,6 +44,9 @@ export interface Thermo {
 	e: number;
 	p: number;
 	py?: number;
+	/** charged brane: chemical potential and charge density (normalisation in bulks/charged.ts) */
+	mu?: number;
+	rho?: number;
 }
 
 /** Homogeneous series data: f = 1 − α (z/scale)^d, h = 1 + β (z/scale)^d (brane α=1,β=0; boosted α=1,β=κ; wave α=0,β=1). */

@@ -4,7 +4,7 @@
  * no zod: this ships to the browser.
  */
 import { help } from './help';
-import { BULKS, BULK_KEYS, KEYWORDS, SHAPES, SINKS, UNIT_SYSTEMS, VERBS, VERB_FORMS, isBulk, isVerb } from './vocab';
+import { BULKS, BULK_KEYS, KEYWORDS, SHAPES, SINKS, UNIT_SYSTEMS, VERBS, VERB_FORMS, WORD_KEYS, isBulk, isVerb } from './vocab';
 
 export interface Completion {
 	/** the text to put in place of the word at the cursor */
@@ -113,7 +113,8 @@ function keysOf(bulk: string, verb: string | undefined, subject: string | undefi
 	}
 	if (isBulk(bulk)) keys.push(...BULK_KEYS[bulk]);
 	return [...new Set(keys)]
-		.filter((k) => !given.has(k) && !(k === 'o' && given.has('order')))
+		// phase= picks a soliton surface: elsewhere there is only one, so it is not offered
+		.filter((k) => !given.has(k) && !(k === 'o' && given.has('order')) && !(k === 'phase' && bulk !== 'soliton'))
 		.map((k) => {
 			const h = help(k);
 			return h ? { insert: `${k}=`, label: k, detail: h.summary } : { insert: `${k}=`, label: k };
@@ -124,6 +125,7 @@ function valuesFor(key: string): Completion[] {
 	if (key === 'o' || key === 'order') return ORDER_VALUES.map((v) => ({ insert: v, label: v }));
 	if (key === 'f') return [{ insert: '"1 - (z/zh)^4"', label: 'brane-like f' }];
 	if (key === 'h') return [{ insert: '"1"', label: 'h = 1' }];
+	if (Object.prototype.hasOwnProperty.call(WORD_KEYS, key)) return WORD_KEYS[key]!.map((w) => ({ insert: w, label: w }));
 	return [];
 }
 

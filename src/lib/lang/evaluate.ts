@@ -20,7 +20,7 @@ import { type Checked, checkBulk, checkUnits, UNITS_SCHEMAS } from './schema';
 import { applySinks } from './sinks';
 import { orderOfNames, resolverFor, resolveValue } from './values';
 import { makeBulk } from './verbs';
-import type { BulkName } from './vocab';
+import { BULKS, type BulkName, isBulk } from './vocab';
 
 /** LANGUAGE.md: with no bulk set, the bulk is `brane d=4 zh=1`. */
 export const DEFAULT_BULK: Readonly<BulkState> = Object.freeze({ name: 'brane', params: Object.freeze({ d: 4, zh: 1 }) });
@@ -73,8 +73,10 @@ function runStatement(s: A.Statement, input: string, env: LineEnv): StatementOut
 		case 'units':
 			return runUnits(s, env);
 		case 'verb':
+			requireKnownBulk(s, env);
 			return runVerb(s, env);
 		case 'compare':
+			requireKnownBulk(s, env);
 			return runCompare(s, env);
 		case 'macro':
 			return runMacro(s, input, env, runText);
@@ -91,6 +93,20 @@ function runStatement(s: A.Statement, input: string, env: LineEnv): StatementOut
 			return { results: [...out.results, { kind: 'note', text: `kept as ${s.name.text}${shown}` }], ref };
 		}
 	}
+}
+
+/**
+ * A pad keeps its bulk by name, and a stored name may be one this Bulkpad does not know (an old import, a
+ * hand-edited database). A verb needs a known bulk, so it says which one is unknown and how to leave it,
+ * instead of failing inside the schema lookup; `use`, `units`, `let` and arithmetic still run.
+ */
+function requireKnownBulk(s: A.Span, env: LineEnv) {
+	const name: unknown = env.bulk.name;
+	if (typeof name === 'string' && isBulk(name)) return;
+	const shown = typeof name === 'string' ? `'${name.slice(0, 40)}'` : 'with no valid name';
+	throw new LangError(`this pad's bulk ${shown} is not one Bulkpad knows`, s.start, s.end, {
+		hint: `start with use <bulk> …, one of ${BULKS.join(', ')}`
+	});
 }
 
 /** Keys given once each, evaluated against `scope`; lists and ranges make no sense for `use`/`units`. */

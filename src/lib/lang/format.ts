@@ -40,7 +40,8 @@ export const SYMBOLS: Record<string, { text: string; tex: string }> = {
 	width: { text: 'l', tex: '\\ell' },
 	area: { text: 'A_fin', tex: 'A_{\\mathrm{fin}}' },
 	darea: { text: 'ΔA', tex: '\\Delta A' },
-	entropy: { text: 'S', tex: 'S' },
+	// the finite part: the area-law term is subtracted (holo/units.ts, finitePartNote)
+	entropy: { text: 'S_fin', tex: 'S_{\\mathrm{fin}}' },
 	dentropy: { text: 'ΔS', tex: '\\Delta S' },
 	energy: { text: 'ΔE', tex: '\\Delta E' },
 	tent: { text: 'T_ent', tex: 'T_{\\mathrm{ent}}' },
@@ -51,7 +52,8 @@ export const SYMBOLS: Record<string, { text: string; tex: string }> = {
 	coeffs: { text: 'ΔA series', tex: '\\Delta A' },
 	validity: { text: 'validity', tex: '' },
 	mi: { text: 'I', tex: 'I' },
-	resum: { text: 'ΔA (Padé)', tex: '\\Delta A_{\\mathrm{Pad\\acute e}}' }
+	resum: { text: 'ΔA (Padé)', tex: '\\Delta A_{\\mathrm{Pad\\acute e}}' },
+	phases: { text: 'soliton phases', tex: '' }
 };
 
 /** LaTeX of a key name. */
@@ -96,6 +98,15 @@ export function texField(field: string): string {
 		gap_crit: 's_c/\\ell',
 		l_max: '\\ell_{\\max}',
 		radius: '\\ell_{\\mathrm{conv}}',
+		radius_err: '\\delta\\ell_{\\mathrm{conv}}',
+		l_c: '\\ell_c',
+		zstar_c: 'z_*(\\ell_c)',
+		zstar_max: 'z_*(\\ell_{\\max})',
+		dA_dl_jump: '[\\partial_\\ell A]_{\\ell_c}',
+		mu: '\\mu',
+		rho: '\\rho',
+		Q: '\\Delta Q',
+		error: '\\delta',
 		exact: '\\mathrm{exact}'
 	};
 	return t[field] ?? texKey(field);

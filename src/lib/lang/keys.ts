@@ -10,7 +10,7 @@ import type { Order } from './result';
 import { VERB_FORMS, type VerbForm, checkOrder } from './schema';
 import { didYouMean } from './suggest';
 import { type Resolved, type Scalar, resolveValue } from './values';
-import { ALL_BULK_KEYS, BULK_KEYS, QUANTITY_KEYS, type BulkName, type Verb, canonicalKey } from './vocab';
+import { ALL_BULK_KEYS, BULK_KEYS, QUANTITY_KEYS, WORD_KEYS, type BulkName, type Verb, canonicalKey } from './vocab';
 
 export interface SortedKeys {
 	form: VerbForm;
@@ -36,7 +36,7 @@ export function sortKeys(verb: Verb, subject: A.Word | undefined, keys: A.KeyVal
 	for (const kv of keys) {
 		const k = canonicalKey(kv.key);
 		if (k === 'o' && form.keys.includes('o')) out.orderKey = kv;
-		else if (form.keys.includes(k)) out.quantityKeys.push(kv);
+		else if (form.keys.includes(k)) out.quantityKeys.push(asWord(k, kv));
 		else if (own.includes(k) || (bulkName === 'metric' && !(QUANTITY_KEYS as readonly string[]).includes(k))) out.bulkKeys.push(kv);
 		else throw misplacedKey(verb, shape, kv, bulkName);
 	}
@@ -48,6 +48,13 @@ export function sortKeys(verb: Verb, subject: A.Word | undefined, keys: A.KeyVal
 		}
 	}
 	return out;
+}
+
+/** `of=charge`: on a word key a bare name is the word itself, not a let-name (a string "charge" works too). */
+function asWord(k: string, kv: A.KeyValue): A.KeyValue {
+	if (!(k in WORD_KEYS) || kv.value.type !== 'name') return kv;
+	const v = kv.value;
+	return { ...kv, value: { type: 'string', value: v.name, start: v.start, end: v.end } };
 }
 
 function meaning(k: string): string {

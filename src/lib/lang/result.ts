@@ -12,6 +12,8 @@ export interface ScalarResult {
 	unit?: string;
 	latex?: string;
 	warning?: string;
+	/** what the number is, beyond its label: the scheme, the phase, the convention (shown under the value) */
+	note?: string;
 	/** named side values a later `#n.field` may reference (e.g. T, mu) */
 	fields?: Record<string, number>;
 }
@@ -21,6 +23,7 @@ export interface RecordResult {
 	fields: Record<string, number>;
 	latex?: string;
 	warning?: string;
+	note?: string;
 }
 export interface TableResult {
 	kind: 'table';
@@ -30,6 +33,7 @@ export interface TableResult {
 	/** plot hints: which column is x, whether a plot was asked, the validity region per order column */
 	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string; show?: boolean };
 	warning?: string;
+	note?: string;
 	/** LaTeX of the table (a tabular), present when `| tex` was asked */
 	latex?: string;
 	/** set by `| csv`: the UI offers the table as a CSV download */
@@ -59,6 +63,7 @@ export interface CheckResult {
 	tolerance: number;
 	order?: Order;
 	warning?: string;
+	note?: string;
 }
 export interface NoteResult {
 	kind: 'note';

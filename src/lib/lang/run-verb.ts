@@ -74,11 +74,11 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const params = sweptIsBulk ? withKey(base, swept!.key, x!) : base;
 		const checked = checkBulk(bulkName, params);
 		if (!checked.ok) throw keyError(s.keys, checked, verbSpan, where);
-		const q = quantitiesAt(sorted.quantityKeys, qres.values, sweptIsBulk ? { ...qscope, bulk: checked.value } : undefined, env, swept, x, where);
+		const { q, words } = quantitiesAt(sorted.quantityKeys, qres.values, sweptIsBulk ? { ...qscope, bulk: checked.value } : undefined, env, swept, x, where);
 		return withEngine(s.keys, verbSpan, where, () => {
 			const bulk = V.makeBulk(bulkName, checked.value);
 			const G = q.G ?? (V.USES_G.has(verb) ? V.newtonG(env.units, bulk.d) : 1);
-			return { bulk, q, order, shape: sorted.shape, G };
+			return { bulk, q, words, order, shape: sorted.shape, G };
 		});
 	};
 	const engine = <T>(_p: V.Point, x: Scalar | undefined, f: () => T): T =>
@@ -87,7 +87,8 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const shown = { ...base };
 	if (sweptIsBulk) delete shown[swept!.key]; // the table's first column shows it
 	const bulkText = describeBulk({ name: bulkName, params: shown });
-	const sym = SYMBOLS[verb]?.text ?? verb;
+	// a table's label names the charge chemical potential too (a single value's label comes from the engine's answer)
+	const sym = verb === 'mu' && bulkName === 'charged' && (base.d ?? 4) !== 2 ? 'μ_Q' : (SYMBOLS[verb]?.text ?? verb);
 	const results: Result[] = [];
 	let ref: StepRef | undefined;
 
@@ -111,35 +112,38 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const args = argsOf(p.q);
 		const argText = Object.entries(args).map(([k, v]) => `${k}=${shortNumber(v)}`).join(' ');
 		if (kind === 'scalar') {
-			const { value, warning, fields: extra } = engine(p, x, () => V.scalarAt(verb, p));
+			const { value, warning, fields: extra, symbol, tag, note } = engine(p, x, () => V.scalarAt(verb, p));
 			tick();
 			results.push({
 				kind: 'scalar',
-				label: `${sym}${argText ? `(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
+				label: `${symbol ?? sym}${tag ?? ''}${argText ? `(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
 				value,
 				order,
 				latex: texScalar(verb, args, order, value),
 				fields: { ...args, ...(extra ?? {}) },
-				...(warning ? { warning } : {})
+				...(warning ? { warning } : {}),
+				...(note ? { note } : {})
 			});
 			ref = { value, fields: { ...args, ...(extra ?? {}) }, order };
 		} else if (kind === 'record') {
 			const fields = engine(p, x, () => V.recordAt(verb, p));
 			tick();
-			results.push({ kind: 'record', label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`, fields, latex: texRecord(fields) });
+			const note = V.recordNote(verb, p);
+			results.push({ kind: 'record', label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`, fields, latex: texRecord(fields), ...(note ? { note } : {}) });
 			ref = { fields: { ...fields } };
 		} else {
 			const c = engine(p, x, () => V.checkAt(verb, p));
 			tick();
 			results.push({
 				kind: 'check',
-				label: `first law${argText ? ` (${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
+				label: `first law${c.relation ? ` ${c.relation}` : ''}${argText ? ` (${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
 				pass: c.pass,
 				lhs: c.lhs,
 				rhs: c.rhs,
 				residual: c.residual,
 				tolerance: c.tolerance,
-				order
+				order,
+				...(c.note ? { note: c.note } : {})
 			});
 			ref = { value: c.residual, fields: { lhs: c.lhs, rhs: c.rhs, residual: c.residual, ...(c.fields ?? {}) }, order };
 		}
@@ -194,8 +198,9 @@ function quantitiesAt(
 	swept: A.KeyValue | undefined,
 	x: Scalar | undefined,
 	where: string
-): Record<string, number> {
+): { q: Record<string, number>; words: Record<string, string> } {
 	const q: Record<string, number> = {};
+	const words: Record<string, string> = {};
 	for (const kv of kvs) {
 		let v: Scalar;
 		if (kv === swept) v = x!;
@@ -207,9 +212,10 @@ function quantitiesAt(
 		const k = canonicalKey(kv.key);
 		const c = checkKey(k, v);
 		if (!c.ok) throw new LangError(where ? `${c.message} (${where})` : c.message, kv.value.start, kv.value.end);
-		q[k] = c.value as number;
+		if (typeof c.value === 'string') words[k] = c.value;
+		else q[k] = c.value as number;
 	}
-	return q;
+	return { q, words };
 }
 
 function keyError(keys: A.KeyValue[], c: { key?: string; message: string; hint?: string }, fallback: A.Span, where: string): LangError {

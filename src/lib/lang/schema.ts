@@ -6,7 +6,7 @@
  */
 import { z } from 'zod';
 import type { Order } from './result';
-import { BULK_KEYS, type BulkName } from './vocab';
+import { BULK_KEYS, WORD_KEYS, type BulkName } from './vocab';
 
 const dim = (min: number, why = '') =>
 	z
@@ -37,6 +37,10 @@ export const BULK_SCHEMAS = {
 		.strict()
 		.superRefine((b, ctx) => {
 			// PHYSICS.md: extremal at q² = d/(d−2); beyond it T < 0 and there is no horizon at zh
+			// issue 11: at d = 2 the charge drops out of f (plain BTZ) but would change e and p: refused
+			if (b.d === 2 && b.q !== 0) {
+				ctx.addIssue({ code: 'custom', path: ['q'], message: 'charged needs d ≥ 3 for q ≠ 0: at d = 2 the charge drops out of the metric (plain BTZ)' });
+			}
 			if (b.d > 2 && b.q * b.q > b.d / (b.d - 2)) {
 				ctx.addIssue({
 					code: 'custom',
@@ -114,8 +118,15 @@ export const KEY_SCHEMAS: Record<string, z.ZodType> = {
 	zstar: positive('zstar'),
 	G: positive('G'),
 	tol: z.number('tol must be a number').positive('tol must be > 0').max(1, 'tol must be ≤ 1'),
-	o: ORDER
+	o: ORDER,
+	of: word('of'),
+	phase: word('phase')
 };
+
+function word(key: string): z.ZodType {
+	const allowed = WORD_KEYS[key]!;
+	return z.enum(allowed as [string, ...string[]], `${key} must be one of ${allowed.join(', ')}`);
+}
 
 export { VERB_FORMS, type VerbForm } from './vocab';
 

@@ -24,14 +24,22 @@ export function buildTable(
 	const rows: (number | string | null)[][] = [];
 	let columns: string[];
 	const warnings = new Map<Order, { at: number; text: string }>();
+	let note: string | undefined;
+	// soliton strips: which surface each row is (1 connected, 0 disconnected), as a last column
+	const phaseOf = new Map<unknown[], number>();
+	// a resummed value is never shown without its error estimate: each order column gets an `_err` column
+	const withError = verb === 'resum';
 	if (kind === 'scalar') {
-		columns = [xKey, ...orders.map(orderName)];
+		columns = [xKey, ...orders.flatMap((o) => (withError ? [orderName(o), `${orderName(o)}_err`] : [orderName(o)]))];
 		for (const x of xs) {
 			const row: (number | string | null)[] = [x ?? null];
 			for (const o of orders) {
 				const p = pointAt(x, o);
-				const { value, warning: w } = engine(p, x, () => V.scalarAt(verb, p));
+				const { value, warning: w, fields, note: n } = engine(p, x, () => V.scalarAt(verb, p));
+				note ??= n;
 				row.push(value);
+				if (withError) row.push(fields?.error ?? null);
+				if (fields?.connected !== undefined) phaseOf.set(row, fields.connected);
 				const at = p.q.l ?? p.q.R ?? 0;
 				if (w && (warnings.get(o)?.at ?? -Infinity) < at) warnings.set(o, { at, text: w });
 				tick();
@@ -55,8 +63,13 @@ export function buildTable(
 			tick();
 		}
 	}
+	if (phaseOf.size) {
+		columns.push('connected');
+		for (const r of rows) r.push(phaseOf.get(r) ?? null);
+	}
 	const table: TableResult = { kind: 'table', label: '', columns, rows, plot: { x: xKey } };
 	if (warnings.size) table.warning = mergeWarnings(warnings);
+	if (note) table.note = note;
 	return table;
 }
 

@@ -25,6 +25,7 @@ export const VERB_KIND: Record<Verb, VerbKind> = {
 	thermo: 'record',
 	validity: 'record',
 	mi: 'record',
+	phases: 'record',
 	coeffs: 'series',
 	firstlaw: 'check'
 };
@@ -39,6 +40,8 @@ export interface Point {
 	bulk: Bulk;
 	/** quantity keys of the line at this point: l, R, gap, zstar, tol */
 	q: Record<string, number>;
+	/** word-valued keys of the line: of (mu), phase (soliton strips) */
+	words?: Record<string, string>;
 	order: Order;
 	shape: string;
 	G: number;
@@ -70,14 +73,73 @@ function requireSeries(p: Point): number {
 
 function stripDeltaArea(p: Point): number {
 	const l = p.q.l!;
+	if (p.bulk.name === 'soliton' && p.order === 'exact') return solitonSurfaceAt(p).areaFinite - holo.vacuumAreaFinite(p.bulk.d, l);
 	if (p.order === 'exact') return holo.deltaArea(p.bulk, l);
 	return holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
 }
 
 function stripArea(p: Point): number {
 	const l = p.q.l!;
+	if (p.bulk.name === 'soliton' && p.order === 'exact') return solitonSurfaceAt(p).areaFinite;
 	if (p.order === 'exact') return holo.areaFinite(p.bulk, l);
 	return holo.vacuumAreaFinite(p.bulk.d, l) + holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
+}
+
+/** The soliton's strip surface in the line's phase (rt by default); other bulks have one phase, the connected. */
+function solitonSurfaceAt(p: Point): holo.SolitonSurface {
+	const phase = (p.words?.phase ?? 'rt') as holo.SolitonPhaseChoice;
+	return need('solitonSurface', 'soliton phases')({ d: p.bulk.d, z0: Number(p.bulk.params.z0) }, p.q.l!, phase);
+}
+
+/** phase=… outside the soliton: only the connected surface exists there (and it is the RT one). */
+function checkPhase(p: Point): void {
+	const phase = p.words?.phase;
+	if (phase === undefined || p.bulk.name === 'soliton' || phase !== 'disconnected') return;
+	throw new holo.HoloError(`the ${p.bulk.name} bulk has one strip surface (connected): phase=disconnected is for the soliton`, 'phase', 'use phase=rt or leave it out');
+}
+
+/** What a soliton answer is about: its phase, whether that is the RT surface, and l_c, l_max beside it. */
+function solitonTag(p: Point): { tag: string; note: string; fields: Record<string, number> } | undefined {
+	if (p.bulk.name !== 'soliton' || p.shape === 'ball' || p.q.l === undefined) return undefined;
+	const s = solitonSurfaceAt(p);
+	const ph = need('solitonPhases', 'soliton phases')({ d: p.bulk.d, z0: Number(p.bulk.params.z0) });
+	const which = `${s.phase}${s.minimal ? ', the RT surface' : ', not minimal'}`;
+	const note =
+		`${s.phase} surface (${s.minimal ? 'minimal: the RT surface' : 'not the minimal one: not the entanglement entropy'}); ` +
+		`l_c = ${fmt(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${fmt(ph.lmax)}` +
+		(s.phase === 'disconnected' ? '; the two sheets reach the cap z0, given as z*' : '');
+	return { tag: ` [${which}]`, note, fields: { l_c: ph.lc, l_max: ph.lmax, connected: s.phase === 'connected' ? 1 : 0 } };
+}
+
+const fmt = (x: number) => String(Number(x.toPrecision(6)));
+
+/** Which terms the finite part drops, in which scheme (PHYSICS.md, "Strip"; holo/ball.ts for balls). */
+function finitePartNote(p: Point): string {
+	if (p.shape === 'ball') {
+		return 'S_fin = A_fin/(4G): every negative power of ε and, for even d, the ln(R/ε) term are dropped (cutoff z ≥ ε; holo/ball.ts)';
+	}
+	const d = p.bulk.d;
+	const term = d === 2 ? '2 ln(1/ε)' : `2/(${d - 2} ε^${d - 2})`;
+	return `S_fin = A_fin/(4G): the area-law term ${term} per unit transverse volume is subtracted from A (cutoff z ≥ ε, minimal subtraction: no finite term removed); ΔS needs no scheme`;
+}
+
+/** The conventions of tent and mu, per bulk (firstlaw.ts; PHYSICS.md, "First law of entanglement"). */
+function firstLawNote(p: Point, verb: 'tent' | 'mu'): string | undefined {
+	const n = p.bulk.name;
+	if (n === 'boosted' || n === 'wave') {
+		return (
+			'from δΔS = α δΔE + ζ δΔP_y over (zh, v) at fixed l, ΔP_y = l T^{ty} (> 0 for v > 0): T_ent = 1/α, μ = −ζ/α. ' +
+			'At small l the sign and size of μ are a convention of this split (μ < 0 and |μ| > 1 occur); the large-l limit is the thermodynamic one: ' +
+			'μ → v, T_ent → T/γ'
+		);
+	}
+	if (n === 'charged' && p.bulk.d > 2) {
+		return (
+			'from δΔS = α δΔE + β δΔQ over (zh, q) at fixed l: T_ent = 1/α, μ_Q = −β/α; ΔQ = l ρ with the action (R + d(d−1) − F²)/16πG, ' +
+			'μ = √((d−1)/(2(d−2))) q/zh (only μ_Q ΔQ is convention-free). Large l: T_ent → T_H, μ_Q → μ'
+		);
+	}
+	return verb === 'tent' ? 'T_ent = 1/α of δΔS = α δΔE at fixed l; large l: T_ent → T_H' : undefined;
 }
 
 /** The engine's balls live in the brane (and trivially in vacuum); its series is known to order 1. */
@@ -105,25 +167,41 @@ export interface ScalarAt {
 	value: number;
 	warning?: string;
 	fields?: Record<string, number>;
+	/** replaces the verb's symbol in the label (μ_Q for the charge chemical potential) */
+	symbol?: string;
+	/** appended to the label's symbol: the phase, the approximant and its error */
+	tag?: string;
+	/** what the value is: scheme, phase, convention */
+	note?: string;
 }
 
 export function scalarAt(verb: Verb, p: Point): ScalarAt {
 	const ball = p.shape === 'ball';
-	const plain = (value: number): ScalarAt => {
+	checkPhase(p);
+	const plain = (value: number, extra: Omit<ScalarAt, 'value'> = {}): ScalarAt => {
 		const warning = ball ? undefined : warningAt(verb, p);
-		return warning ? { value, warning } : { value };
+		const out: ScalarAt = { value, ...extra };
+		if (warning) out.warning = warning;
+		const sol = ['zstar', 'area', 'darea', 'entropy', 'dentropy'].includes(verb) ? solitonTag(p) : undefined;
+		if (sol) {
+			out.tag = (out.tag ?? '') + sol.tag;
+			out.note = out.note ? `${out.note}. ${sol.note}` : sol.note;
+			out.fields = { ...(out.fields ?? {}), ...sol.fields };
+		}
+		return out;
 	};
 	switch (verb) {
 		case 'zstar':
-			return plain(holo.zstarOf(p.bulk, p.q.l!));
+			return plain(p.bulk.name === 'soliton' ? solitonSurfaceAt(p).zstar : holo.zstarOf(p.bulk, p.q.l!));
 		case 'width':
-			return plain(holo.widthOf(p.bulk, p.q.zstar!));
+			// a turning point below the cap is by definition the connected surface's
+			return plain(holo.widthOf(p.bulk, p.q.zstar!), p.bulk.name === 'soliton' ? { tag: ' [connected surface]' } : {});
 		case 'area':
 			return plain(ball ? ballArea(p, verb) : stripArea(p));
 		case 'darea':
 			return plain(ball ? ballDeltaArea(p, verb) : stripDeltaArea(p));
 		case 'entropy':
-			return plain(holo.entropy(ball ? ballArea(p, verb) : stripArea(p), p.G));
+			return plain(holo.entropy(ball ? ballArea(p, verb) : stripArea(p), p.G), { note: finitePartNote(p) });
 		case 'dentropy':
 			return plain(holo.entropy(ball ? ballDeltaArea(p, verb) : stripDeltaArea(p), p.G));
 		case 'tent':
@@ -132,14 +210,25 @@ export function scalarAt(verb: Verb, p: Point): ScalarAt {
 				if (p.order !== 1) throw new holo.HoloError('tent ball is known at order 1: use o=1', 'o');
 				return plain(need('ballTent', 'tent ball')(p.bulk.d, p.q.R!));
 			}
-			return plain(need('tent', 'tent')(p.bulk, p.q.l!, p.order).value);
-		case 'mu':
-			return plain(need('mu', 'mu')(p.bulk, p.q.l!, p.order).value);
+			{
+				const note = firstLawNote(p, 'tent');
+				return plain(need('tent', 'tent')(p.bulk, p.q.l!, p.order).value, note ? { note } : {});
+			}
+		case 'mu': {
+			const r = need('mu', 'mu')(p.bulk, p.q.l!, p.order, p.words?.of as holo.MuOf | undefined);
+			const note = firstLawNote(p, 'mu');
+			const tag = r.of === 'charge' ? ' (conjugate to ΔQ)' : ' (conjugate to ΔP_y)';
+			return plain(r.value, { symbol: r.of === 'charge' ? 'μ_Q' : 'μ', tag, ...(note ? { note } : {}) });
+		}
 		case 'resum': {
 			const r = need('resum', 'resum')(p.bulk, p.q.l!, requireSeries(p));
-			const fields: Record<string, number> = { series: r.series, exact: r.exact, L: r.L, M: r.M };
+			const fields: Record<string, number> = { error: r.error, series: r.series, exact: r.exact, L: r.L, M: r.M, froissart: r.froissart };
 			if (r.pole) fields.pole_l = r.pole.l;
-			return r.warning ? { value: r.value, warning: r.warning, fields } : { value: r.value, fields };
+			// no resummed value without its error estimate: it is in the label, the fields and (when large) the warning
+			const out: ScalarAt = { value: r.value, fields, tag: ` [${r.L}/${r.M}] ± ${Number(r.error.toPrecision(2))}` };
+			out.note = 'error estimate: the largest difference from the neighbouring approximants [L−1/M], [L/M−1]';
+			if (r.warning) out.warning = r.warning;
+			return out;
 		}
 		default:
 			throw new Error(`unreachable: ${verb} is not a scalar verb`);
@@ -157,6 +246,8 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 			const t = holo.thermo(p.bulk, p.G);
 			const out: Record<string, number> = { T: t.T, s: t.s, e: t.e, p: t.p };
 			if (t.py !== undefined) out.py = t.py;
+			if (t.mu !== undefined) out.mu = t.mu;
+			if (t.rho !== undefined) out.rho = t.rho;
 			return out;
 		}
 		case 'energy': {
@@ -165,11 +256,17 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 				return { E: zh === undefined ? 0 : need('ballEnergy', 'energy ball')(p.bulk.d, p.q.R!, zh, p.G), P: 0 };
 			}
 			const e = holo.energy(p.bulk, p.q.l!, p.G);
-			return { E: e.E, P: e.P };
+			const rho = p.bulk.name === 'charged' ? holo.thermo(p.bulk, p.G).rho : undefined;
+			return rho === undefined ? { E: e.E, P: e.P } : { E: e.E, P: e.P, Q: rho * p.q.l! };
 		}
 		case 'validity': {
 			const v = holo.validity(p.bulk, requireSeries(p), p.q.tol ?? DEFAULT_TOL);
-			return { l_max: v.l_max, radius: v.radius };
+			return { l_max: v.l_max, radius: v.radius, radius_err: v.radius_err };
+		}
+		case 'phases': {
+			if (p.bulk.name !== 'soliton') throw new holo.HoloError(`phases is for the soliton, whose strips have two surfaces (got ${p.bulk.name})`, 'bulk', 'use soliton d=4 z0=1');
+			const ph = need('solitonPhases', 'phases')({ d: p.bulk.d, z0: Number(p.bulk.params.z0) });
+			return { l_c: ph.lc, l_max: ph.lmax, zstar_c: ph.zstarC, zstar_max: ph.zstarMax, dA_dl_jump: ph.jump };
 		}
 		case 'mi': {
 			// the engine answers I·4G (area units) and s_c/l; API.md's fields are I (entropy) and gap_crit
@@ -203,6 +300,9 @@ export function seriesAt(p: Point): SeriesTerms {
 }
 
 export interface CheckAt {
+	/** the relation checked, for the label */
+	relation?: string;
+	note?: string;
 	lhs: number;
 	rhs: number;
 	residual: number;
@@ -223,8 +323,23 @@ export function checkAt(verb: Verb, p: Point): CheckAt {
 	const dirs = c.shape ? [c.scale, c.shape] : [c.scale];
 	const pass = dirs.every((d) => Math.abs(d.residual) <= tol * Math.abs(d.lhs));
 	const fields: Record<string, number> = { alpha: c.alpha, zeta: c.zeta, tent: c.tent, mu: c.mu, residual_exact: c.scale.residualExact };
-	if (c.shape) Object.assign(fields, { lhs_v: c.shape.lhs, rhs_v: c.shape.rhs, residual_v: c.shape.residual });
-	return { lhs: c.scale.lhs, rhs: c.scale.rhs, residual: c.scale.residual, tolerance: tol * Math.abs(c.scale.lhs), pass, fields };
+	// the second direction: δv for the boost, δ(temperature) for the wave, δq at fixed zh for the charge
+	const sfx = c.conjugate === 'charge' ? 'q' : 'v';
+	if (c.shape) Object.assign(fields, { [`lhs_${sfx}`]: c.shape.lhs, [`rhs_${sfx}`]: c.shape.rhs, [`residual_${sfx}`]: c.shape.residual });
+	const relation = c.conjugate === 'charge' ? 'T_ent δΔS = δΔE − μ_Q δΔQ' : c.conjugate === 'momentum' ? 'T_ent δΔS = δΔE − μ δΔP_y' : 'T_ent δΔS = δΔE';
+	const dirs2 = c.conjugate === 'charge' ? 'along δzh (shown) and δq (fields *_q)' : c.conjugate === 'momentum' ? 'along δzh (shown) and the second parameter (fields *_v)' : 'along δzh';
+	const note = `${relation}, ${dirs2}; residual = the next order's term (o=exact: the relation's own rounding)`;
+	return { relation, note, lhs: c.scale.lhs, rhs: c.scale.rhs, residual: c.scale.residual, tolerance: tol * Math.abs(c.scale.lhs), pass, fields };
+}
+
+/** What a record verb's fields mean where the names alone do not say (its scheme or convention). */
+export function recordNote(verb: Verb, p: Point): string | undefined {
+	if (verb === 'validity') return 'radius ± radius_err: Domb–Sykes extrapolation of the coefficient ratios in 1/k (charged: a fit of their growth)';
+	if (verb === 'phases') return 'soliton strip: connected surface below l_c, disconnected (two sheets to the cap) above; dA_dl_jump = ∂A/∂l above l_c minus below';
+	if (verb === 'thermo' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'μ, ρ in the normalisation of the action (R + d(d−1) − F²)/16πG: μ = √((d−1)/(2(d−2))) q/zh, e + p = T s + μ ρ';
+	if (verb === 'energy' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'Q = ρ l, ρ as in thermo';
+	if (verb === 'mi' && p.bulk.name === 'soliton') return 'each strip area is the RT (minimal) one of the connected and disconnected surfaces';
+	return undefined;
 }
 
 /**

@@ -18,7 +18,8 @@ export const VERBS = [
 	'coeffs',
 	'validity',
 	'mi',
-	'resum'
+	'resum',
+	'phases'
 ] as const;
 export type Verb = (typeof VERBS)[number];
 
@@ -51,7 +52,13 @@ export const BULK_KEYS: Record<BulkName, readonly string[]> = {
 export const ALL_BULK_KEYS = ['d', 'zh', 'v', 'rapidity', 'q', 'p', 'zp', 'z0', 'f', 'h'] as const;
 
 /** keys that are not bulk keys */
-export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y'] as const;
+export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y', 'of', 'phase'] as const;
+
+/** keys whose value is a word (`of=charge`, `phase=rt`), not a number: a bare name there is that word */
+export const WORD_KEYS: Record<string, readonly string[]> = {
+	of: ['charge', 'momentum'],
+	phase: ['rt', 'connected', 'disconnected']
+};
 
 /** two spellings of one key: giving both on one line is a duplicate */
 export const KEY_ALIASES: Record<string, string> = { order: 'o' };
@@ -113,21 +120,22 @@ export interface VerbForm {
  * takes no subject at all.
  */
 export const VERB_FORMS: Record<Verb, Record<string, VerbForm>> = {
-	zstar: { strip: { keys: ['l'], required: ['l'] } },
+	zstar: { strip: { keys: ['l', 'phase'], required: ['l'] } },
 	width: { strip: { keys: ['zstar'], required: ['zstar'] } },
-	area: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	darea: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	entropy: { strip: { keys: ['l', 'o', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
-	dentropy: { strip: { keys: ['l', 'o', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
+	area: { strip: { keys: ['l', 'o', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	darea: { strip: { keys: ['l', 'o', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	entropy: { strip: { keys: ['l', 'o', 'G', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
+	dentropy: { strip: { keys: ['l', 'o', 'G', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
 	energy: { strip: { keys: ['l', 'G'], required: ['l'] }, ball: { keys: ['R', 'G'], required: ['R'] } },
 	tent: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	mu: { strip: { keys: ['l', 'o'], required: ['l'] } },
+	mu: { strip: { keys: ['l', 'o', 'of'], required: ['l'] } },
 	firstlaw: { strip: { keys: ['l', 'o', 'tol', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol', 'G'], required: ['R'] } },
 	stress: { '': { keys: ['G'], required: [] } },
 	thermo: { '': { keys: ['G'], required: [] } },
 	coeffs: { darea: { keys: ['o'], required: ['o'] } },
 	validity: { darea: { keys: ['o', 'tol'], required: ['o'] } },
 	mi: { pair: { keys: ['l', 'gap', 'G'], required: ['l', 'gap'] } },
-	resum: { strip: { keys: ['l', 'o'], required: ['l'] } }
+	resum: { strip: { keys: ['l', 'o'], required: ['l'] } },
+	phases: { '': { keys: [], required: [] } }
 };
 

@@ -23,6 +23,9 @@ export const env = {
 	mailFrom: process.env.MAIL_FROM ?? 'Bulkpad <no-reply@bulkpad.test>',
 	signinPerMinute: intFrom('BULKPAD_SIGNIN_PER_MINUTE', 10),
 	signinPerMinutePerAddress: intFrom('BULKPAD_SIGNIN_PER_MINUTE_PER_ADDRESS', 60),
+	/** sign-ups and invitations from one client address per hour (each also limited per target e-mail) */
+	signupPerHourPerAddress: intFrom('BULKPAD_SIGNUP_PER_HOUR_PER_ADDRESS', 20),
+	invitePerHourPerAddress: intFrom('BULKPAD_INVITE_PER_HOUR_PER_ADDRESS', 60),
 	replayPerMinute: intFrom('BULKPAD_REPLAY_PER_MINUTE', 20),
 	uploadMaxBytes: intFrom('BULKPAD_UPLOAD_MAX_BYTES', 1_000_000)
 };

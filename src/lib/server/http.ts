@@ -29,18 +29,43 @@ export function api(handler: (event: RequestEvent) => Promise<Response> | Respon
 		try {
 			return await handler(event);
 		} catch (e) {
-			if (e instanceof ApiFailure) return json({ ok: false, error: { message: e.message, ...e.extra } }, { status: e.status });
+			if (e instanceof ApiFailure) {
+				// a rate limit says when to come back (429 with Retry-After)
+				const headers = typeof e.extra.retryAfter === 'number' ? { 'retry-after': String(e.extra.retryAfter) } : undefined;
+				return json({ ok: false, error: { message: e.message, ...e.extra } }, { status: e.status, headers });
+			}
 			if (isHttpError(e)) return json({ ok: false, error: { message: e.body.message } }, { status: e.status });
+			if (isTooLarge(e)) return json({ ok: false, error: { message: tooLargeMessage(e) } }, { status: 413 });
 			throw e;
 		}
 	};
 }
 
-/** Reads and validates a JSON body; 400 with zod's issues when it does not fit. */
+/**
+ * adapter-node stops reading a body over BODY_SIZE_LIMIT and errors the stream with SvelteKit's own 413 error;
+ * it reaches a route as a rejected read, which must not be mistaken for a malformed body.
+ */
+export function isTooLarge(e: unknown): e is { status: 413; message?: string } {
+	return typeof e === 'object' && e !== null && (e as { status?: unknown }).status === 413;
+}
+
+function tooLargeMessage(e: { message?: string }): string {
+	const limit = /(?:limit of|BODY_SIZE_LIMIT of) (\d+)/.exec(e.message ?? '')?.[1];
+	return `The request body is too large${limit ? ` (the server takes at most ${limit} bytes)` : ''}.`;
+}
+
+/** Reads and validates a JSON body: 413 when it is over the server's limit, 400 with zod's issues when it does not fit. */
 export async function readBody<S extends ZodType>(event: RequestEvent, schema: S): Promise<z.infer<S>> {
+	let text: string;
+	try {
+		text = await event.request.text();
+	} catch (e) {
+		if (isTooLarge(e)) failure(413, tooLargeMessage(e));
+		failure(400, 'The body could not be read.');
+	}
 	let raw: unknown;
 	try {
-		raw = await event.request.json();
+		raw = JSON.parse(text);
 	} catch {
 		failure(400, 'The body must be JSON.');
 	}

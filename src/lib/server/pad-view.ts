@@ -2,13 +2,21 @@ import { z } from 'zod';
 import type { PadRow, StepRow } from './pads';
 import { ownerName } from './transcripts';
 
-/** A pad title: one line, so it is safe in a mail subject, a file name and a page title. */
+/**
+ * Control characters (C0, DEL, C1), line and paragraph separators, and bidirectional overrides and isolates,
+ * which can make a title read differently from what it is (a reversed file name in a list or a mail subject).
+ */
+const HIDDEN_CHARACTERS = /[\p{Cc}\u2028\u2029\u202a-\u202e\u2066-\u2069]/u;
+export const MAX_TITLE_LENGTH = 200;
+
+/** A pad title: one line of visible text, so it is safe in a mail subject, a file name and a page title. */
 export const titleSchema = z
 	.string()
 	.trim()
 	.min(1, 'Give the pad a title.')
-	.max(200, 'Keep the title under 200 characters.')
-	.regex(/^[^\r\n\t]*$/, 'A title is one line.');
+	.max(MAX_TITLE_LENGTH, `Keep the title under ${MAX_TITLE_LENGTH} characters.`)
+	.regex(/^[^\r\n\t]*$/, 'A title is one line.')
+	.refine((t) => !HIDDEN_CHARACTERS.test(t), 'A title may not contain control characters or direction overrides.');
 
 /** GET /api/pads/[id]'s shape (API.md). */
 export function padView(pad: PadRow, owner = ownerName(pad)) {

@@ -10,7 +10,15 @@ import { failure } from './http';
 
 export const setRoleSchema = z.object({ id: z.string().min(1).max(64), role: z.enum(ROLES) });
 
-const columns = { id: schema.users.id, email: schema.users.email, name: schema.users.name, role: schema.users.role, createdAt: schema.users.createdAt };
+const columns = {
+	id: schema.users.id,
+	email: schema.users.email,
+	name: schema.users.name,
+	role: schema.users.role,
+	/** null while the person has not followed the confirmation link (they cannot sign in yet) */
+	confirmedAt: schema.users.emailConfirmedAt,
+	createdAt: schema.users.createdAt
+};
 
 export function listUsers() {
 	return getDb().select(columns).from(schema.users).orderBy(asc(schema.users.email)).all();

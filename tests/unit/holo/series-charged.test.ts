@@ -22,8 +22,10 @@ describe('charged series at q = 0 is the brane series (f reduces to the brane’
 			}
 		});
 	}
-	it('d = 2: the charge drops out of f (m = d), the series is the BTZ one', () => {
-		const ch = seriesCoeffs(makeBulk('charged', { d: 2, zh: 1, q: 0.7 }), 6);
+	// since issue 11 (item 4) q ≠ 0 is refused at d = 2 (there the charge would change e, p but not the metric)
+	it('d = 2: the charge drops out of f (m = d), the series is the BTZ one; q ≠ 0 is refused', () => {
+		expect(() => makeBulk('charged', { d: 2, zh: 1, q: 0.7 })).toThrow(/d ≥ 3 for q ≠ 0/);
+		const ch = seriesCoeffs(makeBulk('charged', { d: 2, zh: 1, q: 0 }), 6);
 		const br = seriesCoeffs(makeBulk('brane', { d: 2, zh: 1 }), 6);
 		ch.forEach((c, i) => expectRel(`d=2 k=${c.k}`, br[i].value, c.value, 1e-15, 'f = 1 − (z/zh)² identically'));
 	});

@@ -171,8 +171,9 @@ describe('lists and ranges → tables', () => {
 		const t = new Pad().run('thermo zh=1,2').results[0] as TableResult;
 		expect(t.columns).toEqual(['zh', 'T', 's', 'e', 'p']);
 		const v = new Pad().run('validity o=1,2').results[0] as TableResult;
-		expect(v.columns).toEqual(['o', 'l_max', 'radius']);
-		expect(v.rows[1]).toEqual([2, holo.validity(brane(), 2, 1e-3).l_max, holo.validity(brane(), 2, 1e-3).radius]);
+		// radius_err (issue 11: the radius states its uncertainty) is a field added after l_max and radius
+		expect(v.columns).toEqual(['o', 'l_max', 'radius', 'radius_err']);
+		expect(v.rows[1]).toEqual([2, holo.validity(brane(), 2, 1e-3).l_max, holo.validity(brane(), 2, 1e-3).radius, holo.validity(brane(), 2, 1e-3).radius_err]);
 	});
 
 	it('sweep always answers a table, even for one point', () => {

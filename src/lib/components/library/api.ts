@@ -12,9 +12,10 @@ export interface ApiAnswer<T = Record<string, unknown>> {
 export async function callApi<T = Record<string, unknown>>(method: string, url: string, body?: unknown): Promise<ApiAnswer<T>> {
 	const init: RequestInit = { method, headers: {} };
 	if (body instanceof FormData) init.body = body;
-	else if (body !== undefined) {
-		init.body = JSON.stringify(body);
+	else {
+		// a DELETE without a body still says JSON: the server refuses other writes as possible cross-site requests
 		(init.headers as Record<string, string>)['content-type'] = 'application/json';
+		if (body !== undefined) init.body = JSON.stringify(body);
 	}
 	let r: Response;
 	try {

@@ -164,3 +164,56 @@ export function solitonCriticalWidth(P: SolitonParams): { lc: number; zstar: num
 }
 
 export { readParams as readSolitonParams };
+
+export type SolitonPhase = 'connected' | 'disconnected';
+/** Which surface an answer is about: the RT (minimal) one by default, or either candidate by name. */
+export type SolitonPhaseChoice = SolitonPhase | 'rt';
+
+export interface SolitonPhases {
+	/** critical width: the connected and disconnected areas are equal there */
+	lc: number;
+	/** the largest width of a connected surface */
+	lmax: number;
+	/** turning point of the connected surface at l_c */
+	zstarC: number;
+	/** turning point at l_max */
+	zstarMax: number;
+	/**
+	 * ∂A_fin/∂l just above l_c minus just below: 0 (disconnected: A does not depend on l) minus the connected
+	 * surface's √f(z*)/z*^{d−1} at l_c — by Hamilton–Jacobi, ∂A/∂l is the conserved momentum √(H(z*)),
+	 * H = h z^{−2(d−1)} with h = f here (derived; checked against finite differences in the tests).
+	 */
+	jump: number;
+}
+
+/** l_c, l_max and the jump of ∂A/∂l at l_c: the first-order transition of the strip's entanglement. */
+export function solitonPhases(P: SolitonParams): SolitonPhases {
+	const { lc, zstar, lmax } = solitonCriticalWidth(P);
+	const f = 1 - Math.pow(zstar / P.z0, P.d);
+	return { lc, lmax, zstarC: zstar, zstarMax: solitonMaxWidth(P).zstar, jump: -Math.sqrt(f) / Math.pow(zstar, P.d - 1) };
+}
+
+export interface SolitonSurface {
+	phase: SolitonPhase;
+	/** true when this is the RT (minimal) surface at this l */
+	minimal: boolean;
+	areaFinite: number;
+	/** deepest point: the connected surface's turning point, or the cap z0 that the two sheets reach */
+	zstar: number;
+}
+
+/**
+ * The strip's surface in the phase asked for (`rt` = the minimal one). The connected one exists only up to
+ * l_max (on its branch of smaller z*, the one that can dominate); asking for it beyond is an error naming l_max.
+ */
+export function solitonSurface(P: SolitonParams, l: number, choice: SolitonPhaseChoice = 'rt'): SolitonSurface {
+	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const rt = solitonArea(P, l);
+	const disconnected: SolitonSurface = { phase: 'disconnected', minimal: rt.phase === 'disconnected', areaFinite: rt.disconnected, zstar: P.z0 };
+	if (choice === 'disconnected' || (choice === 'rt' && rt.phase === 'disconnected')) return disconnected;
+	if (rt.connected === undefined) {
+		const { lmax } = solitonMaxWidth(P);
+		throw new HoloError(`no connected surface for l > l_max = ${Number(lmax.toPrecision(6))}`, 'l', 'the disconnected surface is the RT surface there: use phase=rt or phase=disconnected');
+	}
+	return { phase: 'connected', minimal: rt.phase === 'connected', areaFinite: rt.connected, zstar: solitonZstar(P, l) };
+}

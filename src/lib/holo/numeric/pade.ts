@@ -12,8 +12,8 @@
  * Accuracy: the linear solve is backward stable; the conditioning of the Padé problem itself grows with M
  * (near-degenerate tables). A system whose pivot falls below 1e-13 of the largest coefficient is reported
  * as `degenerate` instead of being returned with noisy digits. Roots are polished to ~1e-13 relative.
- * A pole whose residue is tiny (a pole–zero "Froissart doublet", common practice to discard) is marked
- * `spurious`.
+ * A pole whose residue is tiny or that has a zero of P on it (a pole–zero "Froissart doublet"; Froissart 1969,
+ * Gilewicz & Kryakin, J. Comput. Appl. Math. 153 (2003) 235; common practice to discard) is marked `spurious`.
  */
 
 export interface Complex {
@@ -34,7 +34,7 @@ export interface PadeApproximant {
 
 export interface PadePole extends Complex {
 	abs: number;
-	/** true when a zero of P sits on the pole (relative distance < 1e-6): a Froissart doublet */
+	/** true for a Froissart doublet: a zero of P within 1e-4 (relative) of the pole, or a negligible residue */
 	spurious: boolean;
 }
 
@@ -157,10 +157,15 @@ export function padeApproximant(c: readonly number[], L: number, M: number): Pad
 		p.push(s);
 	}
 	const zeros = polyRoots(p);
+	const f0 = Math.abs(p[0]) || 1;
 	const poles: PadePole[] = polyRoots(q).map((r) => {
 		const abs = Math.hypot(r.re, r.im);
-		const spurious = zeros.some((z) => Math.hypot(z.re - r.re, z.im - r.im) < 1e-6 * Math.max(1, abs));
-		return { ...r, abs, spurious };
+		// a zero within 1e-4 of the pole, or a residue P(r)/Q'(r) below 1e-10 |r| |f(0)|: a Froissart doublet
+		const paired = zeros.some((z) => Math.hypot(z.re - r.re, z.im - r.im) < 1e-4 * Math.max(1, abs));
+		const P = cevalPoly(p, r).v;
+		const dQ = cevalPoly(q, r).dv;
+		const residue = Math.hypot(P.re, P.im) / Math.max(1e-300, Math.hypot(dQ.re, dQ.im));
+		return { ...r, abs, spurious: paired || residue < 1e-10 * abs * f0 };
 	});
 	poles.sort((x, y) => x.abs - y.abs);
 	return { L, M, p, q, poles, zeros };

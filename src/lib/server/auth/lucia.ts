@@ -8,13 +8,14 @@ function createLucia() {
 	const adapter = new DrizzleSQLiteAdapter(getDb(), schema.sessions, schema.users);
 	return new Lucia(adapter, {
 		sessionCookie: { attributes: { secure: env.secureCookies, sameSite: 'lax' } },
-		getUserAttributes: (a) => ({ email: a.email, name: a.name, role: a.role })
+		getUserAttributes: (a) => ({ email: a.email, name: a.name, role: a.role }),
+		getSessionAttributes: (a) => ({ createdAt: a.createdAt, lastSeenAt: a.lastSeenAt, userAgent: a.userAgent })
 	});
 }
 
 let lucia: ReturnType<typeof createLucia> | undefined;
 
-/** The session manager, created on first use (never during `vite build`). */
+/** The session manager (ids are token hashes: start and check sessions through ./sessions.ts), created on first use (never during `vite build`). */
 export function getLucia() {
 	lucia ??= createLucia();
 	return lucia;
@@ -24,5 +25,6 @@ declare module 'lucia' {
 	interface Register {
 		Lucia: ReturnType<typeof createLucia>;
 		DatabaseUserAttributes: { email: string; name: string; role: Role };
+		DatabaseSessionAttributes: { createdAt: Date | null; lastSeenAt: Date | null; userAgent: string | null };
 	}
 }

@@ -15,15 +15,25 @@ export const users = sqliteTable('users', {
 	name: text('name').notNull(),
 	passwordHash: text('password_hash').notNull(),
 	role: text('role', { enum: ROLES }).notNull().default('member'),
+	/** null until the address is confirmed through the mailed link; unconfirmed accounts cannot sign in */
+	emailConfirmedAt: integer('email_confirmed_at', { mode: 'timestamp_ms' }),
 	createdAt: createdAt()
 });
 
+/**
+ * Lucia's sessions. The id is sha-256 of the cookie's token, never the token: a copy of the database holds no
+ * live session.
+ */
 export const sessions = sqliteTable('sessions', {
 	id: text('id').primaryKey(),
 	userId: text('user_id')
 		.notNull()
 		.references(() => users.id, { onDelete: 'cascade' }),
-	expiresAt: integer('expires_at').notNull()
+	expiresAt: integer('expires_at').notNull(),
+	createdAt: integer('created_at', { mode: 'timestamp_ms' }),
+	lastSeenAt: integer('last_seen_at', { mode: 'timestamp_ms' }),
+	/** the browser's User-Agent (cut short), so a person can tell their sessions apart */
+	userAgent: text('user_agent')
 });
 
 export const pads = sqliteTable(
@@ -84,7 +94,10 @@ export const shares = sqliteTable('shares', {
 	createdAt: createdAt()
 });
 
-/** Readers see a pad when it is shared with them by e-mail invitation. */
+/**
+ * Who reads a pad besides its owner: a row is written only when an invitation is accepted, with the address of
+ * the account that accepted it (addresses are unique and cannot be changed), never when the invitation is sent.
+ */
 export const padAccess = sqliteTable(
 	'pad_access',
 	{
@@ -159,20 +172,72 @@ export const apiKeys = sqliteTable('api_keys', {
 	createdAt: createdAt()
 });
 
+export const MAIL_KINDS = ['invite', 'reset', 'confirm', 'other'] as const;
+
 export const outbox = sqliteTable('outbox', {
 	id: text('id').primaryKey(),
 	to: text('to').notNull(),
 	subject: text('subject').notNull(),
+	/** the body with every link that carries a token replaced by a marker: the outbox never holds a secret */
 	text: text('text').notNull(),
+	kind: text('kind', { enum: MAIL_KINDS }).notNull().default('other'),
 	status: text('status', { enum: ['queued', 'sent', 'failed'] }).notNull(),
 	error: text('error'),
 	createdAt: createdAt()
 });
 
+/** Tokens below are stored as sha-256 hashes and only count once their mail (outbox_id) was sent. */
 export const passwordResets = sqliteTable('password_resets', {
 	tokenHash: text('token_hash').primaryKey(),
 	userId: text('user_id')
 		.notNull()
 		.references(() => users.id, { onDelete: 'cascade' }),
-	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull()
+	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+	outboxId: text('outbox_id')
+});
+
+export const emailConfirmations = sqliteTable('email_confirmations', {
+	tokenHash: text('token_hash').primaryKey(),
+	userId: text('user_id')
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	/** the invitation the account was made through: accepted for it when the address is confirmed */
+	inviteId: text('invite_id'),
+	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+	outboxId: text('outbox_id')
+});
+
+export const INVITATION_STATES = ['pending', 'accepted', 'revoked'] as const;
+
+export const invitations = sqliteTable(
+	'invitations',
+	{
+		id: text('id').primaryKey(),
+		padId: text('pad_id')
+			.notNull()
+			.references(() => pads.id, { onDelete: 'cascade' }),
+		/** where the link was mailed; whoever holds the token may accept, with any confirmed account */
+		email: text('email').notNull(),
+		tokenHash: text('token_hash').notNull().unique(),
+		invitedBy: text('invited_by')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		state: text('state', { enum: INVITATION_STATES }).notNull().default('pending'),
+		acceptedBy: text('accepted_by').references(() => users.id, { onDelete: 'set null' }),
+		acceptedAt: integer('accepted_at', { mode: 'timestamp_ms' }),
+		revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
+		expiresAt: integer('expires_at', { mode: 'timestamp_ms' }).notNull(),
+		outboxId: text('outbox_id'),
+		createdAt: createdAt()
+	},
+	(t) => [index('invitations_pad_idx').on(t.padId, t.createdAt)]
+);
+
+/** Group-wide settings an admin changes at run time (the sign-up policy), one JSON value per key. */
+export const settings = sqliteTable('settings', {
+	key: text('key').primaryKey(),
+	value: text('value', { mode: 'json' }).notNull(),
+	updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
+		.notNull()
+		.$defaultFn(() => new Date())
 });

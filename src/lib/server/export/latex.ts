@@ -1,6 +1,9 @@
 import type { PadDocument } from './schema';
 import { latexNumber, orderText } from './numbers';
 import { bulkText } from './markdown';
+import { safeMath } from './safe-math';
+
+export { safeMath };
 
 type Result = NonNullable<PadDocument['steps'][number]['results']>[number];
 
@@ -26,43 +29,23 @@ export function texText(s: string): string {
 	for (const ch of s.replace(/\r?\n/g, ' ')) {
 		if (ch in SPECIAL) out += SPECIAL[ch];
 		else if (ch in UNICODE) out += UNICODE[ch];
-		else if (ch.codePointAt(0)! < 0x20) out += ' ';
+		else if (ch.codePointAt(0)! < 0x20 || (ch.codePointAt(0)! >= 0x7f && ch.codePointAt(0)! < 0xa0)) out += ' ';
 		else if (ch.codePointAt(0)! <= 0xff) out += ch;
 		else out += '?';
 	}
 	return out;
 }
 
-/** Verbatim lines may not end their own environment; non-Latin-1 characters cannot pass through pdfLaTeX. */
+/**
+ * Verbatim lines may not end their own environment (LaTeX ends it at the exact text `\end{verbatim}`, so a
+ * space breaks the match); control characters and non-Latin-1 characters cannot pass through pdfLaTeX.
+ * Inside verbatim every special character, `^` included, is plain text, so nothing else can run.
+ */
 function verbatimLine(s: string): string {
 	return s
 		.replace(/\r?\n/g, ' ')
 		.replace(/\\end\s*\{verbatim\}/g, '\\end {verbatim}')
-		.replace(/[^\x20-\xff]/gu, '?');
-}
-
-/**
- * Formulas come from stored results, which an imported file can set: anything that could read files, write
- * them, redefine commands or leave math mode is printed as text instead of compiled.
- */
-const UNSAFE_PART = /input|include|write|open|close|catcode|csname|special|lua|shipout|makeat|every|pdf|file|scantokens/i;
-const UNSAFE_WORD = new Set(
-	'let def edef gdef xdef read readline immediate expandafter global end begin verb url href usepackage documentclass newcommand renewcommand providecommand DeclareRobustCommand newenvironment renewenvironment output aftergroup afterassignment'.split(' ')
-);
-const ALLOWED_ENV = /\\(begin|end)\{(aligned|array|matrix|pmatrix|bmatrix|cases|gathered|split)\}/g;
-
-export function safeMath(latex: string): string | null {
-	if (latex.length > 20_000 || /\^\^|\$|\\[[\]()]/.test(latex)) return null;
-	for (const [, word] of latex.replace(ALLOWED_ENV, '').matchAll(/\\([A-Za-z@]+)/g)) {
-		if (UNSAFE_WORD.has(word) || UNSAFE_PART.test(word)) return null;
-	}
-	let depth = 0;
-	for (let i = 0; i < latex.length; i++) {
-		if (latex[i] === '\\') i++;
-		else if (latex[i] === '{') depth++;
-		else if (latex[i] === '}' && --depth < 0) return null;
-	}
-	return depth === 0 ? latex : null;
+		.replace(/[^\x20-\x7e\xa0-\xff]/gu, '?');
 }
 
 function display(latex: string | undefined): string[] {
@@ -80,7 +63,7 @@ function tabular(columns: string[], rows: (number | string | null)[][]): string[
 	const spec = columns.map(() => 'r').join('');
 	for (let i = 0; i < Math.max(rows.length, 1); i += 40) {
 		out.push('\\begin{center}\\small', `\\begin{tabular}{${spec}}`, '\\hline', columns.map(texText).join(' & ') + ' \\\\', '\\hline');
-		for (const row of rows.slice(i, i + 40)) out.push(row.map((v) => (typeof v === 'string' ? texText(v) : n(v))).join(' & ') + ' \\\\');
+		for (const row of rows.slice(i, i + 40)) out.push(row.slice(0, columns.length).map((v) => (typeof v === 'string' ? texText(v) : n(v))).join(' & ') + ' \\\\');
 		out.push('\\hline', '\\end{tabular}', '\\end{center}');
 	}
 	return out;
@@ -89,7 +72,7 @@ function tabular(columns: string[], rows: (number | string | null)[][]): string[
 function renderResult(r: Result): string[] {
 	switch (r.kind) {
 		case 'scalar':
-			return [`\\item \\textbf{${texText(r.label)}} $=$ ${n(r.value)}${r.unit ? ' ' + texText(r.unit) : ''} (${orderText(r.order)})`, ...warnLine(r.warning), ...display(r.latex)];
+			return [`\\item \\textbf{${texText(r.label)}} $=$ ${n(r.value)}${r.unit ? ' ' + texText(r.unit) : ''} (${texText(orderText(r.order))})`, ...warnLine(r.warning), ...display(r.latex)];
 		case 'record':
 			return [
 				`\\item \\textbf{${texText(r.label)}}: ${Object.entries(r.fields).map(([k, v]) => `${texText(k)} $=$ ${n(v)}`).join(', ')}`,

@@ -1,5 +1,6 @@
 import type { PadDocument } from './schema';
 import { formatNumber, orderText } from './numbers';
+import { safeMath } from './safe-math';
 
 type Results = NonNullable<PadDocument['steps'][number]['results']>;
 
@@ -10,23 +11,48 @@ function fenced(text: string, lang = ''): string {
 	return `${fence}${lang}\n${text}\n${fence}`;
 }
 
-/** Table cells and inline text: pipes and line breaks would break the Markdown table or list. */
-function cell(v: unknown): string {
-	return formatNumber(v).replace(/\|/g, '\\|').replace(/\r?\n/g, ' ');
+/** An inline code span that no backtick inside can close (CommonMark: the fence is a run of equal length). */
+function code(text: string): string {
+	const longest = Math.max(0, ...(text.match(/`+/g) ?? []).map((r) => r.length));
+	const fence = '`'.repeat(longest + 1);
+	return `${fence} ${text.replace(/[\r\n]+/g, ' ')} ${fence}`;
 }
 
+const ENTITIES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;' };
+
+/**
+ * User text (titles, labels, messages, table cells) as plain Markdown text: no raw HTML (`<`, `>` and `&` become
+ * entities, which every renderer shows as the character and none parses as a tag), no emphasis, link, code or
+ * table syntax (backslash escapes), no control characters and no line breaks.
+ */
 function inline(text: string): string {
-	return text.replace(/\r?\n/g, ' ').replace(/([\\`*_[\]<>|])/g, '\\$1');
+	return text
+		.replace(/[\r\n]+/g, ' ')
+		.replace(/[\x00-\x1f\x7f]/g, ' ')
+		.replace(/[&<>]/g, (c) => ENTITIES[c])
+		.replace(/([\\`*_[\]|~])/g, '\\$1');
 }
 
+function cell(v: unknown): string {
+	return inline(formatNumber(v));
+}
+
+/**
+ * A display formula for renderers with math support. Only formulas the .tex export would compile get a math
+ * block (so no `$` or raw text gets out), and `<`, `>` become \lt, \gt so no tag can form; anything else is
+ * shown as a code block.
+ */
 function mathBlock(latex: string | undefined): string[] {
-	return latex ? ['', '$$', latex.replace(/\$\$/g, '$ $'), '$$'] : [];
+	if (!latex) return [];
+	const safe = safeMath(latex);
+	if (safe === null) return ['', fenced(latex.replace(/\r?\n/g, ' '), 'tex')];
+	return ['', '$$', safe.replace(/</g, '\\lt ').replace(/>/g, '\\gt '), '$$'];
 }
 
 function renderResult(r: Results[number]): string[] {
 	switch (r.kind) {
 		case 'scalar':
-			return [`- **${inline(r.label)}** = ${cell(r.value)}${r.unit ? ' ' + inline(r.unit) : ''} (${orderText(r.order)})`, ...mathBlock(r.latex), ...warn(r.warning)];
+			return [`- **${inline(r.label)}** = ${cell(r.value)}${r.unit ? ' ' + inline(r.unit) : ''} (${inline(orderText(r.order))})`, ...mathBlock(r.latex), ...warn(r.warning)];
 		case 'record':
 			return [
 				`- **${inline(r.label)}**: ${Object.entries(r.fields).map(([k, v]) => `${inline(k)} = ${cell(v)}`).join(', ')}`,
@@ -71,7 +97,7 @@ function bulkText(bulk: PadDocument['bulk']): string {
 export function renderMarkdown(doc: PadDocument, meta: { owner?: string; exportedAt?: Date } = {}): string {
 	const out: string[] = [`# ${inline(doc.title)}`, ''];
 	const by = meta.owner ? ` by ${inline(meta.owner)}` : '';
-	out.push(`Bulkpad pad${by}; bulk now \`${bulkText(doc.bulk)}\`; ${doc.steps.length} steps${meta.exportedAt ? `; exported ${meta.exportedAt.toISOString()}` : ''}.`);
+	out.push(`Bulkpad pad${by}; bulk now ${code(bulkText(doc.bulk))}; ${doc.steps.length} steps${meta.exportedAt ? `; exported ${meta.exportedAt.toISOString()}` : ''}.`);
 	for (const s of doc.steps) {
 		out.push('', `## Step ${s.n}`, '', fenced(s.input, 'bulkpad'), '');
 		if (s.status === 'ok') for (const r of s.results ?? []) out.push(...renderResult(r));

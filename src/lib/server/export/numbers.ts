@@ -13,7 +13,8 @@ export function formatNumber(v: unknown): string {
 /** The same number for LaTeX math mode: `1.5e-7` → `1.5\times10^{-7}`. */
 export function latexNumber(v: unknown): string {
 	if (typeof v === 'number' && !Number.isFinite(v)) return Number.isNaN(v) ? '\\mathrm{NaN}' : v > 0 ? '\\infty' : '-\\infty';
-	if (v === null || v === undefined) return '\\text{---}';
+	// only numbers reach math mode: anything else in a stored result (an imported file sets them) is a dash
+	if (typeof v !== 'number') return '\\text{---}';
 	const s = formatNumber(v);
 	const m = /^(-?[\d.]+)e([+-]?\d+)$/.exec(s);
 	if (!m) return s;

@@ -5,6 +5,8 @@
  */
 import { z } from 'zod';
 import { DEFAULT_LIMITS } from '../../lang/limits';
+import { checkBulk, checkUnits } from '../../lang/schema';
+import { BULKS, UNIT_SYSTEMS, isBulk } from '../../lang/vocab';
 
 export const PAD_FORMAT = 'bulkpad-pad';
 export const PAD_FORMAT_VERSION = 1;
@@ -15,49 +17,101 @@ const label = z.string().max(500);
 const latex = z.string().max(20_000);
 /** JSON has no NaN or ±Infinity: a non-finite number was written as null */
 const num = z.number().nullable();
-const fields = z.record(z.string().max(100), num);
+const numbers = z.record(z.string().max(100), num).refine((r) => Object.keys(r).length <= 200, 'at most 200 fields');
 const warning = z.string().max(2000).optional();
 const order = z.union([z.number(), z.literal('exact')]);
+/**
+ * A field result.ts does not name yet (the engine may add fields; API.md allows more): accepted only as a
+ * plain value or a flat record of numbers, so nothing nested or unbounded rides along on an unknown key.
+ */
+const extra = z.union([z.number(), z.string().max(2000), z.boolean(), z.null(), numbers]);
+/**
+ * An object with exactly these typed fields plus, at most, plain extras. Typed as a loose object (extras are
+ * `unknown` to TypeScript): an index signature of `extra` would clash with the named fields' own types.
+ */
+const shape = <T extends z.ZodRawShape>(fields: T) => z.object(fields).catchall(extra) as unknown as z.ZodObject<T, z.core.$loose>;
 
+/** The result types of src/lib/lang/result.ts, field by field: an allow-list, not a loose bag. */
 export const resultSchema = z.discriminatedUnion('kind', [
-	z.looseObject({ kind: z.literal('scalar'), label, value: num, order, unit: z.string().max(100).optional(), latex: latex.optional(), warning }),
-	z.looseObject({ kind: z.literal('record'), label, fields, latex: latex.optional(), warning }),
-	z.looseObject({
+	shape({ kind: z.literal('scalar'), label, value: num, order, unit: z.string().max(100).optional(), latex: latex.optional(), warning, fields: numbers.optional() }),
+	shape({ kind: z.literal('record'), label, fields: numbers, latex: latex.optional(), warning }),
+	shape({
 		kind: z.literal('table'),
 		label,
 		columns: z.array(z.string().max(200)).max(100),
 		rows: z.array(z.array(z.union([z.number(), z.string().max(500), z.null()])).max(100)).max(20_000),
-		warning
+		plot: shape({
+			x: z.string().max(200),
+			log: z.boolean().optional(),
+			validity: numbers.optional(),
+			dataset: z.string().max(200).optional(),
+			show: z.boolean().optional()
+		}).optional(),
+		warning,
+		latex: latex.optional(),
+		download: shape({ format: z.literal('csv'), filename: z.string().max(200) }).optional()
 	}),
-	z.looseObject({
+	shape({
 		kind: z.literal('series'),
 		label,
-		terms: z.array(z.looseObject({ k: z.number(), coeff: num, latex })).max(200),
+		terms: z.array(shape({ k: z.number(), coeff: num, latex, power: z.number().optional() })).max(200),
 		latex,
+		order: order.optional(),
 		warning
 	}),
-	z.looseObject({ kind: z.literal('check'), label, pass: z.boolean(), lhs: num, rhs: num, residual: num, tolerance: num, warning }),
-	z.looseObject({ kind: z.literal('note'), text: z.string().max(5000) })
+	shape({ kind: z.literal('check'), label, pass: z.boolean(), lhs: num, rhs: num, residual: num, tolerance: num, order: order.optional(), warning }),
+	shape({ kind: z.literal('note'), text: z.string().max(5000) })
 ]);
 
-export const bulkSchema = z.object({
-	name: z.string().min(1).max(40),
-	params: z.record(z.string().max(40), z.union([z.number(), z.string().max(500)]))
-});
+const bulkNames = BULKS.join(', ');
 
-export const unitsSchema = z.discriminatedUnion('system', [
-	z.object({ system: z.literal('geo'), G: z.number() }),
-	z.object({ system: z.literal('cft'), c: z.number() }),
-	z.object({ system: z.literal('sym'), N: z.number() })
-]);
+/**
+ * A bulk as a pad stores it, checked by the language's own schema for that bulk (src/lib/lang/schema.ts), so
+ * an imported pad can only hold a bulk a `use` line could have set. Only zod runs here: the engine's checks
+ * (and a metric's formula) are evaluated later, in a worker, when a line uses the bulk.
+ */
+export const bulkSchema = z
+	.object({
+		name: z.string().min(1).max(40),
+		params: z.record(z.string().max(40), z.union([z.number(), z.string().max(500)]))
+	})
+	.superRefine((b, ctx) => {
+		if (!isBulk(b.name)) {
+			ctx.addIssue({ code: 'custom', path: ['name'], message: `unknown bulk '${b.name}': Bulkpad knows ${bulkNames}` });
+			return;
+		}
+		const checked = checkBulk(b.name, b.params);
+		if (!checked.ok) {
+			const message = `bulk ${b.name}: ${checked.message}${checked.hint ? ` (${checked.hint})` : ''}`;
+			ctx.addIssue({ code: 'custom', path: checked.key ? ['params', checked.key] : ['params'], message });
+		}
+	});
 
-const refSchema = z.object({ value: z.number().optional(), fields: z.record(z.string().max(100), z.number()) });
+/** Units as `units geo|cft|sym …` would set them, checked by the language's units schema. */
+export const unitsSchema = z
+	.object({ system: z.enum(UNIT_SYSTEMS, { error: `units: the system is ${UNIT_SYSTEMS.join(', ')}` }) })
+	.catchall(z.unknown())
+	.superRefine((u, ctx) => {
+		const { system, ...params } = u;
+		const checked = checkUnits(system, params);
+		if (!checked.ok) ctx.addIssue({ code: 'custom', path: checked.key ? [checked.key] : [], message: checked.message });
+	});
 
-export const stepErrorSchema = z.looseObject({
+const refSchema = z.object({ value: z.number().optional(), fields: z.record(z.string().max(100), z.number()), order: order.optional() });
+
+/** A let-name as the lexer reads a name; a key that would reach Object.prototype is no name. */
+const letName = z
+	.string()
+	.max(100)
+	.regex(/^[A-Za-z_][A-Za-z0-9_]*$/, 'a let name is a letter or _ followed by letters, digits or _')
+	.refine((n) => !['__proto__', 'constructor', 'prototype'].includes(n), 'not a let name');
+
+export const stepErrorSchema = shape({
 	message: z.string().max(2000),
 	start: z.number().int().min(0).optional(),
 	end: z.number().int().min(0).optional(),
-	hint: z.string().max(2000).optional()
+	hint: z.string().max(2000).optional(),
+	code: z.string().max(40).optional()
 });
 
 export const exportedStepSchema = z.object({
@@ -78,7 +132,7 @@ export const padDocumentSchema = z
 		title: z.string().trim().min(1).max(200),
 		bulk: bulkSchema,
 		units: unitsSchema,
-		lets: z.record(z.string().max(100), refSchema).optional(),
+		lets: z.record(letName, refSchema).optional(),
 		steps: z.array(exportedStepSchema).max(MAX_IMPORT_STEPS, `at most ${MAX_IMPORT_STEPS} steps`)
 	})
 	.superRefine((doc, ctx) => {
@@ -122,11 +176,18 @@ export function toPadDocument(src: PadSource): PadDocument {
 	};
 }
 
-/** Validates an untrusted document; the message names the first few offending paths. */
+/** Where an issue is, for people: `step 3, steps.2.bulkBefore.name: …` (steps count from 1, paths from 0). */
+function describeIssue(i: z.core.$ZodIssue): string {
+	const path = i.path.map(String).join('.');
+	const step = i.path[0] === 'steps' && typeof i.path[1] === 'number' ? `step ${i.path[1] + 1}, ` : '';
+	return `${step}${path ? path + ': ' : ''}${i.message}`;
+}
+
+/** Validates an untrusted document; the message names the first few offending steps and paths. */
 export function parsePadDocument(raw: unknown): { ok: true; doc: PadDocument } | { ok: false; message: string } {
 	const parsed = padDocumentSchema.safeParse(raw);
 	if (parsed.success) return { ok: true, doc: parsed.data };
-	const issues = parsed.error.issues.slice(0, 5).map((i) => `${i.path.length ? i.path.join('.') + ': ' : ''}${i.message}`);
+	const issues = parsed.error.issues.slice(0, 5).map(describeIssue);
 	const more = parsed.error.issues.length > 5 ? ` (and ${parsed.error.issues.length - 5} more)` : '';
 	return { ok: false, message: `Not a Bulkpad pad file: ${issues.join('; ')}${more}` };
 }

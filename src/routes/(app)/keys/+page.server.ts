@@ -1,9 +1,15 @@
 import { redirect } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 import { listKeys } from '$lib/server/keys';
+import { listSessions } from '$lib/server/auth/sessions';
 
 export const load: PageServerLoad = ({ locals, url }) => {
 	const user = locals.user;
 	if (!user) redirect(303, '/signin?next=/keys');
-	return { keys: listKeys(user), canCreate: user.role !== 'reader', origin: url.origin };
+	return {
+		keys: listKeys(user),
+		sessions: listSessions(user.id, locals.session?.id),
+		canCreate: user.role !== 'reader',
+		origin: url.origin
+	};
 };

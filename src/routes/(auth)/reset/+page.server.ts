@@ -2,6 +2,7 @@ import { fail } from '@sveltejs/kit';
 import type { Actions } from './$types';
 import { emailSchema } from '$lib/server/auth/accounts';
 import { requestPasswordReset } from '$lib/server/password-reset';
+import { ApiFailure } from '$lib/server/http';
 
 export const actions: Actions = {
 	/** The same answer whether or not the account exists. */
@@ -10,7 +11,12 @@ export const actions: Actions = {
 		const email = String(form.get('email') ?? '');
 		const parsed = emailSchema.safeParse(email);
 		if (!parsed.success) return fail(400, { email, message: 'Enter a valid e-mail address.' });
-		if (requestPasswordReset(parsed.data, getClientAddress()).limited) return fail(429, { email, message: 'Too many requests; try again later.' });
+		try {
+			requestPasswordReset(parsed.data, getClientAddress());
+		} catch (e) {
+			if (e instanceof ApiFailure) return fail(e.status, { email, message: e.message });
+			throw e;
+		}
 		return { sent: true, email: parsed.data };
 	}
 };

@@ -5,7 +5,7 @@ import { ApiFailure } from '$lib/server/http';
 
 export const load: PageServerLoad = ({ locals, url }) => {
 	if (locals.user) redirect(303, safeNext(url.searchParams.get('next')));
-	return { next: url.searchParams.get('next') ?? '' };
+	return { next: url.searchParams.get('next') ?? '', confirmed: url.searchParams.has('confirmed'), reset: url.searchParams.has('reset') };
 };
 
 /** Only same-site paths, so a crafted link cannot send a fresh session elsewhere. */
@@ -21,9 +21,9 @@ export const actions: Actions = {
 		if (!parsed.success) return fail(400, { email, message: 'Enter your e-mail and password.' });
 		try {
 			const user = await checkCredentials(parsed.data, event.getClientAddress());
-			await startSession(event.cookies, user.id);
+			await startSession(event.cookies, user.id, event.request.headers.get('user-agent') ?? '');
 		} catch (e) {
-			if (e instanceof ApiFailure) return fail(e.status, { email, message: e.message });
+			if (e instanceof ApiFailure) return fail(e.status, { email, message: e.message, unconfirmed: e.extra.unconfirmed === true });
 			throw e;
 		}
 		redirect(303, safeNext(String(form.get('next') ?? '')));

@@ -133,7 +133,9 @@ describe('first law, order n', () => {
 		expect(() => firstLaw(b, 0.4, 13)).toThrow(/order/);
 	});
 
-	it('charged brane at fixed q: exact α from the zh-derivative agrees with finite differences (derived)', () => {
+	// since issue 11 the charged law has two parameters (firstlaw-charge.test.ts); along δzh at fixed q it reads
+	// 4π ∂_zhΔA = α ∂_zh ê + β ∂_zh(ρ̂ l), which at β → 0 is the old one-parameter form checked here
+	it('charged brane: exact α, β reproduce the zh-derivative of ΔA along fixed q (finite differences; derived)', () => {
 		const l = 0.6;
 		const q = 0.7;
 		const d = 4;
@@ -142,6 +144,9 @@ describe('first law, order n', () => {
 		const h = 1e-3;
 		const dA = (4 * (A(1 + h / 2) - A(1 - h / 2)) - (A(1 + h) - A(1 - h)) / 2) / (3 * h);
 		const de = -d * l * (d - 1) * (1 + q * q);
-		expectRel('charged d=4 q=0.7 l=0.6 exact α', (4 * Math.PI * dA) / de, r.alpha, 1e-9, 'finite differences, common practice');
+		// ρ̂ l = l 2(d−1) q/(g_d zh^{d−1}): ∂_zh at zh = 1 is −(d−1) times it
+		const g = Math.sqrt((d - 1) / (2 * (d - 2)));
+		const dQ = (-(d - 1) * l * 2 * (d - 1) * q) / g;
+		expectRel('charged d=4 q=0.7 l=0.6 exact α, β', 4 * Math.PI * dA, r.alpha * de + r.zeta * dQ, 1e-9, 'finite differences, common practice');
 	});
 });

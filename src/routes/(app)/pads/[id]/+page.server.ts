@@ -2,11 +2,18 @@ import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { orPageError } from '$lib/server/http';
 import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad } from '$lib/server/pads';
+import { titleSchema } from '$lib/server/pad-view';
 import type { BulkState, Result, UnitsState } from '$lib/lang/result';
 import type { StepData } from '$lib/client/types';
 
-export const load: PageServerLoad = async ({ locals, params }) => {
-	const user = locals.user!;
+/**
+ * The layout redirects a visitor without a session, but SvelteKit runs this load beside the layout's (a
+ * `__data.json` request too), so it checks for itself: a missing session never reaches the pad lookup, and an
+ * existing pad and a missing one answer the same redirect (the layout's).
+ */
+export const load: PageServerLoad = async ({ locals, params, url }) => {
+	const user = locals.user;
+	if (!user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
 	const pad = orPageError(() => findReadablePad(user, params.id));
 	const steps: StepData[] = padSteps(pad.id).map((s) => ({
 		id: s.id,
@@ -35,9 +42,10 @@ export const actions: Actions = {
 	rename: async ({ locals, params, request }) => {
 		const user = locals.user;
 		if (!user || user.role === 'reader') return fail(403, { message: 'Only the pad’s owner may rename it.' });
-		const title = String((await request.formData()).get('title') ?? '').trim();
-		if (!title) return fail(400, { message: 'A pad needs a title.' });
-		if (title.length > 120) return fail(400, { message: 'Keep the title under 120 characters.' });
+		// the same rule as PATCH /api/pads/[id], with its message
+		const parsed = titleSchema.safeParse(String((await request.formData()).get('title') ?? ''));
+		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
+		const title = parsed.data;
 		renamePad(orPageError(() => findOwnPad(user, params.id)), title);
 		return { renamed: title };
 	},

@@ -5,7 +5,7 @@ import { ApiFailure, orPageError } from '$lib/server/http';
 import { emailSchema } from '$lib/server/auth/accounts';
 import { findOwnPad, findReadablePad, padSteps } from '$lib/server/pads';
 import { createShare, listShares, revokeShare, transcriptOf } from '$lib/server/transcripts';
-import { invitePerson } from '$lib/server/invites';
+import { invitePerson, listInvitations, revokeInvitation } from '$lib/server/invites';
 
 /** The read-only view of a pad for the people invited to it; its owner also manages links and invitations here. */
 export const load: PageServerLoad = ({ params, locals, url }) => {
@@ -17,7 +17,8 @@ export const load: PageServerLoad = ({ params, locals, url }) => {
 		id: pad.id,
 		transcript: transcriptOf(pad, padSteps(pad.id)),
 		isOwner,
-		shares: isOwner ? listShares(pad, url.origin) : []
+		shares: isOwner ? listShares(pad, url.origin) : [],
+		invitations: isOwner ? listInvitations(pad) : []
 	};
 };
 
@@ -45,13 +46,24 @@ export const actions: Actions = {
 		orPageError(() => revokeShare(pad, slug));
 		return { message: 'Revoked; that link now answers “not found”.' };
 	},
+	uninvite: async (event) => {
+		const { pad } = ownPad(event);
+		const id = String((await event.request.formData()).get('invitation') ?? '');
+		orPageError(() => revokeInvitation(pad, id));
+		return { message: 'Revoked; that invitation gives no access any more.' };
+	},
 	invite: async (event) => {
 		const { user, pad } = ownPad(event);
 		const email = emailSchema.safeParse(String((await event.request.formData()).get('email') ?? ''));
 		if (!email.success) return fail(400, { message: 'Enter a valid e-mail address.' });
 		try {
-			const mail = await invitePerson(pad, user, email.data);
-			return { message: mail.status === 'sent' ? `Invited ${email.data}; the e-mail is on its way.` : `Invited ${email.data}, but the e-mail failed: ${mail.error}` };
+			const { mail } = await invitePerson(pad, user, email.data, event.getClientAddress());
+			return {
+				message:
+					mail.status === 'sent'
+						? `Invited ${email.data}; the e-mail with a single-use link is on its way.`
+						: `The e-mail to ${email.data} failed (${mail.error}); its link will not work, invite again.`
+			};
 		} catch (e) {
 			if (e instanceof ApiFailure) return fail(e.status, { message: e.message });
 			throw e;

@@ -6,13 +6,13 @@ import { findOwnPad } from '$lib/server/pads';
 import { invitePerson } from '$lib/server/invites';
 
 /**
- * POST {email}: gives that address read access and mails the invitation. The answer says whether the mail
- * went out; the access is granted either way (the admin outbox shows a failed send).
+ * POST {email}: mails a single-use invitation link to that address; nothing is granted until someone accepts
+ * with the link. The answer says whether the mail went out (a link from a failed send never works).
  */
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
 	const { email } = await readBody(event, z.object({ email: emailSchema }));
-	const mail = await invitePerson(pad, user, email);
-	return ok({ mail: { status: mail.status } });
+	const { invitation, mail } = await invitePerson(pad, user, email, event.getClientAddress());
+	return ok({ mail: { status: mail.status }, invitation });
 });
