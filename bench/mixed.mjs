@@ -56,7 +56,11 @@ try {
 			body: JSON.stringify({ input: HEAVY })
 		}).then(async (r) => (await r.arrayBuffer(), r));
 	const replayCall = (i) => () =>
-		fetch(`${server.baseUrl}/api/t/${SLUG}/replay`, { method: 'POST', headers: { origin: server.baseUrl, 'x-forwarded-for': `10.0.0.${i + 1}` } }).then(
+		fetch(`${server.baseUrl}/api/t/${SLUG}/replay`, {
+			method: 'POST',
+			headers: { origin: server.baseUrl, 'content-type': 'application/json', 'x-forwarded-for': `10.0.0.${i + 1}` },
+			body: '{}'
+		}).then(
 			async (r) => (await r.arrayBuffer(), r)
 		);
 	const background = [

@@ -124,7 +124,12 @@ describe('replays', () => {
 		const controllers = Array.from({ length: 6 }, () => new AbortController());
 		const base = new Client().baseUrl;
 		const calls = controllers.map((c) =>
-			fetch(`${base}/api/t/${DEMO_SLUG}/replay`, { method: 'POST', headers: { origin: base }, signal: c.signal }).catch(() => undefined)
+			fetch(`${base}/api/t/${DEMO_SLUG}/replay`, {
+				method: 'POST',
+				headers: { origin: base, 'content-type': 'application/json' },
+				body: '{}',
+				signal: c.signal
+			}).catch(() => undefined)
 		);
 		await new Promise((r) => setTimeout(r, 300));
 		for (const c of controllers) c.abort();
