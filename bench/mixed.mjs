@@ -40,10 +40,14 @@ try {
 	let stop = false;
 	const statuses = { heavy: {}, replay: {} };
 	const count = (kind, s) => (statuses[kind][s] = (statuses[kind][s] ?? 0) + 1);
+	// a refused client waits as the answer says (Retry-After, else the seconds named in the message), at most
+	// 5 s so it keeps asking during the run, instead of hammering the server with refusals
 	const loop = async (kind, call) => {
 		while (!stop) {
 			try {
-				count(kind, (await call()).status);
+				const r = await call();
+				count(kind, r.status);
+				if (r.status === 429) await new Promise((ok) => setTimeout(ok, 1000 * Math.min(5, r.wait ?? 1)));
 			} catch {
 				count(kind, 'network error');
 			}
@@ -60,9 +64,11 @@ try {
 			method: 'POST',
 			headers: { origin: server.baseUrl, 'content-type': 'application/json', 'x-forwarded-for': `10.0.0.${i + 1}` },
 			body: '{}'
-		}).then(
-			async (r) => (await r.arrayBuffer(), r)
-		);
+		}).then(async (r) => {
+			const body = await r.json().catch(() => ({}));
+			const named = /try again in (\d+) s/.exec(body?.error?.message ?? '');
+			return { status: r.status, wait: Number(r.headers.get('retry-after') ?? named?.[1] ?? 1) };
+		});
 	const background = [
 		...Array.from({ length: HEAVY_CONCURRENCY }, () => loop('heavy', heavyCall)),
 		...Array.from({ length: REPLAYERS }, (_, i) => loop('replay', replayCall(i)))
@@ -90,7 +96,8 @@ anonymous clients replay the demo transcript back to back. ${machineLine().start
 
 A request unanswered after 30 s would count as an error. Light p99 under mixed load / idle p99: **×${ratio.toFixed(2)}** (goal ≤ ×3, zero errors and zero 5xx).
 Heavy answers: ${fmt(statuses.heavy)} (422 = stopped at its own 5 s budget; one heavy line per member runs at a time).
-Replay answers: ${fmt(statuses.replay)} (each client at the default limit of ${process.env.BULKPAD_REPLAY_PER_MINUTE ?? 20} replays a minute per address, then 429;
+Replay answers: ${fmt(statuses.replay)} (each client at the default limit of ${process.env.BULKPAD_REPLAY_PER_MINUTE ?? 20} replays a minute per address, then 429, after
+which it waits as told, at most 5 s, before asking again;
 an unchanged transcript reuses its last fresh run; clients replaying at once share one run).`
 	);
 } finally {

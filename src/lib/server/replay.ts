@@ -24,7 +24,8 @@ export const transcriptReplayLimiter = createRateLimiter(evalSettings.replayPerT
 
 export function takeReplay(clientAddress: string) {
 	if (!replayLimiter.take(clientAddress)) {
-		failure(429, `Too many replays from this address; try again in ${replayLimiter.retryAfterSeconds(clientAddress)} s.`);
+		const wait = replayLimiter.retryAfterSeconds(clientAddress);
+		failure(429, `Too many replays from this address; try again in ${wait} s.`, { retryAfter: wait });
 	}
 }
 
@@ -71,7 +72,8 @@ export async function replayAnswer(pad: PadRow, steps: StepRow[], req: ReplayReq
 	let flight = flights.get(key);
 	if (!flight) {
 		if (req.limitTranscript && !transcriptReplayLimiter.take(pad.id)) {
-			failure(429, `This transcript is being replayed too often; try again in ${transcriptReplayLimiter.retryAfterSeconds(pad.id)} s.`);
+			const wait = transcriptReplayLimiter.retryAfterSeconds(pad.id);
+			failure(429, `This transcript is being replayed too often; try again in ${wait} s.`, { retryAfter: wait });
 		}
 		const controller = new AbortController();
 		const promise = replaySteps(pad, steps, { owner: req.owner, signal: controller.signal }).then((fresh) => {
