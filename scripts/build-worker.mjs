@@ -1,12 +1,12 @@
-// Bundles the evaluation worker (language + engine + mathjs + nerdamer) into one file for worker_threads.
-// SvelteKit's build cannot emit a worker_threads entry, so esbuild does it beside the app.
+// Bundles the evaluation process (language + engine + mathjs + nerdamer) into one file that the server forks
+// (src/lib/server/eval/pool.ts). SvelteKit's build cannot emit a separate process entry, so esbuild does it.
 import { build } from 'esbuild';
 import { fileURLToPath } from 'node:url';
 import { dirname, resolve } from 'node:path';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 await build({
-	entryPoints: [resolve(root, 'src/lib/server/eval/worker.ts')],
+	entryPoints: [resolve(root, 'src/lib/server/eval/child.ts')],
 	outfile: resolve(root, process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs'),
 	bundle: true,
 	platform: 'node',

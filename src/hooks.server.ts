@@ -10,7 +10,7 @@ import { applySecurityHeaders } from '$lib/server/security/headers';
 import { judgeWrite } from '$lib/server/security/writes';
 
 export const init: ServerInit = () => {
-	// load the engine into the worker threads in the background; requests do not wait for it
+	// start the evaluation processes in the background; requests do not wait for them
 	if (!building) warmPool().catch((e) => console.error('could not warm the evaluation pool', e));
 };
 

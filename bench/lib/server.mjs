@@ -45,10 +45,11 @@ export async function startBuiltServer(extraEnv = {}) {
 	};
 }
 
-export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo') {
+/** `headers` go with both requests (e.g. X-Forwarded-For when the server reads addresses from it). */
+export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo', headers = {}) {
 	const r = await fetch(`${baseUrl}/api/auth/signin`, {
 		method: 'POST',
-		headers: { 'content-type': 'application/json', origin: baseUrl },
+		headers: { 'content-type': 'application/json', origin: baseUrl, ...headers },
 		body: JSON.stringify({ email, password })
 	});
 	const cookie = r.headers
@@ -57,7 +58,7 @@ export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo') {
 		?.split(';')[0];
 	const k = await fetch(`${baseUrl}/api/keys`, {
 		method: 'POST',
-		headers: { 'content-type': 'application/json', origin: baseUrl, cookie },
+		headers: { 'content-type': 'application/json', origin: baseUrl, cookie, ...headers },
 		body: JSON.stringify({ label: 'bench' })
 	});
 	const body = await k.json();

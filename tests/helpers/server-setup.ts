@@ -53,6 +53,10 @@ export default async function setup(project: TestProject) {
 		// line many times slower than usual); the one budget test uses a line that can never finish in any
 		// budget, so it only waits these seconds out.
 		BULKPAD_EVAL_BUDGET_MS: '20000',
+		// test-only evaluator hooks ('#test-hook allocate' / 'spin', src/lib/server/eval/child.ts) for tests/api/abuse.test.ts
+		BULKPAD_TEST_HOOKS: '1',
+		BULKPAD_DATASET_BYTES_PER_USER: '8000000',
+		BULKPAD_REPLAY_BUDGET_MS: '20000',
 		BODY_SIZE_LIMIT: String(1_000_000 + 65_536)
 	};
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts'], { env, encoding: 'utf8' });

@@ -1,74 +1,56 @@
 /**
- * Arithmetic through a separate, restricted mathjs instance, following mathjs's guidance for untrusted
- * expressions: keep a private reference to `evaluate`, then override `import`, `createUnit`, `reviver`,
- * `evaluate`, `parse`, `simplify`, `derivative` and `resolve` (and a few more entry points to the parser) with
- * functions that throw, and evaluate with a fresh `Map` scope. The shared default mathjs instance — which the
- * engine may use — is never touched.
+ * Arithmetic through the one formula sandbox (holo/formula.ts) that metric strings use too: the tree the
+ * language's parser built is printed as text, parsed again by mathjs, checked against the sandbox's
+ * allow-list and evaluated by its own walker over plain JS Math — mathjs never evaluates anything, so no
+ * line can change state another user's line would see.
  *
  * Defence in depth: the language's own parser already admits only numbers, names bound by us, step
- * references and a whitelist of functions; mathjs only ever sees text printed from that tree. The killable
- * worker with a time budget lives in the server (src/lib/server/eval).
+ * references and a whitelist of functions; the sandbox checks the same again on what mathjs parsed. The
+ * killable evaluation process with a time budget lives in the server (src/lib/server/eval).
  */
-import { all, create } from 'mathjs';
+import { compileFormula, evaluateFormula, FormulaError } from '../holo/formula';
 import type * as A from './ast';
 import { LangError } from './errors';
 import { getOwn } from './own';
 import { printMathjs, refIdentifier } from './printer';
 
-const math = create(all!, { number: 'number' });
-/** The private reference; after the import below, `math.evaluate` itself throws. */
-const limitedEvaluate = math.evaluate;
-
-const DISABLED = [
-	'import',
-	'createUnit',
-	'reviver',
-	'evaluate',
-	'parse',
-	'simplify',
-	'derivative',
-	'resolve',
-	'compile',
-	'parser',
-	'config'
-] as const;
-
-function disabled(name: string): () => never {
-	return () => {
-		throw new Error(`Function ${name} is disabled`);
-	};
-}
-math.import(Object.fromEntries(DISABLED.map((n) => [n, disabled(n)])), { override: true });
-
 /**
- * Evaluate raw text in the restricted instance with a fresh Map scope. Exported for the security tests;
- * the language itself goes through `evaluateExpr`.
+ * Evaluate raw text in the sandbox with a scope of numbers (strict: no complex results). Exported for the
+ * security tests; the language itself goes through `evaluateExpr`.
  */
-export function sandboxEvaluate(text: string, scope: Map<string, unknown> = new Map()): unknown {
-	return limitedEvaluate(text, scope);
+export function sandboxEvaluate(text: string, scope: Map<string, number> = new Map()): number {
+	return evaluateFormula(text, scope, { strict: true });
 }
 
 /** Resolves a name or step reference to a number, or throws a LangError pointing at it. */
 export type Resolver = (node: A.NameExpr | A.RefExpr) => number;
+
+const LANG_FORMULA_LIMITS = { maxDepth: 1000, maxNodes: 4000 };
 
 const BUILTIN_CONSTANTS: Record<string, number> = { pi: Math.PI, e: Math.E };
 
 /** Evaluate one arithmetic tree to a finite real number. Throws LangError spanning the expression. */
 export function evaluateExpr(expr: A.Expr, resolve: Resolver): number {
 	if (expr.type === 'number') return expr.value; // the common case needs no mathjs at all
-	const scope = new Map<string, unknown>();
+	const scope = new Map<string, number>();
 	bind(expr, resolve, scope);
-	let out: unknown;
+	let out: number;
 	try {
-		out = limitedEvaluate(printMathjs(expr), scope);
+		// printMathjs brackets every operation, so a long sum nests deeply; the parser's token limit bounds it
+		const formula = compileFormula(printMathjs(expr), [...scope.keys()], { strict: true, limits: LANG_FORMULA_LIMITS });
+		out = formula.evaluate([...scope.values()]);
 	} catch (e) {
+		if (e instanceof FormulaError && e.code === 'complex') throw new LangError('arithmetic gives a complex number', expr.start, expr.end);
 		throw new LangError(`cannot evaluate: ${e instanceof Error ? e.message : String(e)}`, expr.start, expr.end);
 	}
-	return toReal(out, expr);
+	if (!Number.isFinite(out)) {
+		throw new LangError('arithmetic gives no finite number', expr.start, expr.end, { hint: 'division by zero?' });
+	}
+	return out;
 }
 
 /** Binds every name and reference of the tree in the scope, so mathjs never falls back to its own symbols. */
-function bind(e: A.Expr, resolve: Resolver, scope: Map<string, unknown>): void {
+function bind(e: A.Expr, resolve: Resolver, scope: Map<string, number>): void {
 	switch (e.type) {
 		case 'number':
 			return;
@@ -92,19 +74,4 @@ function bind(e: A.Expr, resolve: Resolver, scope: Map<string, unknown>): void {
 			for (const a of e.args) bind(a, resolve, scope);
 			return;
 	}
-}
-
-function toReal(out: unknown, expr: A.Expr): number {
-	let v: number | undefined;
-	if (typeof out === 'number') v = out;
-	else if (math.isComplex(out)) {
-		const c = out as { re: number; im: number };
-		if (c.im === 0) v = c.re;
-		else throw new LangError('arithmetic gives a complex number', expr.start, expr.end);
-	} else if (math.isBigNumber(out) || math.isFraction(out)) v = math.number(out as never) as number;
-	if (v === undefined) throw new LangError('arithmetic must give a number', expr.start, expr.end);
-	if (!Number.isFinite(v)) {
-		throw new LangError('arithmetic gives no finite number', expr.start, expr.end, { hint: 'division by zero?' });
-	}
-	return v;
 }

@@ -2,9 +2,9 @@
  * Datasets: a member's own numbers (a CSV) kept per owner under a name the console can use,
  * `compare <name> …`. Only the owner ever sees one; any other id is the same 404.
  */
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql, sum } from 'drizzle-orm';
 import { z } from 'zod';
-import { getDb, schema } from './db';
+import { getDb, openDb, schema } from './db';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
 import { failure } from './http';
@@ -13,6 +13,16 @@ import { CsvProblem, parseNumericCsv } from './csv';
 import { DATASET_NAME, DATASET_NAME_MAX, formatBytes, nameFromFile } from '../library/format';
 
 export const DATASETS_PER_OWNER = 50;
+
+function bytesFrom(name: string, fallback: number): number {
+	const n = Number(process.env[name]);
+	return Number.isFinite(n) && n > 0 ? n : fallback;
+}
+/** Stored bytes (as uploaded) one member may keep, and the whole group together (this server is one group). */
+export const DATASET_QUOTA = {
+	perUser: bytesFrom('BULKPAD_DATASET_BYTES_PER_USER', 20_000_000),
+	perGroup: bytesFrom('BULKPAD_DATASET_BYTES_PER_GROUP', 500_000_000)
+};
 
 export const datasetNameSchema = z
 	.string()
@@ -30,8 +40,16 @@ function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes
 }
 export type DatasetSummary = ReturnType<typeof summary>;
 
+/** The owner's datasets without their rows: SQLite counts them, so listing never parses a megabyte of JSON. */
 export function listDatasets(owner: AppUser): DatasetSummary[] {
-	return getDb().select().from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).orderBy(desc(schema.datasets.createdAt)).all().map(summary);
+	const d = schema.datasets;
+	return getDb()
+		.select({ id: d.id, name: d.name, columns: d.columns, rows: sql<number>`json_array_length(${d.rows})`, bytes: d.bytes, createdAt: d.createdAt })
+		.from(d)
+		.where(eq(d.ownerId, owner.id))
+		.orderBy(desc(d.createdAt))
+		.all()
+		.map((r) => ({ ...r, columns: r.columns as string[] }));
 }
 
 function findOwn(owner: AppUser, id: string): DatasetRow {
@@ -77,9 +95,50 @@ export async function uploadDataset(owner: AppUser, file: File, requestedName: s
 		const mine = tx.select({ id: schema.datasets.id, name: schema.datasets.name }).from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).all();
 		if (mine.some((d) => d.name === name)) failure(409, `You have a dataset called '${name}' already: delete it first or give another name.`);
 		if (mine.length >= DATASETS_PER_OWNER) failure(409, `You have ${mine.length} datasets; delete one before uploading more.`);
+		const usedByMe = storedBytes(tx, owner.id);
+		if (usedByMe + file.size > DATASET_QUOTA.perUser) {
+			failure(413, `Your datasets use ${formatBytes(usedByMe)} of your ${formatBytes(DATASET_QUOTA.perUser)}; delete one before uploading ${formatBytes(file.size)} more.`, {
+				quota: DATASET_QUOTA.perUser,
+				used: usedByMe
+			});
+		}
+		const usedByAll = storedBytes(tx);
+		if (usedByAll + file.size > DATASET_QUOTA.perGroup) {
+			failure(413, `The group's datasets use ${formatBytes(usedByAll)} of ${formatBytes(DATASET_QUOTA.perGroup)}; ask an admin to make room.`, {
+				quota: DATASET_QUOTA.perGroup,
+				used: usedByAll
+			});
+		}
 		const row = { id: newId(), ownerId: owner.id, name, columns: table.columns, rows: table.rows, bytes: file.size, createdAt: new Date() };
 		tx.insert(schema.datasets).values(row).run();
 		return row;
 	});
 	return summary(row);
+}
+
+/** Sum of the stored sizes, of one owner or of everyone: counted from the rows already there (no schema change). */
+function storedBytes(tx: Pick<ReturnType<typeof getDb>, 'select'>, ownerId?: string): number {
+	const q = tx.select({ total: sum(schema.datasets.bytes) }).from(schema.datasets);
+	const row = (ownerId ? q.where(eq(schema.datasets.ownerId, ownerId)) : q).get();
+	return Number(row?.total ?? 0);
+}
+
+/** The owner's datasets by reference: name, id and size, no rows (an evaluation loads rows only by id). */
+export function datasetRefs(ownerId: string): { id: string; name: string; bytes: number }[] {
+	return getDb()
+		.select({ id: schema.datasets.id, name: schema.datasets.name, bytes: schema.datasets.bytes })
+		.from(schema.datasets)
+		.where(eq(schema.datasets.ownerId, ownerId))
+		.all();
+}
+
+/**
+ * Rows of some of one owner's datasets, for an evaluation process that does not hold them yet. The JSON text
+ * is handed over as stored and parsed in that process, so the request thread never parses or clones rows.
+ */
+export function datasetTexts(ownerId: string, ids: string[]): { id: string; columns: string; rows: string }[] {
+	if (!ids.length) return [];
+	return openDb()
+		.sqlite.prepare('select id, columns, rows from datasets where owner_id = ? and id in (select value from json_each(?))')
+		.all(ownerId, JSON.stringify(ids)) as { id: string; columns: string; rows: string }[];
 }

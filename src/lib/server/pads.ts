@@ -89,19 +89,13 @@ export function approvedMacros(): NonNullable<PadContext['macros']> {
 	);
 }
 
-export function ownerDatasets(ownerId: string): NonNullable<PadContext['datasets']> {
-	const rows = getDb().select().from(schema.datasets).where(eq(schema.datasets.ownerId, ownerId)).all();
-	return Object.fromEntries(rows.map((d) => [d.name, { columns: d.columns as string[], rows: d.rows as number[][] }]));
-}
-
 /**
- * The library pieces one line can reach: macros only through '@', datasets only through `compare` (or a
- * macro's body). Most lines use neither, so most evaluations read nothing but the pad.
+ * The library pieces one line can reach before it is queued: macros only through '@'. Datasets are not read
+ * here at all: eval/dispatch.ts names the few a line can reach and the evaluation process gets their rows
+ * once, by id.
  */
-export function lineLibrary(input: string, ownerId: string | null): Pick<PadContext, 'macros' | 'datasets'> {
-	const usesMacros = input.includes('@');
-	const usesDatasets = usesMacros || input.includes('compare');
-	return { macros: usesMacros ? approvedMacros() : {}, datasets: usesDatasets && ownerId ? ownerDatasets(ownerId) : {} };
+export function lineLibrary(input: string): Pick<PadContext, 'macros'> {
+	return { macros: input.includes('@') ? approvedMacros() : {} };
 }
 
 /** The references `#n` may read: every step that evaluated. */
@@ -123,7 +117,7 @@ export function padContext(pad: PadRow, input: string): PadContext {
 		units: pad.units as UnitsState,
 		lets: pad.lets as Record<string, LetValue>,
 		refs: stepRefs(refRows),
-		...lineLibrary(input, pad.ownerId)
+		...lineLibrary(input)
 	};
 }
 

@@ -1,33 +1,27 @@
 /**
- * One evaluation in a worker thread. Runs the language on a line and a plain-JSON pad context; never throws,
- * so the pool can tell a language error (the user's) from a crash (ours).
+ * One evaluation: runs the language on a line and a plain-JSON pad context. Never throws, so the pool can tell
+ * a language error (the user's) from a crash (ours). Runs inside an evaluation process (child.ts); a line that
+ * exhausts memory or time takes only that process down.
  */
-import type { MessagePort } from 'node:worker_threads';
 import { runLine, LangError } from '../../lang';
 import type { LineOutcome, PadContext } from '../../lang/result';
 
 export interface EvalTask {
 	input: string;
 	ctx: PadContext;
-	port?: MessagePort;
 }
+
+/**
+ * 'busy' (503) means the line never started because the queue was too long for too long; 'throttled' (429)
+ * means its author already has too many lines waiting. Neither is a verdict on the line itself.
+ */
+export type EvalErrorCode = 'language' | 'limit' | 'internal' | 'busy' | 'throttled';
 
 export type EvalAnswer =
 	| { ok: true; outcome: LineOutcome }
-	| { ok: false; error: { message: string; start: number; end: number; hint?: string; code: 'language' | 'limit' | 'internal' } };
+	| { ok: false; error: { message: string; start: number; end: number; hint?: string; code: EvalErrorCode; retryAfter?: number } };
 
-export default function evaluateTask({ input, ctx, port }: EvalTask): EvalAnswer {
-	// the time budget starts now, not while the task waited for a thread or a fresh thread booted
-	port?.postMessage({ started: true });
-	let last = 0;
-	const onProgress = port
-		? (done: number, total: number) => {
-				const now = Date.now();
-				if (now - last < 100 && done < total) return;
-				last = now;
-				port.postMessage({ done, total });
-			}
-		: undefined;
+export function evaluateTask({ input, ctx }: EvalTask, onProgress?: (done: number, total: number) => void): EvalAnswer {
 	try {
 		return { ok: true, outcome: runLine(input, ctx, { onProgress }) };
 	} catch (e) {
@@ -36,7 +30,5 @@ export default function evaluateTask({ input, ctx, port }: EvalTask): EvalAnswer
 		}
 		const message = e instanceof Error ? e.message : String(e);
 		return { ok: false, error: { message: `internal error: ${message}`, start: 0, end: input.length, code: 'internal' } };
-	} finally {
-		port?.close();
 	}
 }

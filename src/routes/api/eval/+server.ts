@@ -3,8 +3,8 @@ import { z } from 'zod';
 import { api, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad } from '$lib/server/pads';
-import { evaluateInPad, evaluateStateless, type EvalReply } from '$lib/server/eval/service';
-import type { EvalOptions } from '$lib/server/eval/pool';
+import { evaluateInPad, evaluateStateless, type EvalOptions, type EvalReply } from '$lib/server/eval/service';
+import { clientGone } from '$lib/server/eval/disconnect';
 
 const bodySchema = z.object({
 	input: z.string().max(100_000, 'input is far over the 2000-character limit'),
@@ -13,7 +13,9 @@ const bodySchema = z.object({
 
 /**
  * POST /api/eval. With `Accept: application/x-ndjson` the answer streams: `{"progress":{done,total}}` lines
- * while a sweep runs, then `{"reply":{status, body}}`; closing the request cancels the evaluation.
+ * while a sweep runs, then `{"reply":{status, body}}`. A client that hangs up cancels its line, waiting or
+ * running, in either form. A line refused by the queue answers 503 (busy) or 429 (too many waiting) with
+ * Retry-After.
  */
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
@@ -23,14 +25,20 @@ export const POST = api(async (event) => {
 	const run = (opts: EvalOptions): Promise<EvalReply> =>
 		padOf ? evaluateInPad(padOf, input, opts) : evaluateStateless(input, user.id, opts);
 
+	const gone = clientGone(event);
+	const signal = gone.signal;
 	if (!(event.request.headers.get('accept') ?? '').includes('application/x-ndjson')) {
-		const r = await run({});
-		return json(r.body, { status: r.status });
+		try {
+			const r = await run({ signal });
+			return json(r.body, { status: r.status, headers: r.headers });
+		} finally {
+			gone.done();
+		}
 	}
 
 	const encoder = new TextEncoder();
-	const signal = event.request.signal;
 	const stream = new ReadableStream<Uint8Array>({
+		cancel: () => gone.abort(),
 		async start(controller) {
 			const send = (o: unknown) => {
 				try {
@@ -39,7 +47,7 @@ export const POST = api(async (event) => {
 					/* the client went away */
 				}
 			};
-			const r = await run({ signal, onProgress: (progress) => send({ progress }) });
+			const r = await run({ signal, onProgress: (progress) => send({ progress }) }).finally(gone.done);
 			send({ reply: r });
 			try {
 				controller.close();
@@ -48,5 +56,6 @@ export const POST = api(async (event) => {
 			}
 		}
 	});
+	// the stream's own cancel (the browser dropping the response) cancels the line too
 	return new Response(stream, { headers: { 'content-type': 'application/x-ndjson', 'cache-control': 'no-store' } });
 });

@@ -2,13 +2,22 @@ import { api, ok } from '$lib/server/http';
 import { findSharedPad } from '$lib/server/transcripts';
 import { padSteps } from '$lib/server/pads';
 import { replayAnswer, takeReplay } from '$lib/server/replay';
+import { clientGone } from '$lib/server/eval/disconnect';
 
 /**
  * POST: re-evaluates every step now and marks drift; nothing is stored. Public, so it is limited per client
- * address before anything else runs (guessing slugs costs the same budget as replaying).
+ * address before anything else runs (guessing slugs costs the same budget as replaying), then per transcript;
+ * an unchanged transcript is answered from its last replay, and the run stops when its clients hang up.
  */
 export const POST = api(async (event) => {
-	takeReplay(event.getClientAddress());
+	const address = event.getClientAddress();
+	takeReplay(address);
 	const pad = findSharedPad(event.params.slug!);
-	return ok(await replayAnswer(pad, padSteps(pad.id)));
+	const gone = clientGone(event);
+	try {
+		const owner = event.locals.user ? event.locals.user.id : `replay:${address}`;
+		return ok(await replayAnswer(pad, padSteps(pad.id), { owner, signal: gone.signal, limitTranscript: !event.locals.user }));
+	} finally {
+		gone.done();
+	}
 });
