@@ -35,7 +35,14 @@ try {
 	await light(3); // warm the processes and the JIT
 	const idle = await light();
 	const load0 = loadavg()[0];
-	emit({ name: 'light, idle', p50_ms: idle.latency.p50, p99_ms: idle.latency.p99, rps: idle.requests.average, errors: idle.errors, non2xx: idle.non2xx });
+	emit({
+		name: 'light, idle',
+		p50_ms: idle.latency.p50,
+		p99_ms: idle.latency.p99,
+		rps: idle.requests.average,
+		errors: idle.errors,
+		non2xx: idle.non2xx
+	});
 
 	let stop = false;
 	const statuses = { heavy: {}, replay: {} };
@@ -78,10 +85,21 @@ try {
 	const load1 = loadavg()[0];
 	stop = true;
 	await Promise.all(background);
-	emit({ name: 'light, mixed', p50_ms: mixed.latency.p50, p99_ms: mixed.latency.p99, rps: mixed.requests.average, errors: mixed.errors, non2xx: mixed.non2xx, statuses });
+	emit({
+		name: 'light, mixed',
+		p50_ms: mixed.latency.p50,
+		p99_ms: mixed.latency.p99,
+		rps: mixed.requests.average,
+		errors: mixed.errors,
+		non2xx: mixed.non2xx,
+		statuses
+	});
 
 	const ratio = mixed.latency.p99 / Math.max(idle.latency.p99, 1);
-	const fmt = (o) => Object.entries(o).map(([s, n]) => `${n}× ${s}`).join(', ') || 'none';
+	const fmt = (o) =>
+		Object.entries(o)
+			.map(([s, n]) => `${n}× ${s}`)
+			.join(', ') || 'none';
 	writeSection(
 		'mixed',
 		`## Mixed load (\`npm run bench -- mixed\`)

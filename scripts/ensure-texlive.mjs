@@ -8,13 +8,18 @@ const found = () => spawnSync(PDFLATEX, ['--version'], { stdio: 'ignore' }).stat
 
 if (!found()) {
 	if (process.getuid?.() !== 0) {
-		console.error(`\n✗ ${PDFLATEX} is missing and this is not root: run "sudo apt-get install -y --no-install-recommends texlive-latex-base" and retry.\n`);
+		console.error(
+			`\n✗ ${PDFLATEX} is missing and this is not root: run "sudo apt-get install -y --no-install-recommends texlive-latex-base" and retry.\n`
+		);
 		process.exit(1);
 	}
 	console.log(`${PDFLATEX} is missing: installing Debian's texlive-latex-base (no recommends)…`);
 	const t0 = Date.now();
 	const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
-	for (const args of [['update', '-qq'], ['install', '-y', '-qq', '--no-install-recommends', 'texlive-latex-base']]) {
+	for (const args of [
+		['update', '-qq'],
+		['install', '-y', '-qq', '--no-install-recommends', 'texlive-latex-base']
+	]) {
 		const r = spawnSync('apt-get', args, { stdio: 'inherit', env });
 		if (r.status !== 0) {
 			console.error(`\n✗ apt-get ${args.join(' ')} failed (exit ${r.status}); the LaTeX export test cannot run.\n`);

@@ -13,7 +13,6 @@ import { createPad, finishStep, startStep, type PadRow } from '../src/lib/server
 import { runLine } from '../src/lib/lang/index';
 import type { PadContext, StepRef } from '../src/lib/lang/result';
 
-
 export const DEMO_PASSWORD = 'bulkpad-demo';
 /** every demo account's address ends so: the production start refuses to run while any exists */
 export const DEMO_DOMAIN = '@sable.test';
@@ -110,7 +109,12 @@ function demoDataset() {
 	const rows: number[][] = [];
 	for (let i = 0; i < 12; i++) {
 		const l = 0.1 + 0.1 * i;
-		const out = runLine(`darea l=${l.toFixed(2)} d=4 zh=1`, { bulk: { name: 'brane', params: { d: 4, zh: 1 } }, units: { system: 'geo', G: 1 }, refs: {}, lets: {} });
+		const out = runLine(`darea l=${l.toFixed(2)} d=4 zh=1`, {
+			bulk: { name: 'brane', params: { d: 4, zh: 1 } },
+			units: { system: 'geo', G: 1 },
+			refs: {},
+			lets: {}
+		});
 		const exact = out.ref.value ?? NaN;
 		rows.push([Number(l.toFixed(2)), exact * (1 + 2e-3 * Math.sin(7 * i))]);
 	}
@@ -131,7 +135,16 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
 	for (const m of library) {
 		const id = newId();
 		db.insert(schema.macros)
-			.values({ id, name: m.name, description: m.description, state: m.state, version: 1, params: m.params, body: [...m.body], authorId: ids['curator@sable.test'] })
+			.values({
+				id,
+				name: m.name,
+				description: m.description,
+				state: m.state,
+				version: 1,
+				params: m.params,
+				body: [...m.body],
+				authorId: ids['curator@sable.test']
+			})
 			.run();
 		db.insert(schema.macroVersions)
 			.values({ id: newId(), macroId: id, version: 1, params: m.params, body: [...m.body], editedBy: ids['curator@sable.test'] })
@@ -139,7 +152,14 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
 	}
 	const rows = demoDataset();
 	db.insert(schema.datasets)
-		.values({ id: newId(), ownerId: ids['tomas@sable.test'], name: 'lattice_d4', columns: ['l', 'darea'], rows, bytes: JSON.stringify(rows).length })
+		.values({
+			id: newId(),
+			ownerId: ids['tomas@sable.test'],
+			name: 'lattice_d4',
+			columns: ['l', 'darea'],
+			rows,
+			bytes: JSON.stringify(rows).length
+		})
 		.run();
 	for (const p of pads) {
 		const pad = createPad(ids[p.owner], p.title);
@@ -172,7 +192,11 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
 /** The production path: what is in the database, and whether it may be served. */
 export function checkProduction(keepDemo: boolean): { ok: boolean; message: string } {
 	const { db } = openDb();
-	const demo = db.select({ email: schema.users.email }).from(schema.users).where(like(schema.users.email, `%${DEMO_DOMAIN}`)).all();
+	const demo = db
+		.select({ email: schema.users.email })
+		.from(schema.users)
+		.where(like(schema.users.email, `%${DEMO_DOMAIN}`))
+		.all();
 	if (demo.length > 0 && !keepDemo) {
 		return {
 			ok: false,
@@ -184,7 +208,10 @@ export function checkProduction(keepDemo: boolean): { ok: boolean; message: stri
 	const admins = db.select({ n: count() }).from(schema.users).where(eq(schema.users.role, 'admin')).get()?.n ?? 0;
 	return {
 		ok: true,
-		message: admins > 0 ? 'production start: no demo data' : 'production start: no admin yet; make the first one with: npm run setup-admin -- --email you@example.org'
+		message:
+			admins > 0
+				? 'production start: no demo data'
+				: 'production start: no admin yet; make the first one with: npm run setup-admin -- --email you@example.org'
 	};
 }
 

@@ -79,7 +79,9 @@ describe('an evaluator that dies or runs away costs only its own line', () => {
 		expect(r.status).toBe(422);
 		// on a loaded machine the 2 s budget can end the allocation before the heap limit does; either way only
 		// that process died (tests/api/eval-pool.test.ts pins the out-of-memory path itself with a small heap)
-		expect(r.body.error.message).toMatch(/^evaluation stopped: (it ran out of memory \(\d+ MB\) or crashed|over the time budget of 2\.0 s)$/);
+		expect(r.body.error.message).toMatch(
+			/^evaluation stopped: (it ran out of memory \(\d+ MB\) or crashed|over the time budget of 2\.0 s)$/
+		);
 		await expectServerFine();
 		// again, so the replacement process is proven to be replaceable too
 		expect((await attacker.post('/api/eval', { input: '#test-hook allocate' })).status).toBe(422);
@@ -169,7 +171,11 @@ describe('replay limits', () => {
 
 	it('stops a replay at its total budget and reports the remaining steps as skipped', async () => {
 		const owner = await freshMember('long-replay');
-		const pad = await padWithSteps(owner, 'Long replay', Array.from({ length: 11 }, () => 'zstar l=0.5'));
+		const pad = await padWithSteps(
+			owner,
+			'Long replay',
+			Array.from({ length: 11 }, () => 'zstar l=0.5')
+		);
 		// eleven steps that each run to the 2 s line budget: past the test server's 20 s replay budget
 		sql("UPDATE steps SET input = '#test-hook spin' WHERE pad_id = ?", pad);
 		const r = await owner.post(`/api/pads/${pad}/replay`);
@@ -190,7 +196,10 @@ describe('datasets', () => {
 	/** about 0.9 MB: 18,000 rows of four numbers with many digits */
 	function bigCsv(seed: number): string {
 		const lines = ['l,darea,a,b'];
-		for (let i = 0; i < 18_000; i++) lines.push(`${(0.01 + i * 1e-5).toFixed(8)},${Math.sin(seed + i).toFixed(12)},${Math.cos(i).toFixed(12)},${(i * 1.000001).toFixed(6)}`);
+		for (let i = 0; i < 18_000; i++)
+			lines.push(
+				`${(0.01 + i * 1e-5).toFixed(8)},${Math.sin(seed + i).toFixed(12)},${Math.cos(i).toFixed(12)},${(i * 1.000001).toFixed(6)}`
+			);
 		return lines.join('\n') + '\n';
 	}
 	const upload = (c: Client, csv: string, name: string) => {

@@ -33,14 +33,22 @@ describe('sign-up', () => {
 		const statuses: number[] = [];
 		let last: Awaited<ReturnType<typeof from>> | undefined;
 		for (let i = 0; i < 60; i++) {
-			last = await from('203.0.113.10', '/api/auth/signup', { email: `burst-${stamp}-${i}@tests.test`, password: 'long enough pw', name: `Bot ${i}` });
+			last = await from('203.0.113.10', '/api/auth/signup', {
+				email: `burst-${stamp}-${i}@tests.test`,
+				password: 'long enough pw',
+				name: `Bot ${i}`
+			});
 			statuses.push(last.status);
 		}
 		expect(statuses.slice(0, 20).every((s) => s === 201)).toBe(true);
 		expect(statuses.slice(20).every((s) => s === 429)).toBe(true);
 		expectLimited(last!);
 		// another client behind the same proxy is not in that bucket
-		const other = await from('198.51.100.20', '/api/auth/signup', { email: `honest-${stamp}@tests.test`, password: 'long enough pw', name: 'Honest' });
+		const other = await from('198.51.100.20', '/api/auth/signup', {
+			email: `honest-${stamp}@tests.test`,
+			password: 'long enough pw',
+			name: 'Honest'
+		});
 		expect(other.status).toBe(201);
 	});
 

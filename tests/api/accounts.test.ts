@@ -28,7 +28,9 @@ async function outboxRow(to: string, kind: string, status: string) {
 	const deadline = Date.now() + 15_000;
 	for (;;) {
 		const r = await admin.get('/api/admin/outbox');
-		const row = r.body.messages.find((m: { to: string; kind: string; status: string }) => m.to === to && m.kind === kind && m.status === status);
+		const row = r.body.messages.find(
+			(m: { to: string; kind: string; status: string }) => m.to === to && m.kind === kind && m.status === status
+		);
 		if (row) return row;
 		if (Date.now() > deadline) throw new Error(`no ${status} ${kind} message to ${to} in the outbox`);
 		await new Promise((ok) => setTimeout(ok, 150));
@@ -217,7 +219,13 @@ describe('sessions', () => {
 		const a = await signUpConfirmed(email, PASSWORD, 'Two Browsers');
 		const b = new Client();
 		await b.request('POST', '/api/auth/signin', { email, password: PASSWORD }, { 'user-agent': 'SecondBrowser/1.0' });
-		const list = (await a.get('/api/auth/sessions')).body.sessions as { id: string; current: boolean; userAgent: string; createdAt: string; expiresAt: string }[];
+		const list = (await a.get('/api/auth/sessions')).body.sessions as {
+			id: string;
+			current: boolean;
+			userAgent: string;
+			createdAt: string;
+			expiresAt: string;
+		}[];
 		expect(list).toHaveLength(2);
 		expect(list.filter((s) => s.current)).toHaveLength(1);
 		const theirs = list.find((s) => !s.current)!;
@@ -261,7 +269,11 @@ describe('sign-up policy', () => {
 
 	it('invitation only: a sign-up without an invitation link is refused, one with it is let in', async () => {
 		expect((await admin.patch('/api/admin/settings', { signup: { mode: 'invite', domains: [] } })).body.signup.mode).toBe('invite');
-		const refused = await new Client().post('/api/auth/signup', { email: `closed-${Date.now()}@tests.test`, password: PASSWORD, name: 'Outsider' });
+		const refused = await new Client().post('/api/auth/signup', {
+			email: `closed-${Date.now()}@tests.test`,
+			password: PASSWORD,
+			name: 'Outsider'
+		});
 		expect(expectFailure(refused, 403)).toMatch(/invitation only/);
 		expect((await new Client().get('/signup')).body).toContain('by invitation only');
 
@@ -274,19 +286,38 @@ describe('sign-up policy', () => {
 		expect((await joined.get('/api/auth/me')).body.user.role).toBe('reader');
 		expect((await joined.get(`/api/pads/${pad}`)).status).toBe(200);
 		// a spent link makes no second account
-		expectFailure(await new Client().post('/api/auth/signup', { email: `again-${Date.now()}@tests.test`, password: PASSWORD, name: 'Copycat', invite: token }), 404);
+		expectFailure(
+			await new Client().post('/api/auth/signup', {
+				email: `again-${Date.now()}@tests.test`,
+				password: PASSWORD,
+				name: 'Copycat',
+				invite: token
+			}),
+			404
+		);
 	});
 
 	it('listed domains: an address in them may sign up, any other is refused', async () => {
 		const set = await admin.patch('/api/admin/settings', { signup: { mode: 'domains', domains: ['@Physics.Example.edu', 'uni.example'] } });
 		expect(set.body.signup).toEqual({ mode: 'domains', domains: ['physics.example.edu', 'uni.example'] });
-		const inside = await new Client().post('/api/auth/signup', { email: `in-${Date.now()}@physics.example.edu`, password: PASSWORD, name: 'Insider' });
+		const inside = await new Client().post('/api/auth/signup', {
+			email: `in-${Date.now()}@physics.example.edu`,
+			password: PASSWORD,
+			name: 'Insider'
+		});
 		expect(inside.status, JSON.stringify(inside.body)).toBe(201);
 		expect(inside.body.user.role).toBe('member');
-		const outside = await new Client().post('/api/auth/signup', { email: `out-${Date.now()}@elsewhere.example`, password: PASSWORD, name: 'Outsider' });
+		const outside = await new Client().post('/api/auth/signup', {
+			email: `out-${Date.now()}@elsewhere.example`,
+			password: PASSWORD,
+			name: 'Outsider'
+		});
 		expect(expectFailure(outside, 403)).toMatch(/physics\.example\.edu, uni\.example/);
 		// a look-alike domain is not the listed one
-		expectFailure(await new Client().post('/api/auth/signup', { email: `x-${Date.now()}@evilphysics.example.edu`, password: PASSWORD, name: 'X' }), 403);
+		expectFailure(
+			await new Client().post('/api/auth/signup', { email: `x-${Date.now()}@evilphysics.example.edu`, password: PASSWORD, name: 'X' }),
+			403
+		);
 	});
 
 	it('the admin page shows the policy controls', async () => {

@@ -66,9 +66,15 @@ describe('upload, read back, delete', () => {
 		const name = `mine_${tag()}`;
 		const r = await upload(member, csv, 'numbers.csv', 'text/csv', name);
 		expect(r.status, JSON.stringify(r.body)).toBe(201);
-		expect(r.body).toMatchObject({ ok: true, dataset: { name, columns: ['l', 'darea'], rows: rows.length, bytes: new TextEncoder().encode(csv).length } });
+		expect(r.body).toMatchObject({
+			ok: true,
+			dataset: { name, columns: ['l', 'darea'], rows: rows.length, bytes: new TextEncoder().encode(csv).length }
+		});
 		const id = r.body.dataset.id;
-		expect((await member.get('/api/datasets')).body.datasets.find((d: { id: string }) => d.id === id)).toMatchObject({ name, rows: rows.length });
+		expect((await member.get('/api/datasets')).body.datasets.find((d: { id: string }) => d.id === id)).toMatchObject({
+			name,
+			rows: rows.length
+		});
 		const one = await member.get(`/api/datasets/${id}`);
 		expect(one.body.dataset.columns).toEqual(['l', 'darea']);
 		expect(one.body.dataset.rows).toEqual(rows);
@@ -150,7 +156,13 @@ describe('limits', () => {
 	});
 
 	it('refuses more columns or rows than allowed', async () => {
-		const wide = Array.from({ length: limits.columns + 1 }, (_, i) => `c${i}`).join(',') + '\n' + Array(limits.columns + 1).fill('1').join(',') + '\n';
+		const wide =
+			Array.from({ length: limits.columns + 1 }, (_, i) => `c${i}`).join(',') +
+			'\n' +
+			Array(limits.columns + 1)
+				.fill('1')
+				.join(',') +
+			'\n';
 		expect(expectFailure(await upload(member, wide, 'wide.csv'), 400)).toMatch(/columns/);
 		const long = 'l\n' + '1\n'.repeat(limits.rows + 1);
 		expect(expectFailure(await upload(member, long, 'long.csv'), 400)).toMatch(/rows/);
@@ -199,7 +211,9 @@ describe('compare in the console', () => {
 		expect(engine, JSON.stringify(t.columns)).toBeGreaterThan(0);
 		t.rows.forEach((row: number[], i: number) => {
 			expect(row[data]).toBe(values[i]);
-			expect(Math.abs(row[engine] - values[i]), `l=${ls[i]}: engine ${row[engine]}, dataset ${values[i]}`).toBeLessThan(1e-9 * Math.abs(values[i]) + 1e-12);
+			expect(Math.abs(row[engine] - values[i]), `l=${ls[i]}: engine ${row[engine]}, dataset ${values[i]}`).toBeLessThan(
+				1e-9 * Math.abs(values[i]) + 1e-12
+			);
 		});
 	});
 });

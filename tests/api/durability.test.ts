@@ -53,7 +53,13 @@ const line = (k: number) => `${k} + 0.25`;
  * Writes steps to the pads from `pads.length` concurrent clients until `until()` says stop or the server
  * stops answering; returns the acknowledged ones. `onAck` runs after each acknowledgement.
  */
-async function writeSteps(client: Client, pads: string[], next: () => number, until: (acks: Ack[]) => boolean, onAck: (acks: Ack[]) => void = () => {}) {
+async function writeSteps(
+	client: Client,
+	pads: string[],
+	next: () => number,
+	until: (acks: Ack[]) => boolean,
+	onAck: (acks: Ack[]) => void = () => {}
+) {
 	const acks: Ack[] = [];
 	await Promise.all(
 		pads.map(async (pad) => {
@@ -79,7 +85,14 @@ function inspect(file: string) {
 	const db = new Database(file);
 	try {
 		const integrity = db.pragma('integrity_check', { simple: true });
-		const steps = db.prepare('SELECT id, pad_id AS pad, n, input, status, results FROM steps').all() as { id: string; pad: string; n: number; input: string; status: string; results: string | null }[];
+		const steps = db.prepare('SELECT id, pad_id AS pad, n, input, status, results FROM steps').all() as {
+			id: string;
+			pad: string;
+			n: number;
+			input: string;
+			status: string;
+			results: string | null;
+		}[];
 		return { integrity, steps: new Map(steps.map((s) => [s.id, s])) };
 	} finally {
 		db.close();
@@ -109,9 +122,15 @@ describe('SIGKILL during a stream of 200 acknowledged writes', () => {
 			pads.push(r.body.pad.id);
 		}
 		// kill with writes in flight: the 100th acknowledgement pulls the plug while three more are running
-		const before = await writeSteps(first.client, pads, () => k++, () => false, (acks) => {
-			if (acks.length === 100) first.server.child.kill('SIGKILL');
-		});
+		const before = await writeSteps(
+			first.client,
+			pads,
+			() => k++,
+			() => false,
+			(acks) => {
+				if (acks.length === 100) first.server.child.kill('SIGKILL');
+			}
+		);
 		await first.server.stop('SIGKILL');
 		expect(first.server.child.signalCode).toBe('SIGKILL');
 		expect(before.length).toBeGreaterThanOrEqual(100);
@@ -121,7 +140,12 @@ describe('SIGKILL during a stream of 200 acknowledged writes', () => {
 
 		// restart on the same file and finish the stream: 200 acknowledged in all
 		const second = await serverOn(file);
-		const after = await writeSteps(second.client, pads, () => k++, (acks) => before.length + acks.length >= 200);
+		const after = await writeSteps(
+			second.client,
+			pads,
+			() => k++,
+			(acks) => before.length + acks.length >= 200
+		);
 		const all = [...before, ...after];
 		expect(all.length).toBeGreaterThanOrEqual(200);
 		// the restarted server sees them all too, numbered without gaps or repeats per pad
@@ -150,7 +174,12 @@ describe('SIGKILL during a stream of 200 acknowledged writes', () => {
 		// synchronous is per connection: read it from a connection made by the server's own openDb
 		const r = spawnSync(
 			process.execPath,
-			['--import', 'tsx', '-e', "import('./src/lib/server/db/index.ts').then(({ openDb }) => { const { sqlite } = openDb(); console.log(JSON.stringify([sqlite.pragma('journal_mode', { simple: true }), sqlite.pragma('synchronous', { simple: true })])); })"],
+			[
+				'--import',
+				'tsx',
+				'-e',
+				"import('./src/lib/server/db/index.ts').then(({ openDb }) => { const { sqlite } = openDb(); console.log(JSON.stringify([sqlite.pragma('journal_mode', { simple: true }), sqlite.pragma('synchronous', { simple: true })])); })"
+			],
 			{ env: { ...process.env, DATABASE_URL: file }, encoding: 'utf8' }
 		);
 		expect(r.status, r.stderr).toBe(0);
@@ -160,7 +189,10 @@ describe('SIGKILL during a stream of 200 acknowledged writes', () => {
 
 describe('online backup and restore', () => {
 	const run = (script: 'backup' | 'restore', arg: string, db: string) =>
-		spawnSync(process.execPath, ['--import', 'tsx', `scripts/${script}.ts`, arg], { env: { ...process.env, DATABASE_URL: db }, encoding: 'utf8' });
+		spawnSync(process.execPath, ['--import', 'tsx', `scripts/${script}.ts`, arg], {
+			env: { ...process.env, DATABASE_URL: db },
+			encoding: 'utf8'
+		});
 
 	it('backs up while the server writes, refuses to restore under it, restores once it stops', { timeout: 600_000 }, async () => {
 		const file = join(dir, 'live.db');
@@ -168,29 +200,49 @@ describe('online backup and restore', () => {
 		const { server, client } = await serverOn(file);
 		const pad = (await client.post('/api/pads', { title: 'backed up' })).body.pad.id as string;
 		let k = 0;
-		const early = await writeSteps(client, [pad], () => k++, (acks) => acks.length >= 20);
+		const early = await writeSteps(
+			client,
+			[pad],
+			() => k++,
+			(acks) => acks.length >= 20
+		);
 
 		// the backup runs in its own process while a client keeps writing
 		let backingUp = true;
-		const during = writeSteps(client, [pad], () => k++, () => !backingUp);
+		const during = writeSteps(
+			client,
+			[pad],
+			() => k++,
+			() => !backingUp
+		);
 		const backup = join(dir, 'backup.db');
 		const made = await new Promise<{ code: number | null; stdout: string; stderr: string }>((resolve) => {
 			const env = { ...process.env, DATABASE_URL: file };
-			const child = execFile(process.execPath, ['--import', 'tsx', 'scripts/backup.ts', backup], { env }, (_e, stdout, stderr) => resolve({ code: child.exitCode, stdout, stderr }));
+			const child = execFile(process.execPath, ['--import', 'tsx', 'scripts/backup.ts', backup], { env }, (_e, stdout, stderr) =>
+				resolve({ code: child.exitCode, stdout, stderr })
+			);
 		});
 		backingUp = false;
 		const duringAcks = await during;
 		expect(made.code, made.stderr).toBe(0);
 		expect(made.stdout).toMatch(/integrity_check ok/);
 		expect(duringAcks.length, 'writes acknowledged while the backup ran').toBeGreaterThan(0);
-		const late = await writeSteps(client, [pad], () => k++, (acks) => acks.length >= 5);
+		const late = await writeSteps(
+			client,
+			[pad],
+			() => k++,
+			(acks) => acks.length >= 5
+		);
 
 		const inBackup = inspect(backup);
 		expect(inBackup.integrity).toBe('ok');
 		expectAllPresent(early, inBackup.steps);
 		expect(late.filter((a) => inBackup.steps.has(a.id))).toEqual([]);
 		// the steps written while it ran are a prefix: the copy is one consistent moment
-		const ns = [...inBackup.steps.values()].filter((s) => s.pad === pad).map((s) => s.n).sort((a, b) => a - b);
+		const ns = [...inBackup.steps.values()]
+			.filter((s) => s.pad === pad)
+			.map((s) => s.n)
+			.sort((a, b) => a - b);
 		expect(ns).toEqual(ns.map((_, i) => i + 1));
 		expect(ns.length).toBeLessThanOrEqual(early.length + duringAcks.length);
 

@@ -7,7 +7,14 @@ import { createEvalQueue } from '../../src/lib/server/eval/queue';
 import type { PadContext } from '../../src/lib/lang/result';
 
 const ctx: PadContext = { bulk: { name: 'brane', params: { d: 4, zh: 1 } }, units: { system: 'geo', G: 1 }, refs: {}, lets: {} };
-const job = (input: string, extra: Partial<PoolJob> = {}): PoolJob => ({ input, ctx, datasets: [], otherDatasets: [], budgetMs: 60_000, ...extra });
+const job = (input: string, extra: Partial<PoolJob> = {}): PoolJob => ({
+	input,
+	ctx,
+	datasets: [],
+	otherDatasets: [],
+	budgetMs: 60_000,
+	...extra
+});
 
 let pool: ProcessPool;
 
@@ -42,7 +49,10 @@ describe('evaluation processes', () => {
 		const other = await runWhenFree(job('zstar l=0.5'));
 		expect(other.answer.ok).toBe(true);
 		const r = await dying;
-		expect(r.answer).toMatchObject({ ok: false, error: { message: 'evaluation stopped: it ran out of memory (96 MB) or crashed', code: 'limit' } });
+		expect(r.answer).toMatchObject({
+			ok: false,
+			error: { message: 'evaluation stopped: it ran out of memory (96 MB) or crashed', code: 'limit' }
+		});
 		await until(() => pool.readyCount() === 2);
 		expect((await runWhenFree(job('zstar l=0.5'))).answer.ok).toBe(true);
 	});
@@ -66,8 +76,12 @@ describe('evaluation processes', () => {
 		const q = createEvalQueue(pool, { budgetMs: 60_000, queueWaitMs: 300, pendingPerOwner: 10 });
 		const spinners = [0, 1].map(() => q.enqueue(job('#test-hook spin'), `spinner`, 'light', { budgetMs: 3000 }));
 		const waiting = await q.enqueue(job('zstar l=0.5'), 'someone', 'light');
-		expect(waiting.answer).toMatchObject({ ok: false, error: { code: 'busy', message: 'evaluation not started: queued behind 2 lines for 0 s; try again shortly' } });
+		expect(waiting.answer).toMatchObject({
+			ok: false,
+			error: { code: 'busy', message: 'evaluation not started: queued behind 2 lines for 0 s; try again shortly' }
+		});
 		expect(waiting.runMs).toBe(0);
-		for (const s of await Promise.all(spinners)) expect(s.answer).toMatchObject({ ok: false, error: { message: 'evaluation stopped: over the time budget of 3.0 s' } });
+		for (const s of await Promise.all(spinners))
+			expect(s.answer).toMatchObject({ ok: false, error: { message: 'evaluation stopped: over the time budget of 3.0 s' } });
 	});
 });

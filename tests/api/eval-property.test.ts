@@ -17,7 +17,18 @@ const VALID = [
 	'let w = zstar l=0.2; w * 2',
 	'units sym N=3; thermo'
 ];
-const PIECES = [...'abdelorstuvz0123456789.,;:=|#@"()+-*/^ _', '..', 'exact', 'l=', 'o=', 'use ', '1e308', '-0', '__proto__', 'constructor'];
+const PIECES = [
+	...'abdelorstuvz0123456789.,;:=|#@"()+-*/^ _',
+	'..',
+	'exact',
+	'l=',
+	'o=',
+	'use ',
+	'1e308',
+	'-0',
+	'__proto__',
+	'constructor'
+];
 
 const mutated = fc
 	.tuple(fc.constantFrom(...VALID), fc.array(fc.tuple(fc.nat(), fc.constantFrom(...PIECES), fc.boolean()), { minLength: 1, maxLength: 3 }))
@@ -51,11 +62,17 @@ async function answersSanely(input: string, pad?: string) {
 
 describe('POST /api/eval under random input (fast-check)', () => {
 	it('answers mutated valid lines with 200, 400 or 422', async () => {
-		await fc.assert(fc.asyncProperty(mutated, (s) => answersSanely(s)), { numRuns: 60, seed: 20261202 });
+		await fc.assert(
+			fc.asyncProperty(mutated, (s) => answersSanely(s)),
+			{ numRuns: 60, seed: 20261202 }
+		);
 	});
 
 	it('answers random strings, also inside a pad, with 200, 400 or 422', async () => {
-		await fc.assert(fc.asyncProperty(fc.string({ maxLength: 60 }), (s) => answersSanely(s, padId)), { numRuns: 40, seed: 7 });
+		await fc.assert(
+			fc.asyncProperty(fc.string({ maxLength: 60 }), (s) => answersSanely(s, padId)),
+			{ numRuns: 40, seed: 7 }
+		);
 		expect((await client.get('/api/health')).status).toBe(200);
 	});
 });

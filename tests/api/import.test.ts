@@ -11,7 +11,13 @@ let doc: any;
 
 beforeAll(async () => {
 	member = await freshMember('import');
-	const id = await padWithSteps(member, 'Import source', ['use boosted d=4 zh=1 v=0.6', 'darea l=0.4 o=1,2,exact', 'units geo G=2', 'let w = width zstar=0.5', 'thermo']);
+	const id = await padWithSteps(member, 'Import source', [
+		'use boosted d=4 zh=1 v=0.6',
+		'darea l=0.4 o=1,2,exact',
+		'units geo G=2',
+		'let w = width zstar=0.5',
+		'thermo'
+	]);
 	doc = (await member.get(`/api/pads/${id}/export?format=json`)).body;
 	expect(doc.format).toBe('bulkpad-pad');
 });
@@ -47,7 +53,9 @@ describe('import checks what it stores', () => {
 
 	it('refuses an unknown bulk in a step, naming the step', async () => {
 		const steps = doc.steps.map((s: any, i: number) => (i === 2 ? { ...s, bulkBefore: { name: 'wormhole', params: {} } } : s));
-		expect(expectFailure(await member.post('/api/pads/import', { ...doc, steps }), 400)).toMatch(/step 3, steps\.2\.bulkBefore\.name: unknown bulk 'wormhole'/);
+		expect(expectFailure(await member.post('/api/pads/import', { ...doc, steps }), 400)).toMatch(
+			/step 3, steps\.2\.bulkBefore\.name: unknown bulk 'wormhole'/
+		);
 	});
 
 	it('refuses parameters, units and results the language could not have produced', async () => {
@@ -56,8 +64,17 @@ describe('import checks what it stores', () => {
 			[{ ...doc, bulk: { name: 'brane', params: { d: 4, zh: 1, f: '1-z^4' } } }, /key 'f' does not apply to bulk 'brane'/],
 			[{ ...doc, units: { system: 'cft', c: -3 } }, /units\.c: c must be > 0/],
 			[{ ...doc, units: { system: 'planck', G: 1 } }, /units\.system/],
-			[{ ...doc, steps: doc.steps.map((s: any, i: number) => (i === 1 ? { ...s, results: [{ ...s.results[0], rows: 'lots' }] } : s)) }, /step 2, steps\.1\.results\.0\.rows/],
-			[{ ...doc, steps: doc.steps.map((s: any, i: number) => (i === 4 ? { ...s, results: [{ ...s.results[0], fields: { T: 'hot' } }] } : s)) }, /step 5, steps\.4\.results\.0\.fields\.T/]
+			[
+				{ ...doc, steps: doc.steps.map((s: any, i: number) => (i === 1 ? { ...s, results: [{ ...s.results[0], rows: 'lots' }] } : s)) },
+				/step 2, steps\.1\.results\.0\.rows/
+			],
+			[
+				{
+					...doc,
+					steps: doc.steps.map((s: any, i: number) => (i === 4 ? { ...s, results: [{ ...s.results[0], fields: { T: 'hot' } }] } : s))
+				},
+				/step 5, steps\.4\.results\.0\.fields\.T/
+			]
 		];
 		for (const [body, message] of cases) expect(expectFailure(await member.post('/api/pads/import', body), 400)).toMatch(message);
 		// nothing half-imported: the member's pads are the ones made above
@@ -80,7 +97,11 @@ describe('a pad whose stored bulk is unknown', () => {
 		expect(r.body.error).toMatchObject({ message: "this pad's bulk 'wormhole' is not one Bulkpad knows", start: 0, end: 11 });
 		expect(r.body.error.hint).toMatch(/use <bulk>/);
 		const steps = (await member.get(`/api/pads/${padId}`)).body.steps;
-		expect(steps.at(-1)).toMatchObject({ n: 2, status: 'error', error: { message: "this pad's bulk 'wormhole' is not one Bulkpad knows" } });
+		expect(steps.at(-1)).toMatchObject({
+			n: 2,
+			status: 'error',
+			error: { message: "this pad's bulk 'wormhole' is not one Bulkpad knows" }
+		});
 	});
 
 	it('still shows the pad page and its data', async () => {

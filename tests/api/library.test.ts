@@ -73,7 +73,9 @@ describe('who may do what', () => {
 	it('answers each macro in the documented shape', async () => {
 		const r = await reader.get('/api/macros?state=approved');
 		for (const m of r.body.macros) {
-			expect(Object.keys(m)).toEqual(expect.arrayContaining(['id', 'name', 'description', 'state', 'version', 'params', 'body', 'author', 'updatedAt']));
+			expect(Object.keys(m)).toEqual(
+				expect.arrayContaining(['id', 'name', 'description', 'state', 'version', 'params', 'body', 'author', 'updatedAt'])
+			);
 			expect(typeof m.author.name).toBe('string');
 			expect(Array.isArray(m.body)).toBe(true);
 		}
@@ -147,7 +149,10 @@ describe('body and name checks', () => {
 		// `v={v}` parses only because the default is a number; a default that breaks the line is caught
 		const okay = await author.post('/api/macros', proposal(unique('ph'), { params: { v: '0.5' }, body: ['use boosted d=4 zh=1 v={v}'] }));
 		expect(okay.status, JSON.stringify(okay.body)).toBe(201);
-		const broken = await author.post('/api/macros', proposal(unique('ph'), { params: { v: '0.5 =' }, body: ['use boosted d=4 zh=1 v={v}'] }));
+		const broken = await author.post(
+			'/api/macros',
+			proposal(unique('ph'), { params: { v: '0.5 =' }, body: ['use boosted d=4 zh=1 v={v}'] })
+		);
 		expectFailure(broken, 400);
 		expect(broken.body.error.line).toBe(1);
 	});
@@ -165,7 +170,10 @@ describe('body and name checks', () => {
 		const r = await author.post('/api/macros', proposal(unique('n'), { body: ['thermo', long] }));
 		expectFailure(r, 400);
 		expect(r.body.error.line).toBe(2);
-		const twenty = await author.post('/api/macros', proposal(unique('n'), { params: {}, body: Array.from({ length: 20 }, () => 'thermo') }));
+		const twenty = await author.post(
+			'/api/macros',
+			proposal(unique('n'), { params: {}, body: Array.from({ length: 20 }, () => 'thermo') })
+		);
 		expect(twenty.status, JSON.stringify(twenty.body)).toBe(201);
 	});
 
@@ -193,7 +201,8 @@ describe('macros in the console', () => {
 		const s = lastScalar(r.body.results);
 		expect(s, JSON.stringify(r.body.results)).toBeDefined();
 		// BTZ (zh=1, β = 2π): ΔS = (c/3) ln( sinh(l/2) / (l/2) )
-		const l = 2, c = 12;
+		const l = 2,
+			c = 12;
 		const expected = (c / 3) * Math.log(Math.sinh(l / 2) / (l / 2));
 		expect(Math.abs(s.value - expected), `got ${s.value}, expected ${expected}`).toBeLessThan(1e-6 * Math.abs(expected));
 		// and it is exactly its body with the keys put in

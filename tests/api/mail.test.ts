@@ -125,7 +125,9 @@ describe('password reset', () => {
 		expect(sql('SELECT * FROM password_resets WHERE token_hash = ?', createHash('sha256').update(token).digest('hex'))).toHaveLength(1);
 
 		// the admin outbox says a reset link went out, to whom and when, but not the link
-		const outbox = (await admin.get('/api/admin/outbox')).body.messages.find((m: { to: string; kind: string }) => m.to === email && m.kind === 'reset');
+		const outbox = (await admin.get('/api/admin/outbox')).body.messages.find(
+			(m: { to: string; kind: string }) => m.to === email && m.kind === 'reset'
+		);
 		expect(outbox).toMatchObject({ status: 'sent', subject: 'Set a new Bulkpad password' });
 		expect(outbox.text).not.toContain(token);
 
@@ -142,7 +144,9 @@ describe('password reset', () => {
 		expect((await again.post('/api/auth/signin', { email, password: 'a brand new secret' })).status).toBe(200);
 		expect((await again.get('/api/auth/me')).body.user.email).toBe(email);
 
-		expect(expectFailure(await new Client().post('/api/auth/reset/confirm', { token, password: 'yet another secret' }), 400)).toMatch(/invalid, used or expired/);
+		expect(expectFailure(await new Client().post('/api/auth/reset/confirm', { token, password: 'yet another secret' }), 400)).toMatch(
+			/invalid, used or expired/
+		);
 		expect((await new Client().get(`/reset/${token}`)).body).not.toContain('name="password"');
 	});
 
@@ -170,7 +174,11 @@ describe('password reset', () => {
 		const second = tokenOf((await waitForMail(email, (m) => isReset(m) && !m.text.includes(first))).text);
 		expect(second).not.toBe(first);
 
-		sql('UPDATE password_resets SET expires_at = ? WHERE token_hash = ?', Date.now() - 1000, createHash('sha256').update(second).digest('hex'));
+		sql(
+			'UPDATE password_resets SET expires_at = ? WHERE token_hash = ?',
+			Date.now() - 1000,
+			createHash('sha256').update(second).digest('hex')
+		);
 		expectFailure(await new Client().post('/api/auth/reset/confirm', { token: second, password: 'never gets set' }), 400);
 		// using a token clears every token of the account, so the first link died with the expired one
 		expectFailure(await new Client().post('/api/auth/reset/confirm', { token: first, password: 'never gets set' }), 400);

@@ -171,9 +171,9 @@ describe('export', () => {
 		const dir = mkdtempSync(join(tmpdir(), 'bulkpad-tex-'));
 		writeFileSync(join(dir, 'pad.tex'), tex);
 		// asynchronously: a blocked event loop would leave the client's keep-alive socket stale
-		const run = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'pad.tex'], { cwd: dir }).catch(
-			(e: { stdout?: string }) => ({ stdout: e.stdout ?? '', failed: true })
-		);
+		const run = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'pad.tex'], {
+			cwd: dir
+		}).catch((e: { stdout?: string }) => ({ stdout: e.stdout ?? '', failed: true }));
 		expect('failed' in run, run.stdout.slice(-2000)).toBe(false);
 		expect(run.stdout).toMatch(/Output written on pad\.pdf/);
 	});
@@ -183,7 +183,13 @@ describe('export', () => {
 		expect(r.status).toBe(200);
 		expect(r.headers.get('content-disposition')).toBe('attachment; filename="strip-checks.json"');
 		const doc = r.body;
-		expect(doc).toMatchObject({ format: 'bulkpad-pad', version: 1, title: 'Strip checks', bulk: { name: 'brane', params: { d: 3, zh: 1 } }, units: { system: 'geo', G: 1 } });
+		expect(doc).toMatchObject({
+			format: 'bulkpad-pad',
+			version: 1,
+			title: 'Strip checks',
+			bulk: { name: 'brane', params: { d: 3, zh: 1 } },
+			units: { system: 'geo', G: 1 }
+		});
 		expect(doc.steps.map((s: object) => pick(s))).toEqual(steps.map((s) => pick(s)));
 	});
 
@@ -245,7 +251,13 @@ describe('import', () => {
 	});
 
 	it('takes a file just under 1 MB and refuses one over it', async () => {
-		const step = (n: number) => ({ n, input: `darea l=0.3 o=2 // ${'x'.repeat(900)}`, status: 'error', results: null, error: { message: 'kept' } });
+		const step = (n: number) => ({
+			n,
+			input: `darea l=0.3 o=2 // ${'x'.repeat(900)}`,
+			status: 'error',
+			results: null,
+			error: { message: 'kept' }
+		});
 		const near = { ...doc, title: 'Big', steps: Array.from({ length: 1000 }, (_, i) => step(i + 1)) };
 		const nearBytes = Buffer.byteLength(JSON.stringify(near));
 		expect(nearBytes).toBeGreaterThan(900_000);
@@ -254,7 +266,11 @@ describe('import', () => {
 		expect(ok.status, JSON.stringify(ok.body).slice(0, 300)).toBe(201);
 		expect(ok.body.steps).toBe(1000);
 
-		const over = { ...near, title: 'x'.repeat(150), lets: { pad: { fields: Object.fromEntries(Array.from({ length: 3000 }, (_, i) => [`k${i}`, i])) } } };
+		const over = {
+			...near,
+			title: 'x'.repeat(150),
+			lets: { pad: { fields: Object.fromEntries(Array.from({ length: 3000 }, (_, i) => [`k${i}`, i])) } }
+		};
 		expect(Buffer.byteLength(JSON.stringify(over))).toBeGreaterThan(1_000_000);
 		expect(expectFailure(await other.post('/api/pads/import', over), 413)).toMatch(/1 MB/);
 	});

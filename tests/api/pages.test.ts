@@ -18,7 +18,9 @@ function pageRoutes(dir = ROUTES): string[] {
 	return [...here, ...below];
 }
 function routeOf(dir: string): string {
-	const parts = relative(ROUTES, dir).split(sep).filter((p) => p && !/^\(.*\)$/.test(p));
+	const parts = relative(ROUTES, dir)
+		.split(sep)
+		.filter((p) => p && !/^\(.*\)$/.test(p));
 	return '/' + parts.join('/');
 }
 
@@ -86,7 +88,9 @@ beforeAll(async () => {
 
 describe('the page routes', () => {
 	it('are found by walking src/routes, and every parameter has a value to try', () => {
-		expect(routes).toEqual(expect.arrayContaining(['/', '/signin', '/pads/[id]', '/shared/[id]', '/t/[slug]', '/reset/[token]', '/library']));
+		expect(routes).toEqual(
+			expect.arrayContaining(['/', '/signin', '/pads/[id]', '/shared/[id]', '/t/[slug]', '/reset/[token]', '/library'])
+		);
 		const unknown = routes.flatMap(paramsOf).filter((p) => !(p in PARAMS));
 		expect(unknown, `add these route parameters to PARAMS in ${relative(process.cwd(), import.meta.filename)}`).toEqual([]);
 	});
@@ -120,11 +124,14 @@ describe.each([
 		}
 	);
 
-	it.each(routes.filter((r) => paramsOf(r).some((p) => PARAMS[p]?.kind === 'public')))('%s answers a missing value as missing', async (route) => {
-		const missing = fill(route, (p) => p.missing);
-		const page = await client().get(missing);
-		expect([200, 303, 404], `${missing} → ${page.status}`).toContain(page.status);
-	});
+	it.each(routes.filter((r) => paramsOf(r).some((p) => PARAMS[p]?.kind === 'public')))(
+		'%s answers a missing value as missing',
+		async (route) => {
+			const missing = fill(route, (p) => p.missing);
+			const page = await client().get(missing);
+			expect([200, 303, 404], `${missing} → ${page.status}`).toContain(page.status);
+		}
+	);
 });
 
 describe('what a visitor without a session sees of a pad', () => {

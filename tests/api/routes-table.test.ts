@@ -10,7 +10,7 @@
 import { readdirSync, readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { beforeAll, describe, expect, inject, it } from 'vitest';
-import { Client, freshMember } from '../helpers/client';
+import { freshMember } from '../helpers/client';
 import { freshWithRole, idOf, signInPatiently } from '../helpers/roles';
 import { padWithSteps } from './support/pads';
 
@@ -173,12 +173,18 @@ function discoverRoutes(root = 'src/routes'): string[] {
 	const found: string[] = [];
 	const walk = (dir: string) => {
 		const entries = readdirSync(dir, { withFileTypes: true });
-		const id = '/' + relative(root, dir).split('/').filter((s) => s && !/^\(.*\)$/.test(s)).join('/');
+		const id =
+			'/' +
+			relative(root, dir)
+				.split('/')
+				.filter((s) => s && !/^\(.*\)$/.test(s))
+				.join('/');
 		for (const e of entries) {
 			if (e.isDirectory()) walk(join(dir, e.name));
 			else if (e.name === '+server.ts' || e.name === '+server.js') {
 				const src = readFileSync(join(dir, e.name), 'utf8');
-				for (const m of src.matchAll(/export\s+(?:const|(?:async\s+)?function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS|fallback)\b/g)) found.push(`${m[1]} ${id}`);
+				for (const m of src.matchAll(/export\s+(?:const|(?:async\s+)?function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS|fallback)\b/g))
+					found.push(`${m[1]} ${id}`);
 			}
 		}
 		const names = entries.map((e) => e.name);
@@ -241,8 +247,14 @@ describe('deny by default', () => {
 	it('has a row for every route, and no row for a route that is gone', () => {
 		const routes = discoverRoutes();
 		expect(routes.length).toBeGreaterThan(50);
-		expect(routes.filter((r) => !(r in TABLE)), 'routes without a row in TABLE').toEqual([]);
-		expect(Object.keys(TABLE).filter((k) => !routes.includes(k)), 'rows for routes that do not exist').toEqual([]);
+		expect(
+			routes.filter((r) => !(r in TABLE)),
+			'routes without a row in TABLE'
+		).toEqual([]);
+		expect(
+			Object.keys(TABLE).filter((k) => !routes.includes(k)),
+			'rows for routes that do not exist'
+		).toEqual([]);
 		for (const [key, row] of Object.entries(TABLE)) expect(row.split(/\s+/), key).toHaveLength(ROLES.length);
 		for (const key of Object.keys(REQUESTS)) expect(TABLE, `REQUESTS has ${key} but TABLE does not`).toHaveProperty([key]);
 	});
@@ -266,8 +278,26 @@ describe('deny by default', () => {
 			const slugToRevokeByForm = (await member.post(`/api/pads/${padId}/share`, {})).body.slug;
 			const keyId = (await member.post('/api/keys', { label: 'to delete' })).body.id;
 			const datasetId = (await member.post('/api/datasets', csv())).body.dataset.id;
-			const macroId = (await member.post('/api/macros', { name: unique('rt-own'), description: 'ΔA of a strip.', params: { l: '0.4' }, body: ['darea l={l}'] })).body.macro.id;
-			f = { padId, padToDelete, padToDeleteByForm, slug, slugToRevoke, slugToRevokeByForm, keyId, datasetId, macroId, otherId: await idOf(other) };
+			const macroId = (
+				await member.post('/api/macros', {
+					name: unique('rt-own'),
+					description: 'ΔA of a strip.',
+					params: { l: '0.4' },
+					body: ['darea l={l}']
+				})
+			).body.macro.id;
+			f = {
+				padId,
+				padToDelete,
+				padToDeleteByForm,
+				slug,
+				slugToRevoke,
+				slugToRevokeByForm,
+				keyId,
+				datasetId,
+				macroId,
+				otherId: await idOf(other)
+			};
 			for (const [k, v] of Object.entries(f)) expect(v, k).toBeTruthy();
 		});
 

@@ -34,7 +34,12 @@ describe('share links', () => {
 		const r = await anon.get(`/api/t/${slug}`);
 		expect(r.status).toBe(200);
 		expect(Object.keys(r.body).sort()).toEqual(['bulk', 'ok', 'owner', 'steps', 'title']);
-		expect(r.body).toMatchObject({ ok: true, title: 'Replay me', owner: { name: 'tr-owner' }, bulk: { name: 'brane', params: { d: 3, zh: 1 } } });
+		expect(r.body).toMatchObject({
+			ok: true,
+			title: 'Replay me',
+			owner: { name: 'tr-owner' },
+			bulk: { name: 'brane', params: { d: 3, zh: 1 } }
+		});
 		const pad = (await owner.get(`/api/pads/${padId}`)).body.steps;
 		expect(r.body.steps).toEqual(pad.map((s: any) => ({ n: s.n, input: s.input, status: s.status, results: s.results, error: s.error })));
 		// the page renders for a visitor without an account too
@@ -47,7 +52,9 @@ describe('share links', () => {
 	it('lists the links of a pad to its owner only', async () => {
 		const r = await owner.get(`/api/pads/${padId}/share`);
 		expect(r.status).toBe(200);
-		expect(r.body.shares).toEqual([expect.objectContaining({ slug, url: `${inject('baseUrl')}/t/${slug}`, live: true, expiresAt: null, revokedAt: null })]);
+		expect(r.body.shares).toEqual([
+			expect.objectContaining({ slug, url: `${inject('baseUrl')}/t/${slug}`, live: true, expiresAt: null, revokedAt: null })
+		]);
 		expectFailure(await member.get(`/api/pads/${padId}/share`), 404);
 	});
 
@@ -99,7 +106,7 @@ describe('share links', () => {
 	});
 });
 
-describe('the owner\'s sharing panel (/shared/[id] form actions)', () => {
+describe("the owner's sharing panel (/shared/[id] form actions)", () => {
 	// a browser posting the form without JavaScript: the answer is the page, with the action's status
 	const HTML = { accept: 'text/html' };
 	const form = (fields: Record<string, string>) => {
@@ -183,7 +190,11 @@ describe('replay', () => {
 		changed[0].rows[2][2] += 1e-3;
 		sql('UPDATE steps SET results = ? WHERE id = ?', JSON.stringify(changed), table.id);
 		const [thermo] = sql<{ id: string; results: string }>('SELECT id, results FROM steps WHERE pad_id = ? AND n = 5', padId);
-		sql("UPDATE steps SET status = 'error', results = NULL, error = ? WHERE id = ?", JSON.stringify({ message: 'recorded failure', start: 0, end: 6 }), thermo.id);
+		sql(
+			"UPDATE steps SET status = 'error', results = NULL, error = ? WHERE id = ?",
+			JSON.stringify({ message: 'recorded failure', start: 0, end: 6 }),
+			thermo.id
+		);
 		try {
 			const r = await anon.post(`/api/t/${slug}/replay`);
 			expect(r.body.drifted).toBe(2);
@@ -214,7 +225,12 @@ describe('fork', () => {
 		expect(id).not.toBe(padId);
 		const fork = (await member.get(`/api/pads/${id}`)).body;
 		const original = (await owner.get(`/api/pads/${padId}`)).body;
-		expect(fork.pad).toMatchObject({ title: 'Replay me (fork)', bulk: original.pad.bulk, units: original.pad.units, owner: { name: 'tr-member' } });
+		expect(fork.pad).toMatchObject({
+			title: 'Replay me (fork)',
+			bulk: original.pad.bulk,
+			units: original.pad.units,
+			owner: { name: 'tr-member' }
+		});
 		const strip = (s: any) => ({ n: s.n, input: s.input, status: s.status, results: s.results, error: s.error });
 		expect(fork.steps.map(strip)).toEqual(original.steps.map(strip));
 		// the fork's state: the bulk carries on and `#2` refers to the copied step 2
@@ -240,10 +256,13 @@ function postFrom(localAddress: string, path: string, agent: Agent): Promise<num
 	const url = new URL(inject('baseUrl') + path);
 	return new Promise((resolve, reject) => {
 		const headers = { 'content-type': 'application/json' };
-		const req = httpRequest({ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers, localAddress, agent }, (res) => {
-			res.resume();
-			res.on('end', () => resolve(res.statusCode ?? 0));
-		});
+		const req = httpRequest(
+			{ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers, localAddress, agent },
+			(res) => {
+				res.resume();
+				res.on('end', () => resolve(res.statusCode ?? 0));
+			}
+		);
 		req.on('error', reject);
 		req.end();
 	});
@@ -256,7 +275,11 @@ describe('replay rate limit', () => {
 		const agent = new Agent({ keepAlive: true, maxSockets: 16 });
 		const statuses: number[] = [];
 		for (let i = 0; i < limit; i += 50) {
-			statuses.push(...(await Promise.all(Array.from({ length: Math.min(50, limit - i) }, () => postFrom('127.0.0.77', '/api/t/no-such-link/replay', agent)))));
+			statuses.push(
+				...(await Promise.all(
+					Array.from({ length: Math.min(50, limit - i) }, () => postFrom('127.0.0.77', '/api/t/no-such-link/replay', agent))
+				))
+			);
 		}
 		expect(statuses.every((s) => s === 404)).toBe(true);
 		expect(await postFrom('127.0.0.77', '/api/t/no-such-link/replay', agent)).toBe(429);

@@ -26,7 +26,13 @@ async function compile(name: string, source: string, shellEscape: boolean) {
 	const dir = mkdtempSync(join(work, `${name}-`));
 	writeFileSync(join(dir, `${name}.tex`), source);
 	// uncompressed streams so text typeset from a read file would be visible in the PDF bytes
-	const args = ['-interaction=nonstopmode', '-halt-on-error', '-recorder', shellEscape ? '-shell-escape' : '-no-shell-escape', `-jobname=${name}`];
+	const args = [
+		'-interaction=nonstopmode',
+		'-halt-on-error',
+		'-recorder',
+		shellEscape ? '-shell-escape' : '-no-shell-escape',
+		`-jobname=${name}`
+	];
 	args.push(`\\pdfcompresslevel=0 \\pdfobjcompresslevel=0 \\input{${name}.tex}`);
 	const out = await run('pdflatex', args, { cwd: dir, maxBuffer: 16 << 20 }).then(
 		(r) => ({ code: 0, stdout: r.stdout }),
@@ -38,27 +44,48 @@ async function compile(name: string, source: string, shellEscape: boolean) {
 		...out,
 		log: read(`${name}.log`),
 		pdf: read(`${name}.pdf`),
-		inputs: fls.split('\n').filter((l) => l.startsWith('INPUT ')).map((l) => l.slice(6)),
-		outputs: fls.split('\n').filter((l) => l.startsWith('OUTPUT ')).map((l) => l.slice(7))
+		inputs: fls
+			.split('\n')
+			.filter((l) => l.startsWith('INPUT '))
+			.map((l) => l.slice(6)),
+		outputs: fls
+			.split('\n')
+			.filter((l) => l.startsWith('OUTPUT '))
+			.map((l) => l.slice(7))
 	};
 }
 
 beforeAll(async () => {
 	if (spawnSync('pdflatex', ['--version']).status !== 0) {
-		throw new Error('pdflatex is missing: run "node scripts/ensure-texlive.mjs" (installs texlive-latex-base) — this test is never skipped.');
+		throw new Error(
+			'pdflatex is missing: run "node scripts/ensure-texlive.mjs" (installs texlive-latex-base) — this test is never skipped.'
+		);
 	}
 	writeFileSync(secretFile, `${secret}\n`);
 	member = await freshMember('tex-attacker');
 	const formulas = hostileFormulas(secretFile, marker);
 	const attack = `\\input{${secretFile}}`;
 	const results = [
-		...formulas.map((latex, i) => ({ kind: 'scalar', label: `${attack} ${i}`, value: 1, order: 2, latex, unit: `\\immediate\\write18{touch ${marker}}` })),
+		...formulas.map((latex, i) => ({
+			kind: 'scalar',
+			label: `${attack} ${i}`,
+			value: 1,
+			order: 2,
+			latex,
+			unit: `\\immediate\\write18{touch ${marker}}`
+		})),
 		{ kind: 'series', label: attack, terms: [{ k: 2, coeff: 0.5, latex: formulas[0] }], latex: formulas[4] },
 		{ kind: 'record', label: 'r', fields: { [attack]: 1 }, latex: formulas[2], warning: formulas[6] },
 		{ kind: 'table', label: 't', columns: [attack, '$x$'], rows: [[attack, 1]] },
 		{ kind: 'note', text: `\\end{itemize}${attack}` },
 		// an honest formula still compiles as math beside them
-		{ kind: 'scalar', label: 'ΔA', value: 0.0245, order: 2, latex: '\\Delta A = \\frac{\\sqrt{\\pi}\\,\\Gamma(\\tfrac{1}{4})^2}{32\\pi}\\,\\ell^{2}' }
+		{
+			kind: 'scalar',
+			label: 'ΔA',
+			value: 0.0245,
+			order: 2,
+			latex: '\\Delta A = \\frac{\\sqrt{\\pi}\\,\\Gamma(\\tfrac{1}{4})^2}{32\\pi}\\,\\ell^{2}'
+		}
 	];
 	const doc = {
 		format: 'bulkpad-pad',
@@ -87,7 +114,11 @@ describe('the control: this pdflatex would fall for an unescaped attack', () => 
 	// without it, "nothing was read or run" below could mean the attack was never possible here
 	it('reads the secret and runs a command when the TeX asks and shell escape is on', { timeout: 180_000 }, async () => {
 		const controlMarker = join(work, 'control-ran');
-		const r = await compile('control', `\\documentclass{article}\\begin{document}\\input{${secretFile}}\\immediate\\write18{touch ${controlMarker}}\\end{document}\n`, true);
+		const r = await compile(
+			'control',
+			`\\documentclass{article}\\begin{document}\\input{${secretFile}}\\immediate\\write18{touch ${controlMarker}}\\end{document}\n`,
+			true
+		);
 		expect(r.code, r.stdout.slice(-1500)).toBe(0);
 		expect(r.inputs).toContain(secretFile);
 		expect(r.pdf).toContain(secret);

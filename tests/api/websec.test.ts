@@ -40,7 +40,8 @@ describe('headers on every answer', () => {
 		expect(r.status).toBe(200);
 		expectBasics(r.headers, 'page');
 		const csp = r.headers.get('content-security-policy')!;
-		for (const d of ["default-src 'self'", "object-src 'none'", "base-uri 'self'", "form-action 'self'", "frame-ancestors 'none'"]) expect(csp).toContain(d);
+		for (const d of ["default-src 'self'", "object-src 'none'", "base-uri 'self'", "form-action 'self'", "frame-ancestors 'none'"])
+			expect(csp).toContain(d);
 		// no nonce or hash beside 'unsafe-inline': a browser would then ignore it, and KaTeX's inline styles with it
 		expect(csp).toMatch(/style-src 'self' 'unsafe-inline'(;|$)/);
 		const nonce = /script-src 'self' 'nonce-([^']+)'/.exec(csp)?.[1];
@@ -71,7 +72,8 @@ describe('headers on every answer', () => {
 			expect(r.status, what).toBe(status);
 			expectBasics(r.headers, what);
 			// nothing but pages may run or load anything
-			if (!(r.headers.get('content-type') ?? '').startsWith('text/html')) expect(r.headers.get('content-security-policy'), what).toMatch(/default-src 'none'/);
+			if (!(r.headers.get('content-type') ?? '').startsWith('text/html'))
+				expect(r.headers.get('content-security-policy'), what).toMatch(/default-src 'none'/);
 		}
 	});
 });
@@ -81,7 +83,9 @@ describe('cross-site writes', () => {
 	async function state() {
 		const pads = (await victim.get('/api/pads')).body.pads.map((p: { id: string; title: string }) => `${p.id}:${p.title}`).sort();
 		const pad = await victim.get(`/api/pads/${padId}`);
-		const shares = (await victim.get(`/api/pads/${padId}/share`)).body.shares.map((s: { slug: string; live: boolean }) => `${s.slug}:${s.live}`);
+		const shares = (await victim.get(`/api/pads/${padId}/share`)).body.shares.map(
+			(s: { slug: string; live: boolean }) => `${s.slug}:${s.live}`
+		);
 		const keys = (await victim.get('/api/keys')).body.keys.length;
 		const me = (await victim.get('/api/auth/me')).status;
 		return { pads, steps: pad.body.steps?.length, shares, keys, me };
@@ -158,7 +162,13 @@ describe('oversized bodies', () => {
 			let status = 0;
 			let body = '';
 			const req = httpRequest(
-				{ host: url.hostname, port: url.port, path: url.pathname, method: 'POST', headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked', cookie: victim.cookie } },
+				{
+					host: url.hostname,
+					port: url.port,
+					path: url.pathname,
+					method: 'POST',
+					headers: { 'content-type': 'application/json', 'transfer-encoding': 'chunked', cookie: victim.cookie }
+				},
 				(res) => {
 					status = res.statusCode ?? 0;
 					res.on('data', (b) => (body += b));

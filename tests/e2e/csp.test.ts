@@ -39,7 +39,9 @@ beforeAll(async () => {
 	ctx = await launch();
 	await ctx.addInitScript(() => {
 		const seen: string[] = ((window as unknown as { __csp: string[] }).__csp = []);
-		document.addEventListener('securitypolicyviolation', (e) => seen.push(`${e.violatedDirective} ${e.blockedURI} ${e.sourceFile}:${e.lineNumber}`));
+		document.addEventListener('securitypolicyviolation', (e) =>
+			seen.push(`${e.violatedDirective} ${e.blockedURI} ${e.sourceFile}:${e.lineNumber}`)
+		);
 	});
 	page = await ctx.newPage();
 	watch(page);
@@ -70,7 +72,10 @@ describe('under the Content-Security-Policy', () => {
 		await run('coeffs darea o=4 | tex');
 		await expect.poll(() => page.locator('article.step .katex').count()).toBeGreaterThan(0);
 		// KaTeX's layout lives in inline style attributes: they must apply (a refused style leaves them unset)
-		const styled = await page.locator('article.step .katex [style]').first().evaluate((el) => (el as HTMLElement).style.cssText);
+		const styled = await page
+			.locator('article.step .katex [style]')
+			.first()
+			.evaluate((el) => (el as HTMLElement).style.cssText);
 		expect(styled.length).toBeGreaterThan(0);
 
 		await run('sweep darea l=0.05..1.2:30 o=1,exact');

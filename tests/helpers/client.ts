@@ -120,10 +120,12 @@ export async function freshMember(tag: string): Promise<Client> {
 export async function inviteAndAccept(owner: Client, padId: string, invitee: Client): Promise<string> {
 	const email = (await invitee.get('/api/auth/me')).body.user.email as string;
 	const sent = await owner.post(`/api/pads/${padId}/invite`, { email });
-	if (sent.status !== 200 || sent.body.mail?.status !== 'sent') throw new Error(`invitation failed: ${sent.status} ${JSON.stringify(sent.body)}`);
+	if (sent.status !== 200 || sent.body.mail?.status !== 'sent')
+		throw new Error(`invitation failed: ${sent.status} ${JSON.stringify(sent.body)}`);
 	// the newest invite link to this address: the one just sent (earlier ones may exist for other pads)
 	const token = await mailedToken(email, 'invite');
 	const accepted = await invitee.post('/api/invitations/accept', { token });
-	if (accepted.status !== 200 || accepted.body.pad?.id !== padId) throw new Error(`accepting failed: ${accepted.status} ${JSON.stringify(accepted.body)}`);
+	if (accepted.status !== 200 || accepted.body.pad?.id !== padId)
+		throw new Error(`accepting failed: ${accepted.status} ${JSON.stringify(accepted.body)}`);
 	return token;
 }

@@ -34,7 +34,13 @@ export async function copyText(text: string): Promise<boolean> {
 
 /** A file-name-safe slug of a label. */
 export function fileSlug(s: string): string {
-	return s.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 40) || 'bulkpad';
+	return (
+		s
+			.toLowerCase()
+			.replace(/[^a-z0-9]+/g, '-')
+			.replace(/^-|-$/g, '')
+			.slice(0, 40) || 'bulkpad'
+	);
 }
 
 /**

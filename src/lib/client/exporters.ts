@@ -112,7 +112,9 @@ export function toPgfplots(t: Pick<TableResult, 'columns' | 'rows' | 'label'>, o
 		if (!Number.isFinite(lmax) || (o.logX && lmax <= 0)) continue;
 		const at = `{axis cs:${lmax},1}`;
 		out.push(`\\fill[horizon, opacity=0.07] ({rel axis cs:0,0}) rectangle (${at}|-{rel axis cs:0,1});`);
-		out.push(`\\draw[horizon, densely dashed] (${at}|-{rel axis cs:0,0}) -- (${at}|-{rel axis cs:0,1}) node[pos=0.95, anchor=east, font=\\tiny] {${escapeTex(columnTitle(c))}};`);
+		out.push(
+			`\\draw[horizon, densely dashed] (${at}|-{rel axis cs:0,0}) -- (${at}|-{rel axis cs:0,1}) node[pos=0.95, anchor=east, font=\\tiny] {${escapeTex(columnTitle(c))}};`
+		);
 	}
 	out.push(`\\legend{${legend.join(', ')}}`, '\\end{axis}', '\\end{tikzpicture}');
 	return out.join('\n');

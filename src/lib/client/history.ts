@@ -8,7 +8,10 @@ export class LineHistory {
 	private cursor: number;
 	private draft = '';
 
-	constructor(entries: string[] = [], private max = 200) {
+	constructor(
+		entries: string[] = [],
+		private max = 200
+	) {
 		this.entries = entries.slice(-max);
 		this.cursor = this.entries.length;
 	}

@@ -46,7 +46,8 @@ export function linearScale(domain: [number, number], range: [number, number]): 
 		const lo = Math.min(d0, d1);
 		const hi = Math.max(d0, d1);
 		const out: number[] = [];
-		for (let t = Math.ceil(lo / step - 1e-9) * step; t <= hi + step * 1e-9; t += step) out.push(Math.abs(t) < step * 1e-9 ? 0 : Number(t.toPrecision(12)));
+		for (let t = Math.ceil(lo / step - 1e-9) * step; t <= hi + step * 1e-9; t += step)
+			out.push(Math.abs(t) < step * 1e-9 ? 0 : Number(t.toPrecision(12)));
 		return out;
 	};
 	return s;

@@ -61,7 +61,8 @@ function digamma(x: number): number {
 }
 
 function checkD(d: number): void {
-	if (!Number.isInteger(d) || d < 3 || d > 10) throw new HoloError('a ball needs an integer d with 3 ≤ d ≤ 10', 'd', 'for d = 2 a ball is an interval: use strip');
+	if (!Number.isInteger(d) || d < 3 || d > 10)
+		throw new HoloError('a ball needs an integer d with 3 ≤ d ≤ 10', 'd', 'for d = 2 a ball is an interval: use strip');
 }
 
 /** Finite part of the ball's RT area in AdS_{d+1} (scheme in the module comment); independent of R. */
@@ -69,7 +70,7 @@ export function ballVacuumAreaFinite(d: number): number {
 	checkD(d);
 	const om = sphereArea(d - 2);
 	const b = (d - 1) / 2;
-	if (d % 2 === 1) return (om / 2) * (gamma(1 - d / 2) * gamma(b)) / Math.sqrt(Math.PI);
+	if (d % 2 === 1) return ((om / 2) * (gamma(1 - d / 2) * gamma(b))) / Math.sqrt(Math.PI);
 	const m = d / 2 - 1;
 	return ((om / 2) * Math.pow(-1, m) * gamma(b) * (digamma(m + 1) - digamma(0.5))) / (gamma(m + 1) * Math.sqrt(Math.PI));
 }
@@ -131,7 +132,13 @@ export function shootBall(d: number, w: number, z0: number, rtol = 1e-12): BallS
 	const c = -rho0 / z0;
 	const s0 = 1e-4 * z0;
 	const dz = (rho0 * c * s0 * s0) / 2;
-	const y0 = [s0, z0 + dz, c * s0, (Math.pow(s0, d - 1) * z0 * c * c * s0 * s0) / (d + 1) / (rho0 * rho0), rho0 - 0.5 * d * w * Math.pow(z0, d - 1) * (c * s0 * s0) / 2];
+	const y0 = [
+		s0,
+		z0 + dz,
+		c * s0,
+		(Math.pow(s0, d - 1) * z0 * c * c * s0 * s0) / (d + 1) / (rho0 * rho0),
+		rho0 - (0.5 * d * w * Math.pow(z0, d - 1) * (c * s0 * s0)) / 2
+	];
 	const zm = 1e-5 * z0;
 	const res = integrateOde(rhs, s0, y0, 1e6 * z0, { rtol, atol: 1e-14 * z0, h0: s0, event: (_s, y) => y[1] - zm });
 	if (!res.event) throw new HoloError('the ball surface did not reach the boundary', 'R');

@@ -36,7 +36,13 @@ function termDerivatives(bulk: Bulk, param: string): { df: PowerTerm[]; dh: Powe
 	}
 	if (param === 'q' && bulk.name === 'charged') {
 		const q = bulk.params.q as number;
-		return { df: [{ c: -2 * q, p: bulk.d }, { c: 2 * q, p: 2 * (bulk.d - 1) }], dh: [] };
+		return {
+			df: [
+				{ c: -2 * q, p: bulk.d },
+				{ c: 2 * q, p: 2 * (bulk.d - 1) }
+			],
+			dh: []
+		};
 	}
 	const allowed = bulk.name === 'wave' ? 'zp' : bulk.name === 'boosted' ? 'zh, v' : bulk.name === 'charged' ? 'zh, q' : 'zh';
 	throw new HoloError(`no derivative in '${param}' for ${bulk.name}`, 'param', `parameters: ${allowed}`);

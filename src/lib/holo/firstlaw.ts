@@ -131,7 +131,12 @@ function energyMomentumSlopes(F: Family): { E1: number; E2: number; P1: number; 
 		const q = F.charge as number;
 		const g = chargeCoupling(d);
 		const wr = Math.pow(F.w, (d - 1) / d);
-		return { E1: (d - 1) * (1 + q * q), E2: 2 * (d - 1) * q * F.w, P1: (2 * (d - 1) * q * (d - 1) * wr) / (d * g * F.w), P2: (2 * (d - 1) * wr) / g };
+		return {
+			E1: (d - 1) * (1 + q * q),
+			E2: 2 * (d - 1) * q * F.w,
+			P1: (2 * (d - 1) * q * (d - 1) * wr) / (d * g * F.w),
+			P2: (2 * (d - 1) * wr) / g
+		};
 	}
 	const root = Math.sqrt(F.q * (F.q + F.w));
 	return { E1: d - 1, E2: d, P1: root > 0 ? (d * F.q) / (2 * root) : 0, P2: root > 0 ? (d * (2 * F.q + F.w)) / (2 * root) : Infinity };
@@ -306,7 +311,18 @@ function chargedExactGradient(bulk: Bulk, F: Family, l: number): { Aw: number; A
 	// ∂_zh f = −Σ c_j p_j (z/zh)^{p_j} / zh for f = 1 + Σ c_j (z/zh)^{p_j}; ∂_q f = −2q (z/zh)^d + 2q (z/zh)^{2(d−1)}
 	const df = (bulk.slice.fTerms ?? []).filter((t) => t.p !== 0).map((t) => ({ c: (-t.c * t.p) / zh, p: t.p }));
 	const dA = areaParameterDerivative(bulk.slice, sol.point, df, []);
-	const Aq = q === 0 ? 0 : areaParameterDerivative(bulk.slice, sol.point, [{ c: -2 * q, p: F.d }, { c: 2 * q, p: 2 * (F.d - 1) }], []);
+	const Aq =
+		q === 0
+			? 0
+			: areaParameterDerivative(
+					bulk.slice,
+					sol.point,
+					[
+						{ c: -2 * q, p: F.d },
+						{ c: 2 * q, p: 2 * (F.d - 1) }
+					],
+					[]
+				);
 	return { Aw: (-dA * Math.pow(zh, F.d + 1)) / F.d, Aq };
 }
 
@@ -332,7 +348,11 @@ export function mu(bulk: Bulk, l: number, order: Order, of?: MuOf): TentResult &
 	const charged = bulk.name === 'charged' && bulk.d > 2;
 	const want: MuOf = of ?? (charged ? 'charge' : 'momentum');
 	if (want === 'charge' && !charged) {
-		throw new HoloError(`the ${bulk.name} bulk carries no charge: μ_Q is defined for charged (d ≥ 3)`, 'of', 'use of=momentum, or use charged …');
+		throw new HoloError(
+			`the ${bulk.name} bulk carries no charge: μ_Q is defined for charged (d ≥ 3)`,
+			'of',
+			'use of=momentum, or use charged …'
+		);
 	}
 	if (want === 'momentum' && charged) {
 		throw new HoloError('the charged brane carries no momentum along y: its μ is conjugate to the charge', 'of', 'use of=charge');

@@ -144,7 +144,11 @@ function bracketDepth(text: string): number {
  * With `strict`, a function or power with no real value (sqrt(−1), log(−1), (−8)^(1/3)) throws 'complex'
  * instead of giving NaN — the language wants the error, a metric scan wants the NaN.
  */
-export function compileFormula(text: string, names: readonly string[], opts: { strict?: boolean; limits?: Partial<FormulaLimits> } = {}): Formula {
+export function compileFormula(
+	text: string,
+	names: readonly string[],
+	opts: { strict?: boolean; limits?: Partial<FormulaLimits> } = {}
+): Formula {
 	const limits = { ...FORMULA_LIMITS, ...(opts.limits ?? {}) };
 	if (typeof text !== 'string') throw new FormulaError('a formula must be text', 'refused');
 	if (text.length > limits.maxLength) throw new FormulaError(`is longer than ${limits.maxLength} characters`, 'limit');
@@ -169,7 +173,10 @@ export function compileFormula(text: string, names: readonly string[], opts: { s
 			case 'ConstantNode': {
 				const value = n.value;
 				if (typeof value !== 'number') {
-					throw new FormulaError(typeof value === 'string' ? 'strings are not allowed' : `only numbers are allowed (got ${String(value)})`, 'refused');
+					throw new FormulaError(
+						typeof value === 'string' ? 'strings are not allowed' : `only numbers are allowed (got ${String(value)})`,
+						'refused'
+					);
 				}
 				return () => value;
 			}
@@ -241,7 +248,11 @@ function checked(what: string, fn: Real, args: Compiled[]): Compiled {
 }
 
 /** One-off evaluation with a scope of numbers (the language's arithmetic, the security tests). */
-export function evaluateFormula(text: string, scope: ReadonlyMap<string, number> | Record<string, number> = {}, opts: { strict?: boolean; limits?: Partial<FormulaLimits> } = {}): number {
+export function evaluateFormula(
+	text: string,
+	scope: ReadonlyMap<string, number> | Record<string, number> = {},
+	opts: { strict?: boolean; limits?: Partial<FormulaLimits> } = {}
+): number {
 	const entries = scope instanceof Map ? [...scope.entries()] : Object.entries(scope);
 	const f = compileFormula(
 		text,

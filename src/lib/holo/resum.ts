@@ -93,7 +93,16 @@ interface Reliability {
  * convert it to a width): a genuine pole on (0, x], a Froissart doublet within |x| of the origin, the
  * neighbours' spread, and — for ΔA — a sign against the exact one.
  */
-function reliability(p: PadeApproximant, value: number, error: number, exact: number, scale: number, d: number, x: number, what: string): Reliability {
+function reliability(
+	p: PadeApproximant,
+	value: number,
+	error: number,
+	exact: number,
+	scale: number,
+	d: number,
+	x: number,
+	what: string
+): Reliability {
 	const np = nearestPole(p);
 	const width = (t: number) => (scale * Math.pow(t, 1 / d)).toPrecision(4);
 	const pole = np ? { re: np.re, im: np.im, abs: np.abs, l: scale * Math.pow(np.abs, 1 / d) } : null;
@@ -102,18 +111,22 @@ function reliability(p: PadeApproximant, value: number, error: number, exact: nu
 	const bad = p.poles.find((q) => !q.spurious && q.im === 0 && q.re > 0 && q.re <= x);
 	if (bad) notes.push(`the [${p.L}/${p.M}] approximant has a pole at l ≈ ${width(bad.re)}, inside (0, l]: its value here is meaningless`);
 	const near = p.poles.find((q) => q.spurious && q.abs <= 1.5 * x);
-	if (near) notes.push(`a spurious pole–zero pair (Froissart doublet) of [${p.L}/${p.M}] lies at |l| ≈ ${width(near.abs)}, within the range`);
+	if (near)
+		notes.push(`a spurious pole–zero pair (Froissart doublet) of [${p.L}/${p.M}] lies at |l| ≈ ${width(near.abs)}, within the range`);
 	const rel = error / Math.abs(value);
 	if (exact > 0 && value < 0) notes.push(`${what} = ${value.toPrecision(4)} < 0 is unphysical (the exact ${what} is positive)`);
 	if (!(rel <= REFUSE_REL)) notes.push(`neighbouring approximants differ by ${fmtRel(rel)}: this is no value, use o=exact`);
-	else if (!(rel <= RESUM_WARN_REL)) notes.push(`neighbouring approximants differ by ${fmtRel(rel)} (error ≈ ±${error.toPrecision(2)}): use a higher order or o=exact`);
+	else if (!(rel <= RESUM_WARN_REL))
+		notes.push(`neighbouring approximants differ by ${fmtRel(rel)} (error ≈ ±${error.toPrecision(2)}): use a higher order or o=exact`);
 	return notes.length ? { pole, froissart, warning: `Padé: ${notes.join('; ')}` } : { pole, froissart };
 }
 
-const fmtRel = (r: number) => (Number.isFinite(r) ? `${Number((100 * r).toPrecision(2))}%` : 'an unbounded amount (a neighbour has a pole in range)');
+const fmtRel = (r: number) =>
+	Number.isFinite(r) ? `${Number((100 * r).toPrecision(2))}%` : 'an unbounded amount (a neighbour has a pole in range)';
 
 function checkN(n: number): void {
-	if (!Number.isInteger(n) || n < 2 || n > 14) throw new HoloError('resummation needs an order 2…14', 'o', 'a Padé approximant needs at least two coefficients');
+	if (!Number.isInteger(n) || n < 2 || n > 14)
+		throw new HoloError('resummation needs an order 2…14', 'o', 'a Padé approximant needs at least two coefficients');
 }
 
 /** The charged series mixes powers (l/zh)^{da + 2(d−1)b}: a Padé approximant in τ = (l/zh)^d does not apply. */

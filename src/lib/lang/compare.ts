@@ -31,14 +31,26 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 	const inferred = ds.columns.find((c) => (VERBS as readonly string[]).includes(c) && VERB_KIND[c as Verb] === 'scalar');
 	const verb = (s.verb?.text ?? inferred) as Verb | undefined;
 	const verbSpan: A.Span = s.verb ?? s.dataset;
-	if (!verb) throw new LangError('say which quantity to compare: compare <dataset> <verb>, e.g. compare mydata darea', s.dataset.start, s.dataset.end);
+	if (!verb)
+		throw new LangError(
+			'say which quantity to compare: compare <dataset> <verb>, e.g. compare mydata darea',
+			s.dataset.start,
+			s.dataset.end
+		);
 	if (VERB_KIND[verb] !== 'scalar') {
-		throw new LangError(`compare works with verbs that give one number (darea, area, entropy, …), not ${verb}`, verbSpan.start, verbSpan.end);
+		throw new LangError(
+			`compare works with verbs that give one number (darea, area, entropy, …), not ${verb}`,
+			verbSpan.start,
+			verbSpan.end
+		);
 	}
 
 	const own = new Map<string, A.KeyValue>();
 	const rest: A.KeyValue[] = [];
-	for (const kv of s.keys) (kv.key === 'x' || kv.key === 'y' || kv.key === 'tol' ? own.set(kv.key, kv) : rest.push(kv));
+	for (const kv of s.keys) {
+		if (kv.key === 'x' || kv.key === 'y' || kv.key === 'tol') own.set(kv.key, kv);
+		else rest.push(kv);
+	}
 	const scope = { ctx: env.ctx, lets: env.lets, bulk: env.bulk.params };
 	const text = (k: string): string | undefined => {
 		const kv = own.get(k);
@@ -54,14 +66,20 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 	};
 	const form = VERB_FORMS[verb][Object.keys(VERB_FORMS[verb])[0]!]!;
 	const xCol = text('x') ?? ds.columns.find((c) => form.keys.includes(c) && c !== 'o');
-	if (!xCol) throw new LangError(`dataset '${name}' has no column ${form.keys.filter((k) => k !== 'o').join(' or ')}: say which with x="…"`, s.dataset.start, s.dataset.end);
+	if (!xCol)
+		throw new LangError(
+			`dataset '${name}' has no column ${form.keys.filter((k) => k !== 'o').join(' or ')}: say which with x="…"`,
+			s.dataset.start,
+			s.dataset.end
+		);
 	const yCol = text('y') ?? (ds.columns.includes(verb) ? verb : ds.columns.find((c) => c !== xCol));
 	if (!yCol) throw new LangError(`dataset '${name}' has no column to compare: say which with y="…"`, s.dataset.start, s.dataset.end);
 	let tol = DEFAULT_TOL;
 	const tkv = own.get('tol');
 	if (tkv) {
 		const r = resolveValue(tkv.value, scope, env.limits);
-		if (r.many || typeof r.value !== 'number' || !(r.value > 0)) throw new LangError('tol must be a number > 0', tkv.value.start, tkv.value.end);
+		if (r.many || typeof r.value !== 'number' || !(r.value > 0))
+			throw new LangError('tol must be a number > 0', tkv.value.start, tkv.value.end);
 		tol = r.value;
 	}
 	const xi = ds.columns.indexOf(xCol);
@@ -74,9 +92,20 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 
 	// the engine side is an ordinary verb line over the dataset's x values, pointing at the dataset's name
 	const at = { start: s.dataset.start, end: s.dataset.end };
-	const list: A.ListValue = { type: 'list', items: ds.rows.map((r) => ({ type: 'number', value: r[xi]!, raw: String(r[xi]), ...at })), ...at };
+	const list: A.ListValue = {
+		type: 'list',
+		items: ds.rows.map((r) => ({ type: 'number', value: r[xi]!, raw: String(r[xi]), ...at })),
+		...at
+	};
 	const xkv: A.KeyValue = { type: 'kv', key: xCol, keySpan: at, value: list, ...at };
-	const stmt: A.VerbStmt = { type: 'verb', verb: { text: verb, start: verbSpan.start, end: verbSpan.end }, keys: [xkv, ...rest], sinks: [], start: s.start, end: s.end };
+	const stmt: A.VerbStmt = {
+		type: 'verb',
+		verb: { text: verb, start: verbSpan.start, end: verbSpan.end },
+		keys: [xkv, ...rest],
+		sinks: [],
+		start: s.start,
+		end: s.end
+	};
 	const engine = runVerb(stmt, env).results[0] as TableResult;
 	if (engine.kind !== 'table' || engine.columns.length !== 2) {
 		throw new LangError('compare takes one order: o=3 or o=exact', s.start, s.end);
@@ -115,5 +144,8 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 		residual: worst,
 		tolerance
 	};
-	return { results: applySinks([table, check], s.sinks, `${name}-${verb}`), ref: { value: worst, fields: { residual: worst, points: rows.length } } };
+	return {
+		results: applySinks([table, check], s.sinks, `${name}-${verb}`),
+		ref: { value: worst, fields: { residual: worst, points: rows.length } }
+	};
 }

@@ -45,7 +45,13 @@ export function complete(input: string, cursor: number = input.length, cc: Compl
 
 	const items = candidates(words, word, before, cc);
 	const eq = word.indexOf('=');
-	const prefix = eq >= 0 ? word.slice(eq + 1).split(',').pop()! : word;
+	const prefix =
+		eq >= 0
+			? word
+					.slice(eq + 1)
+					.split(',')
+					.pop()!
+			: word;
 	const offset = word.length - prefix.length;
 	const chosen = items.filter((c) => c.insert.startsWith(prefix) && c.insert !== prefix);
 	return { start: start + offset, end, items: chosen };
@@ -112,13 +118,15 @@ function keysOf(bulk: string, verb: string | undefined, subject: string | undefi
 		if (form) keys.push(...form.keys);
 	}
 	if (isBulk(bulk)) keys.push(...BULK_KEYS[bulk]);
-	return [...new Set(keys)]
-		// phase= picks a soliton surface: elsewhere there is only one, so it is not offered
-		.filter((k) => !given.has(k) && !(k === 'o' && given.has('order')) && !(k === 'phase' && bulk !== 'soliton'))
-		.map((k) => {
-			const h = help(k);
-			return h ? { insert: `${k}=`, label: k, detail: h.summary } : { insert: `${k}=`, label: k };
-		});
+	return (
+		[...new Set(keys)]
+			// phase= picks a soliton surface: elsewhere there is only one, so it is not offered
+			.filter((k) => !given.has(k) && !(k === 'o' && given.has('order')) && !(k === 'phase' && bulk !== 'soliton'))
+			.map((k) => {
+				const h = help(k);
+				return h ? { insert: `${k}=`, label: k, detail: h.summary } : { insert: `${k}=`, label: k };
+			})
+	);
 }
 
 function valuesFor(key: string): Completion[] {

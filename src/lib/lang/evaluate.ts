@@ -42,7 +42,9 @@ export function runLine(input: string, ctx: PadContext, opts: RunOptions = {}): 
 	const env: LineEnv = {
 		ctx,
 		limits,
-		bulk: ctx.bulk ? { name: ctx.bulk.name, params: { ...ctx.bulk.params } } : { name: DEFAULT_BULK.name, params: { ...DEFAULT_BULK.params } },
+		bulk: ctx.bulk
+			? { name: ctx.bulk.name, params: { ...ctx.bulk.params } }
+			: { name: DEFAULT_BULK.name, params: { ...DEFAULT_BULK.params } },
 		units: ctx.units ? { ...ctx.units } : { ...DEFAULT_UNITS },
 		lets: { ...(ctx.lets ?? {}) },
 		pointsUsed: 0,
@@ -110,12 +112,19 @@ function requireKnownBulk(s: A.Span, env: LineEnv) {
 }
 
 /** Keys given once each, evaluated against `scope`; lists and ranges make no sense for `use`/`units`. */
-function singleValues(keys: A.KeyValue[], scope: Parameters<typeof resolveValue>[1], env: LineEnv, what: string): Record<string, number | string> {
+function singleValues(
+	keys: A.KeyValue[],
+	scope: Parameters<typeof resolveValue>[1],
+	env: LineEnv,
+	what: string
+): Record<string, number | string> {
 	const out: Record<string, number | string> = {};
 	for (const kv of keys) {
 		const r = resolveValue(kv.value, scope, env.limits);
 		if (r.many || r.value === 'exact') {
-			throw new LangError(`${what} takes one value per key`, kv.value.start, kv.value.end, { hint: 'sweep on a verb line instead: sweep darea v=0..0.9' });
+			throw new LangError(`${what} takes one value per key`, kv.value.start, kv.value.end, {
+				hint: 'sweep on a verb line instead: sweep darea v=0..0.9'
+			});
 		}
 		out[kv.key] = r.value;
 	}

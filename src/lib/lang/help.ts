@@ -43,13 +43,28 @@ const ENTRIES: HelpEntry[] = [
 		'chemical potential −ζ/α of the first law, of=momentum (ΔP_y = l T^{ty}, boosted/wave) or of=charge (μ_Q, charged; normalised by the action (R + d(d−1) − F²)/16πG, μ = √((d−1)/(2(d−2))) q/zh). Its small-l sign and size are a convention of that split (μ < 0 and |μ| > 1 happen); the large-l limit is thermodynamic: μ → v, μ_Q → μ',
 		'mu l=0.4 o=3 of=momentum'
 	),
-	E('verb', 'firstlaw', 'checks T_ent δΔS = δΔE − μ δΔX at order n (X = P_y or Q) in each parameter direction; each side and the residual', 'firstlaw l=0.4 o=3'),
+	E(
+		'verb',
+		'firstlaw',
+		'checks T_ent δΔS = δΔE − μ δΔX at order n (X = P_y or Q) in each parameter direction; each side and the residual',
+		'firstlaw l=0.4 o=3'
+	),
 	E('verb', 'stress', '⟨T_μν⟩ from the Fefferman–Graham expansion: tt, ty, xx, yy', 'stress'),
 	E('verb', 'thermo', 'temperature, entropy density, energy density, pressure: T, s, e, p', 'thermo'),
 	E('verb', 'coeffs', 'closed-form series coefficients of ΔA up to order n', 'coeffs darea o=4 | tex'),
-	E('verb', 'validity', 'largest l where order n stays within tol of exact, and the radius of convergence ± its uncertainty (Domb–Sykes)', 'validity o=3 tol=1e-3'),
+	E(
+		'verb',
+		'validity',
+		'largest l where order n stays within tol of exact, and the radius of convergence ± its uncertainty (Domb–Sykes)',
+		'validity o=3 tol=1e-3'
+	),
 	E('verb', 'mi', 'mutual information of a pair of strips and the critical gap', 'mi pair l=1 gap=0.3'),
-	E('verb', 'resum', 'Padé-resummed series at l ± an error estimate (neighbouring approximants), warned when unreliable, with the exact value beside it', 'resum l=0.8 o=6'),
+	E(
+		'verb',
+		'resum',
+		'Padé-resummed series at l ± an error estimate (neighbouring approximants), warned when unreliable, with the exact value beside it',
+		'resum l=0.8 o=6'
+	),
 	E('verb', 'phases', 'soliton: critical width l_c, largest connected width l_max, the jump of ∂A/∂l at l_c', 'use soliton d=4; phases'),
 	E('bulk', 'vacuum', 'pure AdS_{d+1}', 'use vacuum d=3'),
 	E('bulk', 'brane', 'planar AdS black brane (the default: d=4 zh=1)', 'use brane d=4 zh=1'),

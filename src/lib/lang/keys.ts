@@ -58,7 +58,12 @@ function asWord(k: string, kv: A.KeyValue): A.KeyValue {
 }
 
 function meaning(k: string): string {
-	const m: Record<string, string> = { l: ' (the strip width)', R: ' (the ball radius)', gap: ' (the gap between the strips)', zstar: ' (the turning point)' };
+	const m: Record<string, string> = {
+		l: ' (the strip width)',
+		R: ' (the ball radius)',
+		gap: ' (the gap between the strips)',
+		zstar: ' (the turning point)'
+	};
 	return m[k] ?? '';
 }
 
@@ -74,7 +79,9 @@ function misplacedKey(verb: Verb, shape: string, kv: A.KeyValue, bulkName: BulkN
 	const forms = VERB_FORMS[verb];
 	const other = Object.entries(forms).find(([, f]) => f.keys.includes(k));
 	if (other) {
-		return new LangError(`${verb} ${shape} takes no key '${kv.key}'`, span.start, span.end, { hint: `for that write: ${verb} ${other[0]} ${kv.key}=…` });
+		return new LangError(`${verb} ${shape} takes no key '${kv.key}'`, span.start, span.end, {
+			hint: `for that write: ${verb} ${other[0]} ${kv.key}=…`
+		});
 	}
 	const allowed = [...forms[shape]!.keys, ...BULK_KEYS[bulkName]];
 	return new LangError(`${verb} takes no key '${kv.key}'${didYouMean(kv.key, allowed)}`, span.start, span.end, {

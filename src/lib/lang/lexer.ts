@@ -22,8 +22,7 @@ const SINGLE: Record<string, Tok> = {
 };
 
 const isDigit = (c: string | undefined): boolean => c !== undefined && c >= '0' && c <= '9';
-const isNameStart = (c: string | undefined): boolean =>
-	c !== undefined && ((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || c === '_');
+const isNameStart = (c: string | undefined): boolean => c !== undefined && ((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || c === '_');
 const isNameChar = (c: string | undefined): boolean => isNameStart(c) || isDigit(c);
 
 /** Split a line into tokens; the last token is always End. */
@@ -88,7 +87,7 @@ export function lex(input: string, limits: Limits): Token[] {
 		if (c === '@') {
 			i++;
 			if (!isNameStart(input[i])) {
-				throw expected('a macro name after \'@\'', describeChar(input[i]), i, Math.min(i + 1, input.length));
+				throw expected("a macro name after '@'", describeChar(input[i]), i, Math.min(i + 1, input.length));
 			}
 			// library names may join words with '-' (btz-check); a '-' counts only between name characters
 			while (isNameChar(input[i]) || (input[i] === '-' && isNameChar(input[i + 1]))) i++;
@@ -145,7 +144,7 @@ function scanString(input: string, i: number): { value: string; end: number } {
 		i++;
 	}
 	if (i >= input.length) {
-		throw new LangError('unterminated string: add the closing \'"\'', start, input.length, {
+		throw new LangError("unterminated string: add the closing '\"'", start, input.length, {
 			hint: 'strings are written "…" on one line'
 		});
 	}

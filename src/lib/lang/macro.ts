@@ -19,7 +19,11 @@ export function runMacro(s: A.MacroStmt, input: string, env: LineEnv, runText: R
 	const m = Object.prototype.hasOwnProperty.call(macros, name) ? macros[name] : undefined;
 	if (!m) {
 		throw new LangError(`unknown macro '@${name}'${didYouMean(name, Object.keys(macros)).replace(" '", " '@")}`, s.name.start, s.name.end, {
-			hint: Object.keys(macros).length ? `approved macros: ${Object.keys(macros).map((k) => `@${k}`).join(', ')}` : 'the library has no approved macros yet'
+			hint: Object.keys(macros).length
+				? `approved macros: ${Object.keys(macros)
+						.map((k) => `@${k}`)
+						.join(', ')}`
+				: 'the library has no approved macros yet'
 		});
 	}
 	if (env.macroDepth + 1 > env.limits.maxMacroDepth) {

@@ -45,14 +45,7 @@ export function parseExpression(input: string, limits?: Partial<Limits>): A.Expr
 	return e;
 }
 
-const NOT_LET_NAMES: ReadonlySet<string> = new Set<string>([
-	...VERBS,
-	...KEYWORDS,
-	...CONSTANTS,
-	...FUNCTIONS,
-	...ALL_BULK_KEYS,
-	...BULKS
-]);
+const NOT_LET_NAMES: ReadonlySet<string> = new Set<string>([...VERBS, ...KEYWORDS, ...CONSTANTS, ...FUNCTIONS, ...ALL_BULK_KEYS, ...BULKS]);
 
 /** Keys that would reach Object.prototype when a line's keys become an object. */
 const RESERVED_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);
@@ -205,7 +198,6 @@ class Parser {
 		}
 		this.expect(Tok.Equals);
 		const t = this.peek();
-		let body: A.LetStmt['body'];
 		if (t.kind === Tok.Name && (t.text === 'use' || t.text === 'units' || t.text === 'let')) {
 			throw new LangError(`'${t.text}' gives no value to keep`, t.start, t.end, {
 				hint: 'let keeps a verb result or arithmetic'
@@ -213,7 +205,7 @@ class Parser {
 		}
 		const s = this.parseStatement();
 		if (s.type === 'use' || s.type === 'units' || s.type === 'let') throw new LangError('nothing to keep', s.start, s.end);
-		body = s;
+		const body: A.LetStmt['body'] = s;
 		return { type: 'let', name: this.word(n), body, start: kw.start, end: this.lastEnd() };
 	}
 
@@ -225,7 +217,7 @@ class Parser {
 		if (first.text === 'sweep') {
 			sweep = { start: first.start, end: first.end };
 			v = this.peek();
-			if (v.kind !== Tok.Name) throw this.unexpected('a verb after \'sweep\'', v, `verbs: ${VERBS.join(', ')}`);
+			if (v.kind !== Tok.Name) throw this.unexpected("a verb after 'sweep'", v, `verbs: ${VERBS.join(', ')}`);
 			if (!isVerb(v.text)) {
 				throw new LangError(`unknown verb '${v.text}'${didYouMean(v.text, VERBS)}`, v.start, v.end, {
 					hint: `verbs: ${VERBS.join(', ')}`
@@ -352,7 +344,7 @@ class Parser {
 	private parseValue(): A.Value {
 		const first = this.parseItem();
 		if (this.at(Tok.DotDot)) {
-			if (first.type === 'exact' || first.type === 'string') throw this.unexpected('a number before \'..\'', this.peek());
+			if (first.type === 'exact' || first.type === 'string') throw this.unexpected("a number before '..'", this.peek());
 			this.next();
 			const to = this.parseExpr();
 			const range: A.RangeValue = { type: 'range', from: first, to, start: first.start, end: to.end };
@@ -468,7 +460,7 @@ class Parser {
 				return { type: 'paren', inner, start: t.start, end: close.end };
 			}
 			default:
-				throw this.unexpected('a number, name or \'(\'', t);
+				throw this.unexpected("a number, name or '('", t);
 		}
 	}
 

@@ -78,10 +78,7 @@ export interface BulkState {
 }
 
 /** How entropies are reported (`units …`). G is Newton's constant in units L = 1. */
-export type UnitsState =
-	| { system: 'geo'; G: number }
-	| { system: 'cft'; c: number }
-	| { system: 'sym'; N: number };
+export type UnitsState = { system: 'geo'; G: number } | { system: 'cft'; c: number } | { system: 'sym'; N: number };
 
 /** What a later line may reference from an earlier step: `#n` is value, `#n.field` a field. */
 export interface StepRef {

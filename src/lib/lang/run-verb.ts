@@ -33,7 +33,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	const swept = qres.swept ?? bres.swept;
 	const sweptIsBulk = swept !== undefined && bres.swept === swept;
 	const oRes = sorted.orderKey ? resolveValue(sorted.orderKey.value, qscope, env.limits) : undefined;
-	let orders = readOrders(sorted.orderKey, oRes, env);
+	const orders = readOrders(sorted.orderKey, oRes, env);
 
 	if ((kind === 'series' || verb === 'validity' || verb === 'resum') && orders.includes('exact')) {
 		const span = sorted.orderKey?.value ?? verbSpan;
@@ -45,7 +45,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	}
 	// a record or check verb with several orders and nothing else swept sweeps the order itself
 	let xKey = swept ? canonicalKey(swept.key) : mainKey(sorted.form.keys);
-	let xs: (Scalar | undefined)[] = swept ? (allValues(swept, bres, qres)) : [mainValue(xKey, qres.values, sorted.quantityKeys)];
+	let xs: (Scalar | undefined)[] = swept ? allValues(swept, bres, qres) : [mainValue(xKey, qres.values, sorted.quantityKeys)];
 	let orderSweep = false;
 	if ((kind === 'record' || kind === 'check') && orders.length > 1) {
 		if (swept) {
@@ -60,7 +60,13 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	const total = orderSweep ? orders.length : xs.length * orders.length;
 	if (env.pointsUsed + total > env.limits.maxPoints) {
 		const span = swept?.value ?? sorted.orderKey?.value ?? verbSpan;
-		throw limitError('maxPoints', `this line asks for ${env.pointsUsed + total} points; at most ${env.limits.maxPoints} sweep points are allowed`, span.start, span.end, env.limits);
+		throw limitError(
+			'maxPoints',
+			`this line asks for ${env.pointsUsed + total} points; at most ${env.limits.maxPoints} sweep points are allowed`,
+			span.start,
+			span.end,
+			env.limits
+		);
 	}
 	env.pointsUsed += total;
 
@@ -74,7 +80,15 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const params = sweptIsBulk ? withKey(base, swept!.key, x!) : base;
 		const checked = checkBulk(bulkName, params);
 		if (!checked.ok) throw keyError(s.keys, checked, verbSpan, where);
-		const { q, words } = quantitiesAt(sorted.quantityKeys, qres.values, sweptIsBulk ? { ...qscope, bulk: checked.value } : undefined, env, swept, x, where);
+		const { q, words } = quantitiesAt(
+			sorted.quantityKeys,
+			qres.values,
+			sweptIsBulk ? { ...qscope, bulk: checked.value } : undefined,
+			env,
+			swept,
+			x,
+			where
+		);
 		return withEngine(s.keys, verbSpan, where, () => {
 			const bulk = V.makeBulk(bulkName, checked.value);
 			const G = q.G ?? (V.USES_G.has(verb) ? V.newtonG(env.units, bulk.d) : 1);
@@ -84,7 +98,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	const engine = <T>(_p: V.Point, x: Scalar | undefined, f: () => T): T =>
 		withEngine(s.keys, verbSpan, swept && x !== undefined ? `at ${swept.key}=${typeof x === 'number' ? shortNumber(x) : x}` : '', f);
 
-		const shown = { ...base };
+	const shown = { ...base };
 	if (sweptIsBulk) delete shown[swept!.key]; // the table's first column shows it
 	const bulkText = describeBulk({ name: bulkName, params: shown });
 	// a table's label names the charge chemical potential too (a single value's label comes from the engine's answer)
@@ -110,7 +124,9 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const order = orders[0]!;
 		const p = pointAt(x, order);
 		const args = argsOf(p.q);
-		const argText = Object.entries(args).map(([k, v]) => `${k}=${shortNumber(v)}`).join(' ');
+		const argText = Object.entries(args)
+			.map(([k, v]) => `${k}=${shortNumber(v)}`)
+			.join(' ');
 		if (kind === 'scalar') {
 			const { value, warning, fields: extra, symbol, tag, note } = engine(p, x, () => V.scalarAt(verb, p));
 			tick();
@@ -129,7 +145,13 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			const fields = engine(p, x, () => V.recordAt(verb, p));
 			tick();
 			const note = V.recordNote(verb, p);
-			results.push({ kind: 'record', label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`, fields, latex: texRecord(fields), ...(note ? { note } : {}) });
+			results.push({
+				kind: 'record',
+				label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`,
+				fields,
+				latex: texRecord(fields),
+				...(note ? { note } : {})
+			});
 			ref = { fields: { ...fields } };
 		} else {
 			const c = engine(p, x, () => V.checkAt(verb, p));
@@ -230,4 +252,3 @@ function argsOf(q: Record<string, number>): Record<string, number> {
 	for (const [k, v] of Object.entries(q)) if (k !== 'G' && k !== 'tol') out[k] = v;
 	return out;
 }
-

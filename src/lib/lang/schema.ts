@@ -9,11 +9,7 @@ import type { Order } from './result';
 import { BULK_KEYS, WORD_KEYS, type BulkName } from './vocab';
 
 const dim = (min: number, why = '') =>
-	z
-		.number('d must be a number')
-		.int('d must be a whole number')
-		.min(min, `d must be ≥ ${min}${why}`)
-		.max(10, 'd must be ≤ 10');
+	z.number('d must be a number').int('d must be a whole number').min(min, `d must be ≥ ${min}${why}`).max(10, 'd must be ≤ 10');
 const positive = (key: string) => z.number(`${key} must be a number`).positive(`${key} must be > 0`);
 const formula = (key: string) => z.string(`${key} must be a string, e.g. ${key}="1 - (z/zh)^4"`).min(1, `${key} must not be empty`);
 
@@ -39,7 +35,11 @@ export const BULK_SCHEMAS = {
 			// PHYSICS.md: extremal at q² = d/(d−2); beyond it T < 0 and there is no horizon at zh
 			// at d = 2 the charge drops out of f (plain BTZ) but would change e and p: refused
 			if (b.d === 2 && b.q !== 0) {
-				ctx.addIssue({ code: 'custom', path: ['q'], message: 'charged needs d ≥ 3 for q ≠ 0: at d = 2 the charge drops out of the metric (plain BTZ)' });
+				ctx.addIssue({
+					code: 'custom',
+					path: ['q'],
+					message: 'charged needs d ≥ 3 for q ≠ 0: at d = 2 the charge drops out of the metric (plain BTZ)'
+				});
 			}
 			if (b.d > 2 && b.q * b.q > b.d / (b.d - 2)) {
 				ctx.addIssue({
@@ -51,12 +51,7 @@ export const BULK_SCHEMAS = {
 		}),
 	dp: z
 		.object({
-			p: z
-				.number('p must be a number')
-				.int('p must be a whole number')
-				.min(0, 'p must be ≥ 0')
-				.max(6, 'p must be ≤ 6')
-				.default(4),
+			p: z.number('p must be a number').int('p must be a whole number').min(0, 'p must be ≥ 0').max(6, 'p must be ≤ 6').default(4),
 			zh: positive('zh').default(1)
 		})
 		.strict()

@@ -27,7 +27,13 @@ function toTable(r: Result): Result {
 		case 'scalar': {
 			const args = Object.entries(r.fields ?? {});
 			return withWarning(
-				{ kind: 'table', label: r.label, columns: [...args.map(([k]) => k), orderName(r.order)], rows: [[...args.map(([, v]) => v), r.value]], plot: { x: args[0]?.[0] ?? orderName(r.order) } },
+				{
+					kind: 'table',
+					label: r.label,
+					columns: [...args.map(([k]) => k), orderName(r.order)],
+					rows: [[...args.map(([, v]) => v), r.value]],
+					plot: { x: args[0]?.[0] ?? orderName(r.order) }
+				},
 				r.warning
 			);
 		}
@@ -54,7 +60,9 @@ function withWarning(t: TableResult, w: string | undefined): TableResult {
 /** A KaTeX `array` (KaTeX has no `tabular`). */
 export function tableLatex(t: TableResult): string {
 	const head = t.columns.map((c) => (/^o\d+$/.test(c) ? `n=${c.slice(1)}` : texField(c === 'o' ? 'o' : c))).join(' & ');
-	const body = t.rows.map((row) => row.map((v) => (typeof v === 'number' ? texNumber(v, 8) : v === null ? '' : `\\text{${v}}`)).join(' & '));
+	const body = t.rows.map((row) =>
+		row.map((v) => (typeof v === 'number' ? texNumber(v, 8) : v === null ? '' : `\\text{${v}}`)).join(' & ')
+	);
 	const spec = `c|${'c'.repeat(Math.max(0, t.columns.length - 1))}`;
 	return `\\begin{array}{${spec}}\n${head} \\\\ \\hline\n${body.join(' \\\\\n')}\n\\end{array}`;
 }

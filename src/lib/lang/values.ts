@@ -76,8 +76,10 @@ export function orderOfNames(expr: A.Expr, scope: Scope): Order {
 		else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
 		else if (e.type === 'unary') visit(e.arg);
 		else if (e.type === 'paren') visit(e.inner);
-		else if (e.type === 'binary') (visit(e.left), visit(e.right));
-		else if (e.type === 'call') e.args.forEach(visit);
+		else if (e.type === 'binary') {
+			visit(e.left);
+			visit(e.right);
+		} else if (e.type === 'call') e.args.forEach(visit);
 		if (typeof o === 'number' && (lowest === 'exact' || o < lowest)) lowest = o;
 	};
 	visit(expr);
@@ -106,7 +108,13 @@ export function resolveValue(v: A.Value, scope: Scope, limits: Limits): Resolved
 			});
 		}
 		if (n > limits.maxPoints) {
-			throw limitError('maxPoints', `a range of ${n} points is more than the ${limits.maxPoints} allowed`, v.points.start, v.points.end, limits);
+			throw limitError(
+				'maxPoints',
+				`a range of ${n} points is more than the ${limits.maxPoints} allowed`,
+				v.points.start,
+				v.points.end,
+				limits
+			);
 		}
 	}
 	const values: number[] = [];

@@ -95,7 +95,11 @@ function solitonSurfaceAt(p: Point): holo.SolitonSurface {
 function checkPhase(p: Point): void {
 	const phase = p.words?.phase;
 	if (phase === undefined || p.bulk.name === 'soliton' || phase !== 'disconnected') return;
-	throw new holo.HoloError(`the ${p.bulk.name} bulk has one strip surface (connected): phase=disconnected is for the soliton`, 'phase', 'use phase=rt or leave it out');
+	throw new holo.HoloError(
+		`the ${p.bulk.name} bulk has one strip surface (connected): phase=disconnected is for the soliton`,
+		'phase',
+		'use phase=rt or leave it out'
+	);
 }
 
 /** What a soliton answer is about: its phase, whether that is the RT surface, and l_c, l_max beside it. */
@@ -264,7 +268,12 @@ export function recordAt(verb: Verb, p: Point): Record<string, number> {
 			return { l_max: v.l_max, radius: v.radius, radius_err: v.radius_err };
 		}
 		case 'phases': {
-			if (p.bulk.name !== 'soliton') throw new holo.HoloError(`phases is for the soliton, whose strips have two surfaces (got ${p.bulk.name})`, 'bulk', 'use soliton d=4 z0=1');
+			if (p.bulk.name !== 'soliton')
+				throw new holo.HoloError(
+					`phases is for the soliton, whose strips have two surfaces (got ${p.bulk.name})`,
+					'bulk',
+					'use soliton d=4 z0=1'
+				);
 			const ph = need('solitonPhases', 'phases')({ d: p.bulk.d, z0: Number(p.bulk.params.z0) });
 			return { l_c: ph.lc, l_max: ph.lmax, zstar_c: ph.zstarC, zstar_max: ph.zstarMax, dA_dl_jump: ph.jump };
 		}
@@ -326,19 +335,38 @@ export function checkAt(verb: Verb, p: Point): CheckAt {
 	// the second direction: δv for the boost, δ(temperature) for the wave, δq at fixed zh for the charge
 	const sfx = c.conjugate === 'charge' ? 'q' : 'v';
 	if (c.shape) Object.assign(fields, { [`lhs_${sfx}`]: c.shape.lhs, [`rhs_${sfx}`]: c.shape.rhs, [`residual_${sfx}`]: c.shape.residual });
-	const relation = c.conjugate === 'charge' ? 'T_ent δΔS = δΔE − μ_Q δΔQ' : c.conjugate === 'momentum' ? 'T_ent δΔS = δΔE − μ δΔP_y' : 'T_ent δΔS = δΔE';
-	const dirs2 = c.conjugate === 'charge' ? 'along δzh (shown) and δq (fields *_q)' : c.conjugate === 'momentum' ? 'along δzh (shown) and the second parameter (fields *_v)' : 'along δzh';
+	const relation =
+		c.conjugate === 'charge' ? 'T_ent δΔS = δΔE − μ_Q δΔQ' : c.conjugate === 'momentum' ? 'T_ent δΔS = δΔE − μ δΔP_y' : 'T_ent δΔS = δΔE';
+	const dirs2 =
+		c.conjugate === 'charge'
+			? 'along δzh (shown) and δq (fields *_q)'
+			: c.conjugate === 'momentum'
+				? 'along δzh (shown) and the second parameter (fields *_v)'
+				: 'along δzh';
 	const note = `${relation}, ${dirs2}; residual = the next order's term (o=exact: the relation's own rounding)`;
-	return { relation, note, lhs: c.scale.lhs, rhs: c.scale.rhs, residual: c.scale.residual, tolerance: tol * Math.abs(c.scale.lhs), pass, fields };
+	return {
+		relation,
+		note,
+		lhs: c.scale.lhs,
+		rhs: c.scale.rhs,
+		residual: c.scale.residual,
+		tolerance: tol * Math.abs(c.scale.lhs),
+		pass,
+		fields
+	};
 }
 
 /** What a record verb's fields mean where the names alone do not say (its scheme or convention). */
 export function recordNote(verb: Verb, p: Point): string | undefined {
-	if (verb === 'validity') return 'radius ± radius_err: Domb–Sykes extrapolation of the coefficient ratios in 1/k (charged: a fit of their growth)';
-	if (verb === 'phases') return 'soliton strip: connected surface below l_c, disconnected (two sheets to the cap) above; dA_dl_jump = ∂A/∂l above l_c minus below';
-	if (verb === 'thermo' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'μ, ρ in the normalisation of the action (R + d(d−1) − F²)/16πG: μ = √((d−1)/(2(d−2))) q/zh, e + p = T s + μ ρ';
+	if (verb === 'validity')
+		return 'radius ± radius_err: Domb–Sykes extrapolation of the coefficient ratios in 1/k (charged: a fit of their growth)';
+	if (verb === 'phases')
+		return 'soliton strip: connected surface below l_c, disconnected (two sheets to the cap) above; dA_dl_jump = ∂A/∂l above l_c minus below';
+	if (verb === 'thermo' && p.bulk.name === 'charged' && p.bulk.d > 2)
+		return 'μ, ρ in the normalisation of the action (R + d(d−1) − F²)/16πG: μ = √((d−1)/(2(d−2))) q/zh, e + p = T s + μ ρ';
 	if (verb === 'energy' && p.bulk.name === 'charged' && p.bulk.d > 2) return 'Q = ρ l, ρ as in thermo';
-	if (verb === 'mi' && p.bulk.name === 'soliton') return 'each strip area is the RT (minimal) one of the connected and disconnected surfaces';
+	if (verb === 'mi' && p.bulk.name === 'soliton')
+		return 'each strip area is the RT (minimal) one of the connected and disconnected surfaces';
 	return undefined;
 }
 
@@ -357,7 +385,14 @@ function ballFirstLaw(p: Point): CheckAt {
 	const T = need('ballTent', 'firstlaw ball')(d, R);
 	const rhs = need('ballEnergy', 'firstlaw ball')(d, R, zh, p.G) / T;
 	const residual = exact - rhs;
-	return { lhs: exact, rhs, residual, tolerance: tol * Math.abs(exact), pass: Math.abs(residual) <= tol * Math.abs(exact), fields: { tent: T } };
+	return {
+		lhs: exact,
+		rhs,
+		residual,
+		tolerance: tol * Math.abs(exact),
+		pass: Math.abs(residual) <= tol * Math.abs(exact),
+		fields: { tent: T }
+	};
 }
 
 /** The warning a series value carries at this point, if any. */

@@ -138,4 +138,3 @@ export const VERB_FORMS: Record<Verb, Record<string, VerbForm>> = {
 	resum: { strip: { keys: ['l', 'o'], required: ['l'] } },
 	phases: { '': { keys: [], required: [] } }
 };
-

@@ -40,7 +40,9 @@ export function checkMacroName(name: string): MacroProblem | null {
 	if (name.length === 0) return { message: 'Give the macro a name.' };
 	if (name.length > MACRO_NAME_MAX) return { message: `A macro name has at most ${MACRO_NAME_MAX} characters.` };
 	if (!MACRO_NAME.test(name)) {
-		return { message: `'${name}' is not a macro name: use lower-case letters, digits, '_' and inner '-', starting with a letter (e.g. btz-check).` };
+		return {
+			message: `'${name}' is not a macro name: use lower-case letters, digits, '_' and inner '-', starting with a letter (e.g. btz-check).`
+		};
 	}
 	return null;
 }
@@ -69,10 +71,15 @@ export function checkBody(body: string[], params: Record<string, string>): Macro
 		const line = body[i]!;
 		const n = i + 1;
 		if (line.trim().length === 0) return { line: n, message: `line ${n} is empty.` };
-		if (line.length > BODY_LINE_MAX) return { line: n, message: `line ${n} has ${line.length} characters; at most ${BODY_LINE_MAX} are allowed.` };
+		if (line.length > BODY_LINE_MAX)
+			return { line: n, message: `line ${n} has ${line.length} characters; at most ${BODY_LINE_MAX} are allowed.` };
 		const unknown = placeholdersOf(line).find((p) => !(p in params));
 		if (unknown !== undefined) {
-			return { line: n, message: `line ${n}: {${unknown}} is not a parameter of this macro.`, hint: `declare ${unknown || 'it'} with a default` };
+			return {
+				line: n,
+				message: `line ${n}: {${unknown}} is not a parameter of this macro.`,
+				hint: `declare ${unknown || 'it'} with a default`
+			};
 		}
 		const text = substituteDefaults(line, params);
 		try {

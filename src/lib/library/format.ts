@@ -17,7 +17,10 @@ export const DATASET_NAME_MAX = 40;
 /** `Lattice d=4 (v2).csv` → `lattice_d_4_v2`: a usable name when the uploader gives none. */
 export function nameFromFile(fileName: string): string {
 	const stem = fileName.replace(/\.[^.]*$/, '').toLowerCase();
-	let name = stem.replace(/[^a-z0-9_]+/g, '_').replace(/_+/g, '_').replace(/^_+|_+$/g, '');
+	let name = stem
+		.replace(/[^a-z0-9_]+/g, '_')
+		.replace(/_+/g, '_')
+		.replace(/^_+|_+$/g, '');
 	if (!/^[a-z]/.test(name)) name = 'data_' + name;
 	return name.slice(0, DATASET_NAME_MAX).replace(/_+$/, '') || 'data';
 }

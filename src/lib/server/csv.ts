@@ -37,6 +37,7 @@ const show = (cell: string) => (cell.trim() === '' ? 'an empty cell' : `'${cell.
 
 /** Looks like text, not a binary file renamed to .csv. */
 export function looksLikeText(text: string): boolean {
+	// eslint-disable-next-line no-control-regex -- control characters are exactly what marks a binary file
 	return !/[\u0000-\u0008\u000e-\u001f\ufffd]/.test(text.slice(0, 65_536));
 }
 
@@ -57,11 +58,18 @@ export function parseNumericCsv(text: string): NumericTable {
 	}
 	columns.forEach((name, i) => {
 		if (name === '') throw new CsvProblem(`line ${head.line}: column ${i + 1} has no name.`, { line: head.line });
-		if (name.length > COLUMN_NAME_MAX) throw new CsvProblem(`line ${head.line}: column name '${name.slice(0, 20)}…' is longer than ${COLUMN_NAME_MAX} characters.`, { line: head.line });
+		if (name.length > COLUMN_NAME_MAX)
+			throw new CsvProblem(`line ${head.line}: column name '${name.slice(0, 20)}…' is longer than ${COLUMN_NAME_MAX} characters.`, {
+				line: head.line
+			});
 		if (parseNumber(name) !== null) {
-			throw new CsvProblem(`line ${head.line}: the first line must name the columns (e.g. l,darea); found the number ${name}.`, { line: head.line, column: name });
+			throw new CsvProblem(`line ${head.line}: the first line must name the columns (e.g. l,darea); found the number ${name}.`, {
+				line: head.line,
+				column: name
+			});
 		}
-		if (columns.indexOf(name) !== i) throw new CsvProblem(`line ${head.line}: column '${name}' appears twice.`, { line: head.line, column: name });
+		if (columns.indexOf(name) !== i)
+			throw new CsvProblem(`line ${head.line}: column '${name}' appears twice.`, { line: head.line, column: name });
 	});
 
 	if (records.length === 0) throw new CsvProblem('The file has a header but no rows of numbers.');
@@ -71,11 +79,19 @@ export function parseNumericCsv(text: string): NumericTable {
 	const rows = records.map(({ cells, line }, i) => {
 		const row = i + 1;
 		if (cells.length !== columns.length) {
-			throw new CsvProblem(`row ${row} (line ${line}) has ${cells.length} cells; the header has ${columns.length} columns (${columns.join(', ')}).`, { line, row });
+			throw new CsvProblem(
+				`row ${row} (line ${line}) has ${cells.length} cells; the header has ${columns.length} columns (${columns.join(', ')}).`,
+				{ line, row }
+			);
 		}
 		return cells.map((cell, j) => {
 			const n = parseNumber(cell);
-			if (n === null) throw new CsvProblem(`row ${row} (line ${line}), column '${columns[j]}': ${show(cell)} is not a number.`, { line, row, column: columns[j]! });
+			if (n === null)
+				throw new CsvProblem(`row ${row} (line ${line}), column '${columns[j]}': ${show(cell)} is not a number.`, {
+					line,
+					row,
+					column: columns[j]!
+				});
 			return n;
 		});
 	});

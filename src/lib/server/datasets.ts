@@ -31,12 +31,27 @@ export const datasetNameSchema = z
 	.regex(DATASET_NAME, "A dataset name is lower-case letters, digits and '_', starting with a letter (e.g. lattice_d4).");
 
 /** Browsers and operating systems label CSV files differently; anything else is not a CSV. */
-const CSV_TYPES = new Set(['', 'text/csv', 'application/csv', 'text/comma-separated-values', 'application/vnd.ms-excel', 'text/plain', 'application/octet-stream']);
+const CSV_TYPES = new Set([
+	'',
+	'text/csv',
+	'application/csv',
+	'text/comma-separated-values',
+	'application/vnd.ms-excel',
+	'text/plain',
+	'application/octet-stream'
+]);
 
 type DatasetRow = typeof schema.datasets.$inferSelect;
 
 function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes' | 'createdAt'>) {
-	return { id: d.id, name: d.name, columns: d.columns as string[], rows: (d.rows as number[][]).length, bytes: d.bytes, createdAt: d.createdAt };
+	return {
+		id: d.id,
+		name: d.name,
+		columns: d.columns as string[],
+		rows: (d.rows as number[][]).length,
+		bytes: d.bytes,
+		createdAt: d.createdAt
+	};
 }
 export type DatasetSummary = ReturnType<typeof summary>;
 
@@ -44,7 +59,14 @@ export type DatasetSummary = ReturnType<typeof summary>;
 export function listDatasets(owner: AppUser): DatasetSummary[] {
 	const d = schema.datasets;
 	return getDb()
-		.select({ id: d.id, name: d.name, columns: d.columns, rows: sql<number>`json_array_length(${d.rows})`, bytes: d.bytes, createdAt: d.createdAt })
+		.select({
+			id: d.id,
+			name: d.name,
+			columns: d.columns,
+			rows: sql<number>`json_array_length(${d.rows})`,
+			bytes: d.bytes,
+			createdAt: d.createdAt
+		})
 		.from(d)
 		.where(eq(d.ownerId, owner.id))
 		.orderBy(desc(d.createdAt))
@@ -53,7 +75,11 @@ export function listDatasets(owner: AppUser): DatasetSummary[] {
 }
 
 function findOwn(owner: AppUser, id: string): DatasetRow {
-	const row = getDb().select().from(schema.datasets).where(and(eq(schema.datasets.id, id), eq(schema.datasets.ownerId, owner.id))).get();
+	const row = getDb()
+		.select()
+		.from(schema.datasets)
+		.where(and(eq(schema.datasets.id, id), eq(schema.datasets.ownerId, owner.id)))
+		.get();
 	if (!row) failure(404, 'No such dataset.');
 	return row;
 }
@@ -92,22 +118,35 @@ export async function uploadDataset(owner: AppUser, file: File, requestedName: s
 
 	const db = getDb();
 	const row = db.transaction((tx) => {
-		const mine = tx.select({ id: schema.datasets.id, name: schema.datasets.name }).from(schema.datasets).where(eq(schema.datasets.ownerId, owner.id)).all();
-		if (mine.some((d) => d.name === name)) failure(409, `You have a dataset called '${name}' already: delete it first or give another name.`);
+		const mine = tx
+			.select({ id: schema.datasets.id, name: schema.datasets.name })
+			.from(schema.datasets)
+			.where(eq(schema.datasets.ownerId, owner.id))
+			.all();
+		if (mine.some((d) => d.name === name))
+			failure(409, `You have a dataset called '${name}' already: delete it first or give another name.`);
 		if (mine.length >= DATASETS_PER_OWNER) failure(409, `You have ${mine.length} datasets; delete one before uploading more.`);
 		const usedByMe = storedBytes(tx, owner.id);
 		if (usedByMe + file.size > DATASET_QUOTA.perUser) {
-			failure(413, `Your datasets use ${formatBytes(usedByMe)} of your ${formatBytes(DATASET_QUOTA.perUser)}; delete one before uploading ${formatBytes(file.size)} more.`, {
-				quota: DATASET_QUOTA.perUser,
-				used: usedByMe
-			});
+			failure(
+				413,
+				`Your datasets use ${formatBytes(usedByMe)} of your ${formatBytes(DATASET_QUOTA.perUser)}; delete one before uploading ${formatBytes(file.size)} more.`,
+				{
+					quota: DATASET_QUOTA.perUser,
+					used: usedByMe
+				}
+			);
 		}
 		const usedByAll = storedBytes(tx);
 		if (usedByAll + file.size > DATASET_QUOTA.perGroup) {
-			failure(413, `The group's datasets use ${formatBytes(usedByAll)} of ${formatBytes(DATASET_QUOTA.perGroup)}; ask an admin to make room.`, {
-				quota: DATASET_QUOTA.perGroup,
-				used: usedByAll
-			});
+			failure(
+				413,
+				`The group's datasets use ${formatBytes(usedByAll)} of ${formatBytes(DATASET_QUOTA.perGroup)}; ask an admin to make room.`,
+				{
+					quota: DATASET_QUOTA.perGroup,
+					used: usedByAll
+				}
+			);
 		}
 		const row = { id: newId(), ownerId: owner.id, name, columns: table.columns, rows: table.rows, bytes: file.size, createdAt: new Date() };
 		tx.insert(schema.datasets).values(row).run();

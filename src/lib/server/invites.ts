@@ -59,7 +59,11 @@ export async function invitePerson(pad: PadRow, inviter: AppUser, email: string,
 
 /** The invitation a token opens: pending, not expired, and its mail really went out — else null. */
 export function findLiveInvitation(token: string): InvitationRow | null {
-	const row = getDb().select().from(schema.invitations).where(eq(schema.invitations.tokenHash, hashToken(token))).get();
+	const row = getDb()
+		.select()
+		.from(schema.invitations)
+		.where(eq(schema.invitations.tokenHash, hashToken(token)))
+		.get();
 	return row && isLive(row) ? row : null;
 }
 
@@ -153,17 +157,30 @@ export function listInvitations(pad: PadRow) {
 export function revokeInvitation(pad: PadRow, id: string): void {
 	const db = getDb();
 	db.transaction((tx) => {
-		const row = tx.select().from(schema.invitations).where(and(eq(schema.invitations.id, id), eq(schema.invitations.padId, pad.id))).get();
+		const row = tx
+			.select()
+			.from(schema.invitations)
+			.where(and(eq(schema.invitations.id, id), eq(schema.invitations.padId, pad.id)))
+			.get();
 		if (!row) failure(404, 'No such invitation.');
 		if (row.state === 'revoked') return;
 		const now = new Date();
 		tx.update(schema.invitations).set({ state: 'revoked', revokedAt: now }).where(eq(schema.invitations.id, id)).run();
 		if (row.state !== 'accepted' || !row.acceptedBy) return;
 		const reader = tx.select({ email: schema.users.email }).from(schema.users).where(eq(schema.users.id, row.acceptedBy)).get();
-		if (reader) tx.delete(schema.padAccess).where(and(eq(schema.padAccess.padId, pad.id), eq(schema.padAccess.email, reader.email))).run();
+		if (reader)
+			tx.delete(schema.padAccess)
+				.where(and(eq(schema.padAccess.padId, pad.id), eq(schema.padAccess.email, reader.email)))
+				.run();
 		tx.update(schema.invitations)
 			.set({ state: 'revoked', revokedAt: now })
-			.where(and(eq(schema.invitations.padId, pad.id), eq(schema.invitations.acceptedBy, row.acceptedBy), eq(schema.invitations.state, 'accepted')))
+			.where(
+				and(
+					eq(schema.invitations.padId, pad.id),
+					eq(schema.invitations.acceptedBy, row.acceptedBy),
+					eq(schema.invitations.state, 'accepted')
+				)
+			)
 			.run();
 	});
 }

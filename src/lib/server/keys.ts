@@ -39,6 +39,9 @@ export function makeKey(user: AppUser, label: string) {
 
 /** Deleting the row is the revocation: the hash is gone, so the key matches nobody from the next request on. */
 export function revokeKey(user: AppUser, id: string): void {
-	const gone = getDb().delete(schema.apiKeys).where(and(eq(schema.apiKeys.id, id), eq(schema.apiKeys.userId, user.id))).run();
+	const gone = getDb()
+		.delete(schema.apiKeys)
+		.where(and(eq(schema.apiKeys.id, id), eq(schema.apiKeys.userId, user.id)))
+		.run();
 	if (gone.changes === 0) failure(404, 'No such key.');
 }

@@ -15,10 +15,17 @@ export type MacroState = (typeof MACRO_STATES)[number];
 type MacroRow = typeof schema.macros.$inferSelect;
 
 const paramsSchema = z.record(z.string(), z.string().max(200)).default({});
-const bodySchema = z.array(z.string().max(BODY_LINE_MAX * 2)).min(1, 'A macro needs at least one body line.').max(BODY_LINES_MAX * 2);
+const bodySchema = z
+	.array(z.string().max(BODY_LINE_MAX * 2))
+	.min(1, 'A macro needs at least one body line.')
+	.max(BODY_LINES_MAX * 2);
 
 export const proposeSchema = z.object({
-	name: z.string().trim().min(1).max(MACRO_NAME_MAX * 2),
+	name: z
+		.string()
+		.trim()
+		.min(1)
+		.max(MACRO_NAME_MAX * 2),
 	description: z.string().trim().min(1, 'Say what the macro is for.').max(500),
 	params: paramsSchema,
 	body: bodySchema
@@ -107,7 +114,12 @@ export function macroVersions(macroId: string) {
 		.where(eq(schema.macroVersions.macroId, macroId))
 		.orderBy(asc(schema.macroVersions.version))
 		.all()
-		.map((v) => ({ ...v, params: v.params as Record<string, string>, body: v.body as string[], editedBy: { name: v.editedBy ?? 'unknown' } }));
+		.map((v) => ({
+			...v,
+			params: v.params as Record<string, string>,
+			body: v.body as string[],
+			editedBy: { name: v.editedBy ?? 'unknown' }
+		}));
 }
 
 export function getMacro(user: AppUser, id: string) {
@@ -135,7 +147,9 @@ export function proposeMacro(user: AppUser, input: z.infer<typeof proposeSchema>
 			updatedAt: now
 		};
 		tx.insert(schema.macros).values(row).run();
-		tx.insert(schema.macroVersions).values({ id: newId(), macroId: row.id, version: 1, params: row.params, body: row.body, editedBy: user.id }).run();
+		tx.insert(schema.macroVersions)
+			.values({ id: newId(), macroId: row.id, version: 1, params: row.params, body: row.body, editedBy: user.id })
+			.run();
 		return { ...present(row, user.name), mine: true };
 	});
 }

@@ -23,7 +23,11 @@ export function listPads(ownerId: string) {
 		.all();
 }
 
-export function createPad(ownerId: string, title: string, state?: { bulk?: BulkState; units?: UnitsState; lets?: Record<string, LetValue> }): PadRow {
+export function createPad(
+	ownerId: string,
+	title: string,
+	state?: { bulk?: BulkState; units?: UnitsState; lets?: Record<string, LetValue> }
+): PadRow {
 	const now = new Date();
 	const row = {
 		id: newId(),
@@ -49,7 +53,11 @@ export function homePath(user: AppUser): string {
 
 /** The user's own pad; any other id — missing or somebody else's — is the same 404. */
 export function findOwnPad(user: AppUser, id: string): PadRow {
-	const pad = getDb().select().from(schema.pads).where(and(eq(schema.pads.id, id), eq(schema.pads.ownerId, user.id))).get();
+	const pad = getDb()
+		.select()
+		.from(schema.pads)
+		.where(and(eq(schema.pads.id, id), eq(schema.pads.ownerId, user.id)))
+		.get();
 	if (!pad) throw notFound();
 	return pad;
 }
@@ -84,9 +92,7 @@ export function deletePad(pad: PadRow) {
 /** Approved macros, as the language expands them. */
 export function approvedMacros(): NonNullable<PadContext['macros']> {
 	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
-	return Object.fromEntries(
-		rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[] }])
-	);
+	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[] }]));
 }
 
 /**
@@ -125,7 +131,11 @@ export function padContext(pad: PadRow, input: string): PadContext {
 export function startStep(pad: PadRow, input: string): { id: string; n: number } {
 	const db = getDb();
 	return db.transaction((tx) => {
-		const last = tx.select({ n: max(schema.steps.n) }).from(schema.steps).where(eq(schema.steps.padId, pad.id)).get();
+		const last = tx
+			.select({ n: max(schema.steps.n) })
+			.from(schema.steps)
+			.where(eq(schema.steps.padId, pad.id))
+			.get();
 		const n = (last?.n ?? 0) + 1;
 		const id = newId();
 		tx.insert(schema.steps).values({ id, padId: pad.id, n, input, status: 'pending', bulkBefore: pad.bulk }).run();
@@ -139,7 +149,9 @@ export function finishStep(
 	pad: PadRow,
 	stepId: string,
 	ms: number,
-	answer: { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> } | { ok: false; error: LineErrorShape | { message: string; start: number; end: number; code: string } }
+	answer:
+		| { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> }
+		| { ok: false; error: LineErrorShape | { message: string; start: number; end: number; code: string } }
 ) {
 	const db = getDb();
 	db.transaction((tx) => {

@@ -34,7 +34,11 @@ export function requestPasswordReset(email: string, clientAddress: string): void
 
 /** A token counts only while unexpired and once its mail went out: a link from a failed send opens nothing. */
 function liveReset(token: string) {
-	const row = getDb().select().from(schema.passwordResets).where(eq(schema.passwordResets.tokenHash, hashToken(token))).get();
+	const row = getDb()
+		.select()
+		.from(schema.passwordResets)
+		.where(eq(schema.passwordResets.tokenHash, hashToken(token)))
+		.get();
 	return row && row.expiresAt.getTime() > Date.now() && wasSent(row.outboxId) ? row : null;
 }
 
@@ -49,7 +53,11 @@ export function isResetTokenLive(token: string): boolean {
  */
 export async function confirmPasswordReset(token: string, password: string): Promise<boolean> {
 	const db = getDb();
-	const row = db.select().from(schema.passwordResets).where(eq(schema.passwordResets.tokenHash, hashToken(token))).get();
+	const row = db
+		.select()
+		.from(schema.passwordResets)
+		.where(eq(schema.passwordResets.tokenHash, hashToken(token)))
+		.get();
 	if (!row) return false;
 	db.delete(schema.passwordResets).where(eq(schema.passwordResets.userId, row.userId)).run();
 	if (row.expiresAt.getTime() <= Date.now() || !wasSent(row.outboxId)) return false;

@@ -56,7 +56,14 @@ export interface ReplayRequest {
 function answerOf(steps: StepRow[], fresh: FreshStep[], reused: boolean): ReplayAnswer & { reused?: true } {
 	const replayed = markDrift(steps, fresh);
 	return {
-		steps: replayed.map(({ n, drift, delta, results, error, skipped }) => ({ n, drift, delta, results, error, ...(skipped ? { skipped } : {}) })),
+		steps: replayed.map(({ n, drift, delta, results, error, skipped }) => ({
+			n,
+			drift,
+			delta,
+			results,
+			error,
+			...(skipped ? { skipped } : {})
+		})),
 		drifted: replayed.filter((s) => s.drift).length,
 		skipped: replayed.filter((s) => s.skipped).length,
 		...(reused ? { reused: true as const } : {})

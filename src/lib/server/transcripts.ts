@@ -45,7 +45,14 @@ function sharesOf(pad: PadRow): ShareRow[] {
 
 export function listShares(pad: PadRow, origin?: string) {
 	const now = Date.now();
-	return sharesOf(pad).map((s) => ({ slug: s.slug, url: shareUrl(s.slug, origin), createdAt: s.createdAt, expiresAt: s.expiresAt, revokedAt: s.revokedAt, live: isLive(s, now) }));
+	return sharesOf(pad).map((s) => ({
+		slug: s.slug,
+		url: shareUrl(s.slug, origin),
+		createdAt: s.createdAt,
+		expiresAt: s.expiresAt,
+		revokedAt: s.revokedAt,
+		live: isLive(s, now)
+	}));
 }
 
 /** The newest live link of a pad, if any (for invitation e-mails). */
@@ -56,7 +63,11 @@ export function liveShareOf(pad: PadRow): ShareRow | undefined {
 /** Revoking keeps the row (the owner sees it listed as revoked); the transcript answers 404 from now on. */
 export function revokeShare(pad: PadRow, slug: string) {
 	const db = getDb();
-	const share = db.select().from(schema.shares).where(and(eq(schema.shares.slug, slug), eq(schema.shares.padId, pad.id))).get();
+	const share = db
+		.select()
+		.from(schema.shares)
+		.where(and(eq(schema.shares.slug, slug), eq(schema.shares.padId, pad.id)))
+		.get();
 	if (!share) throw new ApiFailure(404, 'No such link on this pad.');
 	if (!share.revokedAt) db.update(schema.shares).set({ revokedAt: new Date() }).where(eq(schema.shares.slug, slug)).run();
 }
@@ -105,7 +116,10 @@ export function forkPad(source: PadRow, user: AppUser): PadRow {
 			updatedAt: now
 		};
 		tx.insert(schema.pads).values(pad).run();
-		for (const s of padSteps(source.id)) tx.insert(schema.steps).values({ ...s, id: newId(), padId: pad.id, createdAt: now }).run();
+		for (const s of padSteps(source.id))
+			tx.insert(schema.steps)
+				.values({ ...s, id: newId(), padId: pad.id, createdAt: now })
+				.run();
 		return pad;
 	});
 }

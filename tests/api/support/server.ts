@@ -32,7 +32,12 @@ export async function startPrivateServer(extraEnv: Record<string, string>): Prom
 	const dbFile = join(dir, 'bulkpad.db');
 	const mailDir = join(dir, 'mail');
 	const smtp = await startFakeSmtp({ dir: mailDir });
-	const env: Record<string, string | undefined> = { ...process.env, DATABASE_URL: dbFile, NODE_ENV: 'production', SMTP_PORT: String(smtp.port) };
+	const env: Record<string, string | undefined> = {
+		...process.env,
+		DATABASE_URL: dbFile,
+		NODE_ENV: 'production',
+		SMTP_PORT: String(smtp.port)
+	};
 	// the shared server's relaxed limits must not leak in from the environment
 	for (const k of Object.keys(env)) if (/^BULKPAD_(SIGNIN|SIGNUP|INVITE)_/.test(k)) delete env[k];
 	const seed = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/seed.ts', '--demo'], { env, encoding: 'utf8' });

@@ -34,7 +34,11 @@ describe('readEvalStream', () => {
 	it('reports progress in order and returns the reply', async () => {
 		const seen: number[] = [];
 		const r = await readEvalStream(
-			streamOf(['{"progress":{"done":1,"total":3}}\n{"progress":{"do', 'ne":2,"total":3}}\n', '{"reply":{"status":200,"body":{"ok":true,"results":[]}}}\n']),
+			streamOf([
+				'{"progress":{"done":1,"total":3}}\n{"progress":{"do',
+				'ne":2,"total":3}}\n',
+				'{"reply":{"status":200,"body":{"ok":true,"results":[]}}}\n'
+			]),
 			(p) => seen.push(p.done)
 		);
 		expect(seen).toEqual([1, 2]);
@@ -68,7 +72,9 @@ describe('evaluateLine', () => {
 	it('passes the abort signal so cancelling closes the request', async () => {
 		const ac = new AbortController();
 		const fake = ((_u: string, init: RequestInit) =>
-			new Promise((_r, reject) => init.signal!.addEventListener('abort', () => reject(new DOMException('aborted', 'AbortError'))))) as unknown as typeof fetch;
+			new Promise((_r, reject) =>
+				init.signal!.addEventListener('abort', () => reject(new DOMException('aborted', 'AbortError')))
+			)) as unknown as typeof fetch;
 		const p = evaluateLine('sweep darea l=0.1..1:500', undefined, { fetch: fake, signal: ac.signal });
 		ac.abort();
 		await expect(p).rejects.toThrow(/aborted/);

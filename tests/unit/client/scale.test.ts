@@ -44,7 +44,17 @@ describe('linePath', () => {
 	it('breaks the line at missing and non-positive (log) values', () => {
 		const x = linearScale([0, 4], [0, 4]);
 		const y = logScale([0.1, 10], [0, 2]);
-		const d = linePath([[0, 1], [1, 1], [2, NaN], [3, -1], [4, 10]], x, y);
+		const d = linePath(
+			[
+				[0, 1],
+				[1, 1],
+				[2, NaN],
+				[3, -1],
+				[4, 10]
+			],
+			x,
+			y
+		);
 		expect(d).toBe('M0.00,1.00L1.00,1.00M4.00,2.00');
 	});
 	it('finds the nearest x', () => {

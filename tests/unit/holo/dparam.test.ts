@@ -37,7 +37,7 @@ describe('dAreaDParam: extremality (∫ ∂_p L on the fixed surface; derived) a
 			const a = seriesValues(b, 4);
 			const l = 0.05;
 			const tau = Math.pow(l, d);
-			const series = (-d * Math.pow(l, 2 - d) * a.reduce((s, ak, i) => s + (i + 1) * ak * Math.pow(tau, i + 1), 0));
+			const series = -d * Math.pow(l, 2 - d) * a.reduce((s, ak, i) => s + (i + 1) * ak * Math.pow(tau, i + 1), 0);
 			expectRel(`brane d=${d} l=${l}`, series, dAreaDParam(b, l, 'zh'), 1e-10, 'series to order 4');
 		}
 	});

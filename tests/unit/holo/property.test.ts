@@ -46,7 +46,10 @@ describe('properties (fast-check)', () => {
 		const bad = fc.oneof(
 			fc.record({ d: fc.oneof(fc.integer({ min: -5, max: 1 }), fc.integer({ min: 11, max: 40 }), fc.constant(3.5), fc.constant(NaN)) }),
 			fc.record({ d: fc.constant(4), zh: fc.oneof(fc.double({ max: 0, noNaN: true }), fc.constant(NaN), fc.constant(Infinity)) }),
-			fc.record({ d: fc.constant(4), v: fc.oneof(fc.double({ min: 1, max: 1e6, noNaN: true }), fc.double({ min: -1e6, max: -1, noNaN: true }), fc.constant(NaN)) })
+			fc.record({
+				d: fc.constant(4),
+				v: fc.oneof(fc.double({ min: 1, max: 1e6, noNaN: true }), fc.double({ min: -1e6, max: -1, noNaN: true }), fc.constant(NaN))
+			})
 		);
 		fc.assert(
 			fc.property(bad, (p) => {

@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { cd, deltaArea, deltaAreaSeries, makeBulk, seriesCoeffs, seriesPowers, seriesRadius, seriesWarning, validity } from '../../../src/lib/holo/index';
+import {
+	cd,
+	deltaArea,
+	deltaAreaSeries,
+	makeBulk,
+	seriesCoeffs,
+	seriesPowers,
+	seriesRadius,
+	seriesWarning,
+	validity
+} from '../../../src/lib/holo/index';
 import { chargedPowers } from '../../../src/lib/holo/series/charged';
 import { exactChargedTerms } from '../../../src/lib/holo/series/exact-charged';
 import { atomValues } from '../../../src/lib/holo/series/exact-latex';
@@ -113,7 +123,13 @@ describe('validity, radius and warnings for charged', () => {
 				if (t.power! <= 6 * d) {
 					expect(t.exact, `d=${d} K=${t.power}`).toBe(true);
 					const tol = d === 3 ? 1e-11 : 2e-12; // the doubles' inversion cancellation (coeffs.ts)
-					expectRel(`d=${d} K=${t.power}: exact form at q² = 0.25`, evaluateTerms(terms.get(t.power!)!, atomValues(d, 0.25)), t.value, tol, 'exact algebra vs doubles');
+					expectRel(
+						`d=${d} K=${t.power}: exact form at q² = 0.25`,
+						evaluateTerms(terms.get(t.power!)!, atomValues(d, 0.25)),
+						t.value,
+						tol,
+						'exact algebra vs doubles'
+					);
 				} else expect(t.latex, `d=${d} K=${t.power}`).toMatch(/^\\approx .*exact form computed to order 6/);
 			}
 		}

@@ -81,7 +81,7 @@ function sinhm(x: number): number {
 	let t = 1;
 	let s = 0;
 	for (let k = 1; k < 30; k++) {
-		t *= (x * x) / ((2 * k) * (2 * k + 1));
+		t *= (x * x) / (2 * k * (2 * k + 1));
 		s += t;
 	}
 	return s;

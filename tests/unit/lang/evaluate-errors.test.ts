@@ -39,7 +39,13 @@ const BAD: [string[], string, string | RegExp, string, ('limit' | 'language')?][
 	[[], 'darea l=0.1..1:2.5', 'the number of range points must be a whole number ≥ 2', '2.5'],
 	[[], 'darea l=0.1..1:5000', 'a range of 5000 points is more than the 2000 allowed', '5000', 'limit'],
 	[[], 'darea l=0.1..1:1000 o=1,2,exact', 'this line asks for 3000 points; at most 2000 sweep points are allowed', '0.1..1:1000', 'limit'],
-	[[], 'darea l=0.1..1:1000; darea l=0.1..1:1001', 'this line asks for 2001 points; at most 2000 sweep points are allowed', '0.1..1:1001', 'limit'],
+	[
+		[],
+		'darea l=0.1..1:1000; darea l=0.1..1:1001',
+		'this line asks for 2001 points; at most 2000 sweep points are allowed',
+		'0.1..1:1001',
+		'limit'
+	],
 	[[], 'darea l=x', "unknown name 'x'", 'x'],
 	[[], 'darea l=zhh', "unknown name 'zhh' — did you mean 'zh'?", 'zhh'],
 	[[], 'darea l=#3', 'no step #3 in this pad', '#3'],
@@ -139,7 +145,9 @@ describe('compare <dataset>', () => {
 		expect((out2.results[1] as { residual: number }).residual).toBeCloseTo(1e-3, 12);
 		expect(p.fail('compare bd').message).toBe("unknown dataset 'bd' — did you mean 'bad'?");
 		expect(p.fail('compare bad').message).toBe('say which quantity to compare: compare <dataset> <verb>, e.g. compare mydata darea');
-		expect(p.fail('compare bad thermo').message).toBe('compare works with verbs that give one number (darea, area, entropy, …), not thermo');
+		expect(p.fail('compare bad thermo').message).toBe(
+			'compare works with verbs that give one number (darea, area, entropy, …), not thermo'
+		);
 		expect(p.fail('compare bad darea y="nope"').message).toBe("dataset 'bad' has no column 'nope'");
 	});
 });

@@ -173,12 +173,22 @@ describe('lists and ranges → tables', () => {
 		const v = new Pad().run('validity o=1,2').results[0] as TableResult;
 		// radius_err (the radius states its uncertainty) is a field added after l_max and radius
 		expect(v.columns).toEqual(['o', 'l_max', 'radius', 'radius_err']);
-		expect(v.rows[1]).toEqual([2, holo.validity(brane(), 2, 1e-3).l_max, holo.validity(brane(), 2, 1e-3).radius, holo.validity(brane(), 2, 1e-3).radius_err]);
+		expect(v.rows[1]).toEqual([
+			2,
+			holo.validity(brane(), 2, 1e-3).l_max,
+			holo.validity(brane(), 2, 1e-3).radius,
+			holo.validity(brane(), 2, 1e-3).radius_err
+		]);
 	});
 
 	it('sweep always answers a table, even for one point', () => {
 		const t = new Pad().run('sweep darea l=0.4').results[0] as TableResult;
-		expect(t).toMatchObject({ kind: 'table', columns: ['l', 'exact'], rows: [[0.4, holo.deltaArea(brane(), 0.4)]], plot: { x: 'l', show: true } });
+		expect(t).toMatchObject({
+			kind: 'table',
+			columns: ['l', 'exact'],
+			rows: [[0.4, holo.deltaArea(brane(), 0.4)]],
+			plot: { x: 'l', show: true }
+		});
 	});
 
 	it('reports progress point by point', () => {

@@ -136,7 +136,7 @@ const BAD: [input: string, message: string | RegExp, covers: string, code?: 'lim
 	['#x', "Expected a step number after '#', found 'x'", '#x'],
 	['@', "Expected a macro name after '@', found end of line", ''],
 	['darea l=0.3 $', "Expected a name, number or operator, found '$'", '$'],
-	['darea f="abc', 'unterminated string: add the closing \'"\'', '"abc'],
+	['darea f="abc', "unterminated string: add the closing '\"'", '"abc'],
 	['darea l=1e999', 'number 1e999 is out of range', '1e999'],
 	['use', 'Expected a bulk name, found end of line', ''],
 	['sweep', "Expected a verb after 'sweep', found end of line", ''],

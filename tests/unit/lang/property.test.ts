@@ -18,7 +18,15 @@ const ctx: PadContext = {
 	refs: { 1: { value: 0.3, fields: { T: 0.5, l: 0.3 } }, 2: { fields: { E: 1 } } },
 	lets: { w: { value: 0.2, fields: {} } },
 	macros: { m: { params: { l: '0.3' }, body: ['darea l={l}'] } },
-	datasets: { data: { columns: ['l', 'darea'], rows: [[0.1, 0.005], [0.2, 0.02]] } }
+	datasets: {
+		data: {
+			columns: ['l', 'darea'],
+			rows: [
+				[0.1, 0.005],
+				[0.2, 0.02]
+			]
+		}
+	}
 };
 
 function onlyLangErrors(input: string, run: (s: string) => unknown): void {
@@ -55,7 +63,10 @@ const ALPHABET = [...'abcdelorstuvwxz0123456789.,;:=|#@"()+-*/^ _', '..', 'exact
 const mutated = fc
 	.tuple(
 		fc.constantFrom(...VALID),
-		fc.array(fc.tuple(fc.constantFrom('insert', 'delete', 'replace'), fc.nat(), fc.constantFrom(...ALPHABET)), { minLength: 1, maxLength: 4 })
+		fc.array(fc.tuple(fc.constantFrom('insert', 'delete', 'replace'), fc.nat(), fc.constantFrom(...ALPHABET)), {
+			minLength: 1,
+			maxLength: 4
+		})
 	)
 	.map(([line, edits]) => {
 		let s = line;
@@ -70,19 +81,33 @@ const mutated = fc
 
 describe('never anything but LangError', () => {
 	it('random strings (parse)', () => {
-		fc.assert(fc.property(fc.string({ maxLength: 80 }), (s) => onlyLangErrors(s, (x) => parse(x, LIMITS))), { numRuns: 500 });
+		fc.assert(
+			fc.property(fc.string({ maxLength: 80 }), (s) => onlyLangErrors(s, (x) => parse(x, LIMITS))),
+			{ numRuns: 500 }
+		);
 	});
 	it('random unicode strings (runLine)', () => {
-		fc.assert(fc.property(fc.string({ unit: 'binary', maxLength: 60 }), (s) => onlyLangErrors(s, (x) => runLine(x, ctx, { limits: LIMITS }))), {
-			numRuns: 300
-		});
+		fc.assert(
+			fc.property(fc.string({ unit: 'binary', maxLength: 60 }), (s) => onlyLangErrors(s, (x) => runLine(x, ctx, { limits: LIMITS }))),
+			{
+				numRuns: 300
+			}
+		);
 	});
 	it('random words of the language (runLine)', () => {
-		const words = fc.array(fc.constantFrom(...ALPHABET, 'thermo', 'stress', 'zstar', 'l=0.3', 'zh=2', 'v=0.5', '#1', '#2.E', 'pi'), { maxLength: 12 });
-		fc.assert(fc.property(words, (w) => onlyLangErrors(w.join(''), (x) => runLine(x, ctx, { limits: LIMITS }))), { numRuns: 400 });
+		const words = fc.array(fc.constantFrom(...ALPHABET, 'thermo', 'stress', 'zstar', 'l=0.3', 'zh=2', 'v=0.5', '#1', '#2.E', 'pi'), {
+			maxLength: 12
+		});
+		fc.assert(
+			fc.property(words, (w) => onlyLangErrors(w.join(''), (x) => runLine(x, ctx, { limits: LIMITS }))),
+			{ numRuns: 400 }
+		);
 	});
 	it('mutations of valid lines (runLine)', () => {
-		fc.assert(fc.property(mutated, (s) => onlyLangErrors(s, (x) => runLine(x, ctx, { limits: LIMITS }))), { numRuns: 400 });
+		fc.assert(
+			fc.property(mutated, (s) => onlyLangErrors(s, (x) => runLine(x, ctx, { limits: LIMITS }))),
+			{ numRuns: 400 }
+		);
 	});
 });
 

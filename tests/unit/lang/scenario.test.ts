@@ -16,7 +16,8 @@ describe('the LANGUAGE.md scenario', () => {
 		const kinds: string[] = [];
 		for (const line of SPEC_EXAMPLES) {
 			const verb = line.split(' ')[0]!;
-			const missing = (verb === 'tent' && !has('tent')) || (verb === 'firstlaw' && !has('firstLaw')) || (verb === 'mi' && !has('mutualInformation'));
+			const missing =
+				(verb === 'tent' && !has('tent')) || (verb === 'firstlaw' && !has('firstLaw')) || (verb === 'mi' && !has('mutualInformation'));
 			if (missing) {
 				const e = p.fail(line);
 				expect(e.message).toBe(`${verb} is not available yet`);

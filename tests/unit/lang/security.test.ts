@@ -109,7 +109,7 @@ describe('the language refuses before mathjs sees anything', () => {
 	});
 
 	it('bounds hostile sizes with limit errors', () => {
-		const deep = langError('(' .repeat(100) + '1' + ')'.repeat(100));
+		const deep = langError('('.repeat(100) + '1' + ')'.repeat(100));
 		expect(deep.code).toBe('limit');
 		const long = langError('1+'.repeat(1500) + '1');
 		expect(long.code).toBe('limit');

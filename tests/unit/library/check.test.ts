@@ -3,7 +3,9 @@ import { checkBody, checkMacro, checkMacroName, checkParams, substituteDefaults 
 
 describe('macro names', () => {
 	it.each(['btz-check', 'sym-thermo', 'a', 'first_law-o3'])('takes %j', (n) => expect(checkMacroName(n)).toBeNull());
-	it.each(['', 'BTZ', '9a', '-a', 'a-', 'a--b', 'a b', 'a.b', 'x'.repeat(41)])('refuses %j', (n) => expect(checkMacroName(n)).not.toBeNull());
+	it.each(['', 'BTZ', '9a', '-a', 'a-', 'a--b', 'a b', 'a.b', 'x'.repeat(41)])('refuses %j', (n) =>
+		expect(checkMacroName(n)).not.toBeNull()
+	);
 });
 
 describe('parameters', () => {
@@ -22,8 +24,12 @@ describe('body lines', () => {
 	});
 
 	it('accepts the seeded library', () => {
-		expect(checkMacro({ name: 'btz-check', params: { l: '1', c: '12' }, body: ['use brane d=2 zh=1', 'units cft c={c}', 'dentropy l={l}'] })).toBeNull();
-		expect(checkMacro({ name: 'sym-thermo', params: { N: '10', zh: '1' }, body: ['use brane d=4 zh={zh}', 'units sym N={N}', 'thermo'] })).toBeNull();
+		expect(
+			checkMacro({ name: 'btz-check', params: { l: '1', c: '12' }, body: ['use brane d=2 zh=1', 'units cft c={c}', 'dentropy l={l}'] })
+		).toBeNull();
+		expect(
+			checkMacro({ name: 'sym-thermo', params: { N: '10', zh: '1' }, body: ['use brane d=4 zh={zh}', 'units sym N={N}', 'thermo'] })
+		).toBeNull();
 	});
 
 	it('points at the failing line with the parser’s message and span', () => {

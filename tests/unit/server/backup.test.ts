@@ -86,7 +86,10 @@ describe('backup', () => {
 		// everything committed before the copy started is in it, plus a prefix of the writer's rows
 		const ids = users(file);
 		expect(ids.filter((id) => id.startsWith('u'))).toHaveLength(2000);
-		const written = ids.filter((id) => id.startsWith('w')).map((id) => Number(id.slice(1))).sort((a, b) => a - b);
+		const written = ids
+			.filter((id) => id.startsWith('w'))
+			.map((id) => Number(id.slice(1)))
+			.sort((a, b) => a - b);
 		expect(written).toEqual(written.map((_, i) => i));
 	});
 
@@ -130,7 +133,9 @@ describe('restore', () => {
 	it('refuses while another process has the database open, and changes nothing', async () => {
 		const server = await holder(live);
 		expect(isDatabaseInUse(live)).toBe(true);
-		expect(() => restoreDatabase(backup, live)).toThrow(/open in another process \(a running Bulkpad\?\): stop the server, restore, then start it/);
+		expect(() => restoreDatabase(backup, live)).toThrow(
+			/open in another process \(a running Bulkpad\?\): stop the server, restore, then start it/
+		);
 		await stop(server);
 		expect(users(live)).toHaveLength(7);
 		expect(readdirSync(join(dir, 'data')).filter((f) => f.includes('before-restore'))).toEqual([]);

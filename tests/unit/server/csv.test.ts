@@ -21,12 +21,20 @@ describe('parseNumber', () => {
 		['  1e3 ', 1000]
 	])('reads %j as %d', (cell, value) => expect(parseNumber(cell)).toBe(value));
 
-	it.each(['', ' ', 'abc', '0x1f', 'Infinity', 'NaN', '1,5', '1e', '--1', '1e999'])('refuses %j', (cell) => expect(parseNumber(cell)).toBeNull());
+	it.each(['', ' ', 'abc', '0x1f', 'Infinity', 'NaN', '1,5', '1e', '--1', '1e999'])('refuses %j', (cell) =>
+		expect(parseNumber(cell)).toBeNull()
+	);
 });
 
 describe('parseNumericCsv', () => {
 	it('reads a header and numeric rows, with or without a trailing newline, CRLF and a BOM', () => {
-		const want = { columns: ['l', 'darea'], rows: [[0.1, -0.002], [0.2, -0.017]] };
+		const want = {
+			columns: ['l', 'darea'],
+			rows: [
+				[0.1, -0.002],
+				[0.2, -0.017]
+			]
+		};
 		expect(parseNumericCsv('l,darea\n0.1,-0.002\n0.2,-0.017\n')).toEqual(want);
 		expect(parseNumericCsv('l,darea\r\n0.1,-0.002\r\n0.2,-0.017')).toEqual(want);
 		expect(parseNumericCsv('\ufeffl,darea\n0.1,-0.002\n\n0.2,-0.017\n\n')).toEqual(want);
@@ -34,12 +42,20 @@ describe('parseNumericCsv', () => {
 	});
 
 	it('detects semicolons and tabs as separators', () => {
-		expect(parseNumericCsv('l;darea\n0.1;2\n0.2;3').rows).toEqual([[0.1, 2], [0.2, 3]]);
+		expect(parseNumericCsv('l;darea\n0.1;2\n0.2;3').rows).toEqual([
+			[0.1, 2],
+			[0.2, 3]
+		]);
 		expect(parseNumericCsv('l\tdarea\n0.1\t2\n0.2\t3').columns).toEqual(['l', 'darea']);
 	});
 
 	it.each([
-		['a bad cell, by row, line and column', 'l,darea\n0.1,1\n\n0.3,oops\n', { row: 2, line: 4, column: 'darea' }, /row 2 \(line 4\), column 'darea': 'oops' is not a number/],
+		[
+			'a bad cell, by row, line and column',
+			'l,darea\n0.1,1\n\n0.3,oops\n',
+			{ row: 2, line: 4, column: 'darea' },
+			/row 2 \(line 4\), column 'darea': 'oops' is not a number/
+		],
 		['an empty cell', 'l,darea\n0.1,\n', { row: 1, column: 'darea' }, /an empty cell/],
 		['a ragged row', 'l,darea\n0.1,1\n0.2\n', { row: 2, line: 3 }, /row 2 \(line 3\) has 1 cells; the header has 2 columns/],
 		['a header of numbers', '0.1,0.2\n0.3,0.4\n', { line: 1 }, /must name the columns/],

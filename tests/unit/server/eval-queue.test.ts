@@ -108,9 +108,16 @@ describe('the evaluation queue', () => {
 		const q = createEvalQueue(p.runner, settings);
 		q.enqueue(job('busy'), 'a', 'light');
 		const c = new AbortController();
-		const waiting = [q.enqueue(job('w1'), 'a', 'light', { signal: c.signal }), q.enqueue(job('w2'), 'a', 'light'), q.enqueue(job('w3'), 'a', 'light')];
+		const waiting = [
+			q.enqueue(job('w1'), 'a', 'light', { signal: c.signal }),
+			q.enqueue(job('w2'), 'a', 'light'),
+			q.enqueue(job('w3'), 'a', 'light')
+		];
 		const fourth = await q.enqueue(job('w4'), 'a', 'light');
-		expect(fourth.answer).toMatchObject({ ok: false, error: { code: 'throttled', message: 'you have 3 lines waiting already; wait for them to finish' } });
+		expect(fourth.answer).toMatchObject({
+			ok: false,
+			error: { code: 'throttled', message: 'you have 3 lines waiting already; wait for them to finish' }
+		});
 		// someone else is not affected by a's backlog
 		const other = q.enqueue(job('b1'), 'b', 'light');
 		c.abort();

@@ -24,7 +24,9 @@ const HOSTILE_LATEX = hostileFormulas();
 
 /** Control words the exporter itself writes around formulas and text. */
 const DOCUMENT_WORDS = new Set(
-	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline'.split(' ')
+	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline'.split(
+		' '
+	)
 );
 
 /** Every control word outside verbatim blocks (their contents are printed, not read as TeX). */
@@ -91,7 +93,15 @@ describe('the math allow-list', () => {
 
 describe('the .tex export of a hostile pad', () => {
 	const results: Results = [
-		...HOSTILE_LATEX.map((latex, i) => ({ kind: 'scalar' as const, label: `\\input{/etc/hostname} ${i}`, value: 1, order: 2, latex, unit: '\\write18{x}', warning: '^^5cinput' })),
+		...HOSTILE_LATEX.map((latex, i) => ({
+			kind: 'scalar' as const,
+			label: `\\input{/etc/hostname} ${i}`,
+			value: 1,
+			order: 2,
+			latex,
+			unit: '\\write18{x}',
+			warning: '^^5cinput'
+		})),
 		{ kind: 'series', label: 's', terms: [{ k: 2, coeff: 1, latex: '\\input{x}' }], latex: HOSTILE_LATEX[4] },
 		{ kind: 'table', label: 't', columns: ['\\csname', '$x$'], rows: [['\\immediate\\write18{x}', 1, 'extra cell']] },
 		{ kind: 'record', label: 'r', fields: { '\\def\\x': 1 }, latex: '\\catcode`\\^=7' },
@@ -110,7 +120,9 @@ describe('the .tex export of a hostile pad', () => {
 	);
 
 	it('writes no control word beyond the document frame and the math allow-list', () => {
-		const words = [...controlWords(tex)].filter((w) => !DOCUMENT_WORDS.has(w) && safeMath(`\\${w}`) === null && !['begin', 'end'].includes(w));
+		const words = [...controlWords(tex)].filter(
+			(w) => !DOCUMENT_WORDS.has(w) && safeMath(`\\${w}`) === null && !['begin', 'end'].includes(w)
+		);
 		expect(words).toEqual([]);
 	});
 
@@ -137,10 +149,27 @@ describe('the .md export of a hostile pad', () => {
 	const md = renderMarkdown(
 		doc(
 			[
-				{ kind: 'scalar', label: `${html} **b** [l](javascript:x)`, value: 1, order: 2, unit: '</td><script>', warning: '<!-- x -->', latex: '<script>alert(1)</script>' },
+				{
+					kind: 'scalar',
+					label: `${html} **b** [l](javascript:x)`,
+					value: 1,
+					order: 2,
+					unit: '</td><script>',
+					warning: '<!-- x -->',
+					latex: '<script>alert(1)</script>'
+				},
 				{ kind: 'scalar', label: 'refused', value: 1, order: 2, latex: '\\input{x} <b>$$</b>' },
 				{ kind: 'scalar', label: 'm', value: 1, order: 2, latex: 'a < b > c' },
-				{ kind: 'table', label: 't|<b>', columns: ['<th>', 'a|b'], rows: [['<script>x</script>', 1], ['&lt;script&gt;', null], ['`code` <i>', 2]] },
+				{
+					kind: 'table',
+					label: 't|<b>',
+					columns: ['<th>', 'a|b'],
+					rows: [
+						['<script>x</script>', 1],
+						['&lt;script&gt;', null],
+						['`code` <i>', 2]
+					]
+				},
 				{ kind: 'note', text: `${html}\n# heading` },
 				{ kind: 'record', label: 'r', fields: { '<svg onload=x>': 1 } }
 			],

@@ -14,7 +14,13 @@ const doc = (steps: PadDocument['steps'], title = 'A pad'): PadDocument => ({
 	units: { system: 'geo', G: 1 },
 	steps
 });
-const ok = (n: number, input: string, results: NonNullable<PadDocument['steps'][number]['results']>) => ({ n, input, status: 'ok' as const, results, error: null });
+const ok = (n: number, input: string, results: NonNullable<PadDocument['steps'][number]['results']>) => ({
+	n,
+	input,
+	status: 'ok' as const,
+	results,
+	error: null
+});
 
 describe('numbers', () => {
 	it.each([
@@ -45,12 +51,28 @@ describe('Markdown', () => {
 		expect(md).toContain('````bulkpad\ndarea l=0.3 // ``` tricky\n````');
 	});
 	it('escapes pipes in table cells and writes one line per row', () => {
-		const md = renderMarkdown(doc([ok(1, 'sweep', [{ kind: 'table', label: 'a|b', columns: ['l', 'o|1'], rows: [[0.1, 'x|y'], [0.2, null]] }])]));
+		const md = renderMarkdown(
+			doc([
+				ok(1, 'sweep', [
+					{
+						kind: 'table',
+						label: 'a|b',
+						columns: ['l', 'o|1'],
+						rows: [
+							[0.1, 'x|y'],
+							[0.2, null]
+						]
+					}
+				])
+			])
+		);
 		expect(md).toContain('| l | o\\|1 |\n| --- | --- |\n| 0.1 | x\\|y |\n| 0.2 | — |');
 		expect(md).toContain('**a\\|b** (2 rows)');
 	});
 	it('says the order of a perturbative value and carries its warning', () => {
-		const md = renderMarkdown(doc([ok(1, 'darea l=2 o=3', [{ kind: 'scalar', label: 'ΔA', value: 0.5, order: 3, warning: 'l is outside the series range' }])]));
+		const md = renderMarkdown(
+			doc([ok(1, 'darea l=2 o=3', [{ kind: 'scalar', label: 'ΔA', value: 0.5, order: 3, warning: 'l is outside the series range' }])])
+		);
 		expect(md).toContain('- **ΔA** = 0.5 (order 3)');
 		expect(md).toContain('> ⚠ l is outside the series range');
 	});
@@ -103,8 +125,24 @@ describe('LaTeX', () => {
 
 describe('JSON document and import schema', () => {
 	const steps = [
-		{ n: 1, input: 'use brane d=3 zh=1', status: 'ok', results: [{ kind: 'note', text: 'bulk: brane d=3 zh=1' }], error: null, ref: { fields: {} }, bulkBefore: { name: 'brane', params: { d: 4, zh: 1 } } },
-		{ n: 2, input: 'darea l=', status: 'error', results: null, error: { message: 'expected a value', start: 8, end: 8, code: 'language' }, ref: null, bulkBefore: null }
+		{
+			n: 1,
+			input: 'use brane d=3 zh=1',
+			status: 'ok',
+			results: [{ kind: 'note', text: 'bulk: brane d=3 zh=1' }],
+			error: null,
+			ref: { fields: {} },
+			bulkBefore: { name: 'brane', params: { d: 4, zh: 1 } }
+		},
+		{
+			n: 2,
+			input: 'darea l=',
+			status: 'error',
+			results: null,
+			error: { message: 'expected a value', start: 8, end: 8, code: 'language' },
+			ref: null,
+			bulkBefore: null
+		}
 	];
 	const source = { title: 'T', bulk: { name: 'brane', params: { d: 3, zh: 1 } }, units: { system: 'geo', G: 1 }, lets: {}, steps };
 

@@ -27,7 +27,15 @@ describe('drift', () => {
 		expect(driftBetween([table(['l', 'o1'])], [table(['l', 'o2'])])).toBe(Infinity);
 	});
 	it('compares every cell of a table and every field of a record', () => {
-		const t = (x: number): Result => ({ kind: 'table', label: 't', columns: ['l', 'exact'], rows: [[0.1, 2], [0.2, x]] });
+		const t = (x: number): Result => ({
+			kind: 'table',
+			label: 't',
+			columns: ['l', 'exact'],
+			rows: [
+				[0.1, 2],
+				[0.2, x]
+			]
+		});
 		expect(driftBetween([t(3)], [t(3)])).toBe(0);
 		expect(driftBetween([t(3)], [t(3.3)])).toBeGreaterThan(DRIFT_TOLERANCE);
 		const r = (T: number): Result => ({ kind: 'record', label: 'thermo', fields: { T, s: 1 } });

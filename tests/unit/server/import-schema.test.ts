@@ -50,7 +50,9 @@ describe('bulks', () => {
 	});
 
 	it('refuses an unknown bulk as the pad’s, naming it', () => {
-		expect(refusal(doc({ bulk: { name: 'wormhole', params: {} } }))).toMatch(/bulk\.name: unknown bulk 'wormhole': Bulkpad knows vacuum, brane/);
+		expect(refusal(doc({ bulk: { name: 'wormhole', params: {} } }))).toMatch(
+			/bulk\.name: unknown bulk 'wormhole': Bulkpad knows vacuum, brane/
+		);
 	});
 
 	it('refuses an unknown bulk in a step, naming the bulk and the step', () => {
@@ -72,7 +74,11 @@ describe('bulks', () => {
 });
 
 describe('units', () => {
-	it.each([{ system: 'geo', G: 2 }, { system: 'cft', c: 30 }, { system: 'sym', N: 10 }])('takes %j', (units) => {
+	it.each([
+		{ system: 'geo', G: 2 },
+		{ system: 'cft', c: 30 },
+		{ system: 'sym', N: 10 }
+	])('takes %j', (units) => {
 		expect(parsePadDocument(doc({ units })).ok).toBe(true);
 	});
 	it.each([
@@ -90,7 +96,17 @@ describe('results', () => {
 		const results = [
 			{ ...scalar, unit: 'L', latex: 'z_*', warning: 'w', fields: { T: 1, mu: null } },
 			{ kind: 'record', label: 'thermo', fields: { T: 0.3, s: 1, e: 2, p: null } },
-			{ kind: 'table', label: 't', columns: ['l', 'o1'], rows: [[0.1, 1], [0.2, null]], plot: { x: 'l', log: false, validity: { o1: 0.5 }, show: true }, download: { format: 'csv', filename: 't.csv' } },
+			{
+				kind: 'table',
+				label: 't',
+				columns: ['l', 'o1'],
+				rows: [
+					[0.1, 1],
+					[0.2, null]
+				],
+				plot: { x: 'l', log: false, validity: { o1: 0.5 }, show: true },
+				download: { format: 'csv', filename: 't.csv' }
+			},
 			{ kind: 'series', label: 's', terms: [{ k: 1, coeff: 0.5, latex: 'a', power: 4 }], latex: 'a', order: 4, warning: 'w' },
 			{ kind: 'check', label: 'c', pass: true, lhs: 1, rhs: 1, residual: 0, tolerance: 1e-6, order: 'exact' },
 			{ kind: 'note', text: 'n' }
@@ -110,7 +126,10 @@ describe('results', () => {
 		[{ kind: 'scalar', label: 'x', value: 1 }, /steps\.1\.results\.0\.order/],
 		[{ kind: 'table', label: 't', columns: ['a'], rows: [[{ a: 1 }]] }, /steps\.1\.results\.0\.rows\.0\.0/],
 		[{ kind: 'table', label: 't', columns: ['a'], rows: [], plot: { x: 'a', hook: { a: { b: 1 } } } }, /steps\.1\.results\.0\.plot\.hook/],
-		[{ kind: 'table', label: 't', columns: ['a'], rows: [], download: { format: 'exe', filename: 'x' } }, /steps\.1\.results\.0\.download\.format/],
+		[
+			{ kind: 'table', label: 't', columns: ['a'], rows: [], download: { format: 'exe', filename: 'x' } },
+			/steps\.1\.results\.0\.download\.format/
+		],
 		[{ kind: 'series', label: 's', terms: [{ k: 1, coeff: 1 }], latex: '' }, /steps\.1\.results\.0\.terms\.0\.latex/],
 		[{ kind: 'check', label: 'c', pass: 'yes', lhs: 1, rhs: 1, residual: 0, tolerance: 0 }, /steps\.1\.results\.0\.pass/],
 		[{ kind: 'note' }, /steps\.1\.results\.0\.text/]
@@ -129,7 +148,11 @@ describe('state', () => {
 	});
 
 	it('keeps a recorded step error with its code, and refuses one without a message', () => {
-		const failed = { status: 'error', results: null, error: { message: 'expected a value', start: 8, end: 8, code: 'language', hint: 'h' } };
+		const failed = {
+			status: 'error',
+			results: null,
+			error: { message: 'expected a value', start: 8, end: 8, code: 'language', hint: 'h' }
+		};
 		expect(parsePadDocument(doc({ steps: [step(1, failed)] })).ok).toBe(true);
 		expect(refusal(doc({ steps: [step(1, { ...failed, error: { start: 0 } })] }))).toMatch(/step 1, steps\.0\.error\.message/);
 	});

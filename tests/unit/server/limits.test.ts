@@ -38,7 +38,10 @@ describe('failure counter', () => {
 
 describe('sign-up policy', () => {
 	it('normalises domains and refuses a domain list that is empty or malformed', () => {
-		expect(signupPolicySchema.parse({ mode: 'domains', domains: [' @Physics.Example.EDU '] })).toEqual({ mode: 'domains', domains: ['physics.example.edu'] });
+		expect(signupPolicySchema.parse({ mode: 'domains', domains: [' @Physics.Example.EDU '] })).toEqual({
+			mode: 'domains',
+			domains: ['physics.example.edu']
+		});
 		expect(signupPolicySchema.parse({ mode: 'open' })).toEqual({ mode: 'open', domains: [] });
 		expect(signupPolicySchema.safeParse({ mode: 'domains', domains: [] }).success).toBe(false);
 		expect(signupPolicySchema.safeParse({ mode: 'domains', domains: ['no spaces.example'] }).success).toBe(false);

@@ -4,7 +4,13 @@ import { confirmMessage, inviteMessage, resetMessage } from '../../../src/lib/se
 import { LINK_WITHHELD, redactSecrets } from '../../../src/lib/server/mail/send';
 
 describe('invitation', () => {
-	const base = { to: 'ref@uni.test', inviter: 'Inès Cardoso', title: 'Boosted brane', acceptUrl: 'https://pad.test/invite/tok123', validDays: 14 };
+	const base = {
+		to: 'ref@uni.test',
+		inviter: 'Inès Cardoso',
+		title: 'Boosted brane',
+		acceptUrl: 'https://pad.test/invite/tok123',
+		validDays: 14
+	};
 
 	it('carries the single-use link, how long it works, and marks it secret', () => {
 		const m = inviteMessage(base);

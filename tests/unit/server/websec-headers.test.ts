@@ -51,6 +51,9 @@ describe('judgeWrite', () => {
 
 	it('says 415 and what to send for a bare write, 403 for a foreign form', () => {
 		expect(judgeWrite(req('POST'), url)).toMatchObject({ ok: false, status: 415, message: expect.stringMatching(/application\/json/) });
-		expect(judgeWrite(req('POST', { 'content-type': 'text/plain', origin: 'http://evil.test' }), url)).toMatchObject({ ok: false, status: 403 });
+		expect(judgeWrite(req('POST', { 'content-type': 'text/plain', origin: 'http://evil.test' }), url)).toMatchObject({
+			ok: false,
+			status: 403
+		});
 	});
 });

@@ -6,7 +6,10 @@
 export interface ApiAnswer<T = Record<string, unknown>> {
 	status: number;
 	ok: boolean;
-	body: T & { ok?: boolean; error?: { message: string; line?: number; row?: number; column?: string; start?: number; end?: number; hint?: string } };
+	body: T & {
+		ok?: boolean;
+		error?: { message: string; line?: number; row?: number; column?: string; start?: number; end?: number; hint?: string };
+	};
 }
 
 export async function callApi<T = Record<string, unknown>>(method: string, url: string, body?: unknown): Promise<ApiAnswer<T>> {
@@ -21,7 +24,11 @@ export async function callApi<T = Record<string, unknown>>(method: string, url: 
 	try {
 		r = await fetch(url, init);
 	} catch {
-		return { status: 0, ok: false, body: { ok: false, error: { message: 'The server could not be reached; try again.' } } as ApiAnswer<T>['body'] };
+		return {
+			status: 0,
+			ok: false,
+			body: { ok: false, error: { message: 'The server could not be reached; try again.' } } as ApiAnswer<T>['body']
+		};
 	}
 	let parsed: unknown;
 	try {

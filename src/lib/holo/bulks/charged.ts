@@ -28,7 +28,11 @@ export function makeCharged(params: Record<string, number | string>): Bulk {
 	const q = readNumber(params, 'q', 0);
 	const q2 = q * q;
 	if (d === 2 && q !== 0) {
-		throw new HoloError('charged needs d ≥ 3 for q ≠ 0: at d = 2 this family is plain BTZ (the charge drops out of f)', 'q', 'use q=0, or d ≥ 3');
+		throw new HoloError(
+			'charged needs d ≥ 3 for q ≠ 0: at d = 2 this family is plain BTZ (the charge drops out of f)',
+			'q',
+			'use q=0, or d ≥ 3'
+		);
 	}
 	if (d > 2 && !(q2 < d / (d - 2))) {
 		throw new HoloError(`q² must be below d/(d−2) = ${d / (d - 2)} (non-extremal)`, 'q', `got q=${q}`);

@@ -36,7 +36,11 @@ export interface DpParams {
 /** Exponents of the reduced functional: a (z^{−a}), ν (f = 1 − (z/zh)^ν) and d_eff = a + 1. */
 export function dpExponents(p: number): { a: number; nu: number; deff: number } {
 	if (!Number.isInteger(p) || p < 1 || p > 4) {
-		throw new HoloError('dp needs p = 1, 2, 3 or 4', 'p', p === 5 || p === 6 ? 'for p = 5, 6 the thermal part of the area diverges with the cutoff' : undefined);
+		throw new HoloError(
+			'dp needs p = 1, 2, 3 or 4',
+			'p',
+			p === 5 || p === 6 ? 'for p = 5, 6 the thermal part of the area diverges with the cutoff' : undefined
+		);
 	}
 	const a = (9 - p) / (5 - p);
 	return { a, nu: (2 * (7 - p)) / (5 - p), deff: a + 1 };

@@ -29,7 +29,8 @@ export interface SolitonParams {
 }
 
 function readParams(params: Record<string, number | string>): SolitonParams {
-	for (const k of Object.keys(params)) if (k !== 'd' && k !== 'z0') throw new HoloError(`soliton has no key '${k}'`, k, 'soliton keys: d, z0');
+	for (const k of Object.keys(params))
+		if (k !== 'd' && k !== 'z0') throw new HoloError(`soliton has no key '${k}'`, k, 'soliton keys: d, z0');
 	const d = params.d === undefined ? 4 : Number(params.d);
 	const z0 = params.z0 === undefined ? 1 : Number(params.z0);
 	if (!Number.isInteger(d) || d < 3 || d > 10) throw new HoloError('soliton needs an integer d with 3 ≤ d ≤ 10', 'd');
@@ -123,7 +124,8 @@ export function solitonMaxWidth(P: SolitonParams): { lmax: number; zstar: number
 export function solitonZstar(P: SolitonParams, l: number): number {
 	const { lmax, zstar } = solitonMaxWidth(P);
 	if (!(l > 0)) throw new HoloError('l must be > 0', 'l');
-	if (l > lmax) throw new HoloError(`no connected surface for l > l_max = ${lmax}`, 'l', 'the disconnected surface is the RT surface there');
+	if (l > lmax)
+		throw new HoloError(`no connected surface for l > l_max = ${lmax}`, 'l', 'the disconnected surface is the RT surface there');
 	const slice = sliceOf(P);
 	const xmax = Math.log(zstar / (P.z0 - zstar));
 	const g = (x: number) => widthAt(slice, point(P.z0, x)) - l;
@@ -145,7 +147,9 @@ export function solitonArea(P: SolitonParams, l: number): SolitonArea {
 	const { lmax } = solitonMaxWidth(P);
 	if (l > lmax) return { areaFinite: dis, phase: 'disconnected', disconnected: dis };
 	const con = solitonConnectedArea(P, solitonZstar(P, l));
-	return con < dis ? { areaFinite: con, phase: 'connected', connected: con, disconnected: dis } : { areaFinite: dis, phase: 'disconnected', connected: con, disconnected: dis };
+	return con < dis
+		? { areaFinite: con, phase: 'connected', connected: con, disconnected: dis }
+		: { areaFinite: dis, phase: 'disconnected', connected: con, disconnected: dis };
 }
 
 /** Critical width where the connected and disconnected surfaces have equal area. */
@@ -209,11 +213,20 @@ export interface SolitonSurface {
 export function solitonSurface(P: SolitonParams, l: number, choice: SolitonPhaseChoice = 'rt'): SolitonSurface {
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const rt = solitonArea(P, l);
-	const disconnected: SolitonSurface = { phase: 'disconnected', minimal: rt.phase === 'disconnected', areaFinite: rt.disconnected, zstar: P.z0 };
+	const disconnected: SolitonSurface = {
+		phase: 'disconnected',
+		minimal: rt.phase === 'disconnected',
+		areaFinite: rt.disconnected,
+		zstar: P.z0
+	};
 	if (choice === 'disconnected' || (choice === 'rt' && rt.phase === 'disconnected')) return disconnected;
 	if (rt.connected === undefined) {
 		const { lmax } = solitonMaxWidth(P);
-		throw new HoloError(`no connected surface for l > l_max = ${Number(lmax.toPrecision(6))}`, 'l', 'the disconnected surface is the RT surface there: use phase=rt or phase=disconnected');
+		throw new HoloError(
+			`no connected surface for l > l_max = ${Number(lmax.toPrecision(6))}`,
+			'l',
+			'the disconnected surface is the RT surface there: use phase=rt or phase=disconnected'
+		);
 	}
 	return { phase: 'connected', minimal: rt.phase === 'connected', areaFinite: rt.connected, zstar: solitonZstar(P, l) };
 }

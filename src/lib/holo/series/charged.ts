@@ -50,7 +50,6 @@ function binom(a: number, k: number): number {
 	return r;
 }
 
-
 const isZero = (p: Poly) => p.every((x) => x === 0);
 
 /** p_K(q²) for K = 0…M (index K), degree ≤ N. */

@@ -50,7 +50,14 @@ function exactCharged(d: number, n: number): Map<number, Term[]> {
 		normalize(c);
 		const p = d - 2 - K;
 		const cw = p >= 0 ? fraction(w0.c.num ** BigInt(p), w0.c.den ** BigInt(p)) : fraction(w0.c.den ** BigInt(-p), w0.c.num ** BigInt(-p));
-		out.set(K, terms(c, ratMul(cw, rat(2, K)), w0.e.map((x) => x * p)));
+		out.set(
+			K,
+			terms(
+				c,
+				ratMul(cw, rat(2, K)),
+				w0.e.map((x) => x * p)
+			)
+		);
 	}
 	return out;
 }

@@ -1,5 +1,18 @@
 import { fraction } from './btz';
-import { addProduct, invertMonomial, monomial, normalize, rat, ratMul, scale, terms, zero, type Fraction, type LPoly, type Term } from './laurent';
+import {
+	addProduct,
+	invertMonomial,
+	monomial,
+	normalize,
+	rat,
+	ratMul,
+	scale,
+	terms,
+	zero,
+	type Fraction,
+	type LPoly,
+	type Term
+} from './laurent';
 
 /**
  * Exact series coefficients a_k(κ) for d ≥ 3: the computation of `coeffs.ts` (same expansion, same Lagrange
@@ -171,8 +184,13 @@ export function exactSeries(d: number, n: number, kind: ExactKind): ExactSeries 
 		normalize(c);
 		const p = d - 2 - d * k;
 		const cw = p >= 0 ? fraction(w0.c.num ** BigInt(p), w0.c.den ** BigInt(p)) : fraction(w0.c.den ** BigInt(-p), w0.c.num ** BigInt(-p));
-		a.push(terms(c, ratMul(cw, rat(2, k)), w0.e.map((x) => x * p)));
+		a.push(
+			terms(
+				c,
+				ratMul(cw, rat(2, k)),
+				w0.e.map((x) => x * p)
+			)
+		);
 	}
 	return { d, m, a };
 }
-

@@ -78,7 +78,10 @@ export function radiusFromGrowth(powers: number[], c: number[], w: number): numb
 			if (best) env.push(best);
 		}
 		if (env.length < 3) return Infinity;
-		const fit = leastSquares(env.map((p) => [1, p.K, Math.log(p.K)]), env.map((p) => p.y));
+		const fit = leastSquares(
+			env.map((p) => [1, p.K, Math.log(p.K)]),
+			env.map((p) => p.y)
+		);
 		if (!fit) return Infinity;
 		lnR = -fit[1];
 	}
@@ -88,7 +91,9 @@ export function radiusFromGrowth(powers: number[], c: number[], w: number): numb
 /** Least squares by the normal equations (3 unknowns, well-separated columns). */
 function leastSquares(X: number[][], y: number[]): number[] | undefined {
 	const n = X[0].length;
-	const A = Array.from({ length: n }, (_, i) => Array.from({ length: n + 1 }, (_, j) => (j < n ? X.reduce((s, r) => s + r[i] * r[j], 0) : X.reduce((s, r, k) => s + r[i] * y[k], 0))));
+	const A = Array.from({ length: n }, (_, i) =>
+		Array.from({ length: n + 1 }, (_, j) => (j < n ? X.reduce((s, r) => s + r[i] * r[j], 0) : X.reduce((s, r, k) => s + r[i] * y[k], 0)))
+	);
 	for (let i = 0; i < n; i++) {
 		let piv = i;
 		for (let r = i + 1; r < n; r++) if (Math.abs(A[r][i]) > Math.abs(A[piv][i])) piv = r;

@@ -84,7 +84,11 @@ export async function checkCredentials(input: z.infer<typeof signInSchema>, clie
 
 /** Sets a new password; every session and every key of the account ends (they were opened with the old one). */
 export async function setPassword(userId: string, password: string) {
-	getDb().update(schema.users).set({ passwordHash: await hashPassword(password) }).where(eq(schema.users.id, userId)).run();
+	getDb()
+		.update(schema.users)
+		.set({ passwordHash: await hashPassword(password) })
+		.where(eq(schema.users.id, userId))
+		.run();
 	endEverySessionAndKey(userId);
 }
 

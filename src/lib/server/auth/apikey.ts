@@ -13,7 +13,10 @@ export function createApiKey(userId: string, label: string): { id: string; key: 
 	const key = PREFIX + randomBytes(24).toString('base64url');
 	const id = randomBytes(10).toString('hex');
 	const prefix = key.slice(0, 10);
-	getDb().insert(schema.apiKeys).values({ id, userId, label, hash: hashKey(key), prefix }).run();
+	getDb()
+		.insert(schema.apiKeys)
+		.values({ id, userId, label, hash: hashKey(key), prefix })
+		.run();
 	return { id, key, prefix };
 }
 

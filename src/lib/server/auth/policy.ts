@@ -49,6 +49,7 @@ export function checkSignupAllowed(email: string, invited: boolean): void {
 	if (policy.mode === 'open') return;
 	const domain = email.slice(email.lastIndexOf('@') + 1);
 	if (policy.mode === 'domains' && policy.domains.includes(domain)) return;
-	if (policy.mode === 'domains') failure(403, `Accounts are open to addresses at ${policy.domains.join(', ')}; otherwise ask for an invitation.`);
+	if (policy.mode === 'domains')
+		failure(403, `Accounts are open to addresses at ${policy.domains.join(', ')}; otherwise ask for an invitation.`);
 	failure(403, 'Accounts are by invitation only: open the link of an invitation you received.');
 }

@@ -22,7 +22,11 @@ export async function startSession(cookies: Cookies, userId: string, userAgent =
 	const lucia = getLucia();
 	const token = newToken();
 	const now = new Date();
-	await lucia.createSession(userId, { createdAt: now, lastSeenAt: now, userAgent: userAgent.slice(0, 200) }, { sessionId: hashToken(token) });
+	await lucia.createSession(
+		userId,
+		{ createdAt: now, lastSeenAt: now, userAgent: userAgent.slice(0, 200) },
+		{ sessionId: hashToken(token) }
+	);
 	setCookie(cookies, lucia.createSessionCookie(token));
 }
 
@@ -71,7 +75,10 @@ export function listSessions(userId: string, currentId: string | undefined) {
 
 /** Ends one of the user's sessions by its id (the hash; the token is never known here). */
 export function revokeSession(userId: string, id: string): void {
-	const gone = getDb().delete(schema.sessions).where(and(eq(schema.sessions.id, id), eq(schema.sessions.userId, userId))).run();
+	const gone = getDb()
+		.delete(schema.sessions)
+		.where(and(eq(schema.sessions.id, id), eq(schema.sessions.userId, userId)))
+		.run();
 	if (gone.changes === 0) failure(404, 'No such session.');
 }
 

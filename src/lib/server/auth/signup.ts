@@ -37,11 +37,18 @@ async function mailConfirmation(user: { id: string; email: string; name: string 
 	db.insert(schema.emailConfirmations)
 		.values({ tokenHash: hashToken(token), userId: user.id, inviteId, expiresAt: new Date(Date.now() + VALID_HOURS * 3_600_000), outboxId })
 		.run();
-	return sendMail(confirmMessage({ to: user.email, name: user.name, link: `${env.origin}/confirm/${token}`, validHours: VALID_HOURS }), outboxId);
+	return sendMail(
+		confirmMessage({ to: user.email, name: user.name, link: `${env.origin}/confirm/${token}`, validHours: VALID_HOURS }),
+		outboxId
+	);
 }
 
 function liveConfirmation(token: string) {
-	const row = getDb().select().from(schema.emailConfirmations).where(eq(schema.emailConfirmations.tokenHash, hashToken(token))).get();
+	const row = getDb()
+		.select()
+		.from(schema.emailConfirmations)
+		.where(eq(schema.emailConfirmations.tokenHash, hashToken(token)))
+		.get();
 	return row && row.expiresAt.getTime() > Date.now() && wasSent(row.outboxId) ? row : null;
 }
 

@@ -33,7 +33,9 @@ export function checkDatabaseFile(file: string): string | null {
 		db = new Database(file, { readonly: true, fileMustExist: true });
 		const problems = (db.pragma('integrity_check') as { integrity_check: string }[]).map((r) => r.integrity_check);
 		if (problems.length !== 1 || problems[0] !== 'ok') return `integrity_check failed: ${problems.slice(0, 3).join('; ')}`;
-		const tables = new Set((db.prepare("SELECT name FROM sqlite_master WHERE type = 'table'").all() as { name: string }[]).map((t) => t.name));
+		const tables = new Set(
+			(db.prepare("SELECT name FROM sqlite_master WHERE type = 'table'").all() as { name: string }[]).map((t) => t.name)
+		);
 		const missing = REQUIRED_TABLES.filter((t) => !tables.has(t));
 		if (missing.length) return `not a Bulkpad database (no table ${missing.join(', ')})`;
 		return null;

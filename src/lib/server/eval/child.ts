@@ -27,7 +27,7 @@ function testHook(input: string): EvalAnswer | undefined {
 		for (;;) hoard.push(new Array(1 << 20).fill(Math.random()));
 	}
 	// bounded, so an orphan (a server killed with SIGKILL cannot kill its evaluators) still ends by itself
-	if (what === 'spin') for (const end = Date.now() + 120_000; Date.now() < end; );
+	if (what === 'spin') for (const end = Date.now() + 120_000; Date.now() < end;);
 	return undefined;
 }
 

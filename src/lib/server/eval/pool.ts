@@ -129,7 +129,10 @@ export class ProcessPool {
 			try {
 				message = { type: 'run', id, input: job.input, ctx: job.ctx, ...this.datasetsFor(slot, job) };
 			} catch (e) {
-				this.finish(slot, { ok: false, error: { message: `internal error: ${(e as Error).message}`, start: 0, end: job.input.length, code: 'internal' } });
+				this.finish(slot, {
+					ok: false,
+					error: { message: `internal error: ${(e as Error).message}`, start: 0, end: job.input.length, code: 'internal' }
+				});
 				return;
 			}
 			slot.child.send(message, (err) => {

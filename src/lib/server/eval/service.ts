@@ -35,7 +35,10 @@ function reply(q: QueueAnswer, ms: number, step?: { id: string; n: number }, bul
 	// waiting and running are reported apart: a line never pays for the queue in its own budget
 	const timing = { ms, queuedMs: Math.round(q.waitMs), runMs: Math.round(q.runMs) };
 	if (answer.ok) {
-		return { status: 200, body: { ok: true, step, bulk: answer.outcome.bulk, units: answer.outcome.units, ...timing, results: answer.outcome.results } };
+		return {
+			status: 200,
+			body: { ok: true, step, bulk: answer.outcome.bulk, units: answer.outcome.units, ...timing, results: answer.outcome.results }
+		};
 	}
 	const status = STATUS[answer.error.code] ?? 500;
 	const headers = answer.error.retryAfter ? { 'retry-after': String(answer.error.retryAfter) } : undefined;
@@ -47,7 +50,12 @@ function tooLong(input: string): QueueAnswer | undefined {
 	return {
 		answer: {
 			ok: false,
-			error: { message: `input is ${input.length} characters; the limit is ${MAX_INPUT}`, start: MAX_INPUT, end: input.length, code: 'limit' }
+			error: {
+				message: `input is ${input.length} characters; the limit is ${MAX_INPUT}`,
+				start: MAX_INPUT,
+				end: input.length,
+				code: 'limit'
+			}
 		},
 		runMs: 0,
 		waitMs: 0
@@ -173,6 +181,13 @@ export function markDrift(steps: StepRow[], fresh: FreshStep[]): ReplayedStep[] 
 			};
 		}
 		const recordedMessage = s.status === 'error' ? (s.error as { message?: string } | null)?.message : undefined;
-		return { n: s.n, input: s.input, drift: recordedMessage !== answer.error.message, delta: null, error: answer.error, recordedError: s.error };
+		return {
+			n: s.n,
+			input: s.input,
+			drift: recordedMessage !== answer.error.message,
+			delta: null,
+			error: answer.error,
+			recordedError: s.error
+		};
 	});
 }

@@ -32,7 +32,11 @@ export function importPad(user: AppUser, doc: PadDocument): PadRow {
 					input: s.input,
 					status: pending ? 'error' : s.status,
 					results: s.status === 'ok' ? s.results : null,
-					error: pending ? { message: 'was still being evaluated when the pad was exported', start: 0, end: s.input.length } : s.status === 'error' ? s.error : null,
+					error: pending
+						? { message: 'was still being evaluated when the pad was exported', start: 0, end: s.input.length }
+						: s.status === 'error'
+							? s.error
+							: null,
 					ref: s.status === 'ok' ? (s.ref ?? null) : null,
 					bulkBefore: s.bulkBefore ?? null
 				})

@@ -9,18 +9,74 @@ type Result = NonNullable<PadDocument['steps'][number]['results']>[number];
 
 /** pdfLaTeX's inputenc knows Latin accents but not these; everything else outside Latin-1 becomes `?`. */
 const UNICODE: Record<string, string> = {
-	Δ: '$\\Delta$', δ: '$\\delta$', Γ: '$\\Gamma$', γ: '$\\gamma$', μ: '$\\mu$', π: '$\\pi$', Σ: '$\\Sigma$', σ: '$\\sigma$',
-	α: '$\\alpha$', β: '$\\beta$', ε: '$\\epsilon$', ζ: '$\\zeta$', θ: '$\\theta$', λ: '$\\lambda$', ν: '$\\nu$', ρ: '$\\rho$',
-	τ: '$\\tau$', φ: '$\\phi$', χ: '$\\chi$', ψ: '$\\psi$', ω: '$\\omega$', Ω: '$\\Omega$', ℓ: '$\\ell$', '∞': '$\\infty$',
-	'≈': '$\\approx$', '≤': '$\\leq$', '≥': '$\\geq$', '≠': '$\\neq$', '±': '$\\pm$', '×': '$\\times$', '·': '$\\cdot$',
-	'−': '$-$', '→': '$\\to$', '∂': '$\\partial$', '√': '$\\surd$', '∴': '$\\therefore$', '²': '$^2$', '³': '$^3$', '⁴': '$^4$',
-	'₀': '$_0$', '₁': '$_1$', '₂': '$_2$', '₃': '$_3$', '—': '---', '–': '--', '…': '\\ldots{}', '‘': '`', '’': "'", '“': '``', '”': "''",
-	'⚠': '(!)', '✓': '(ok)'
+	Δ: '$\\Delta$',
+	δ: '$\\delta$',
+	Γ: '$\\Gamma$',
+	γ: '$\\gamma$',
+	μ: '$\\mu$',
+	π: '$\\pi$',
+	Σ: '$\\Sigma$',
+	σ: '$\\sigma$',
+	α: '$\\alpha$',
+	β: '$\\beta$',
+	ε: '$\\epsilon$',
+	ζ: '$\\zeta$',
+	θ: '$\\theta$',
+	λ: '$\\lambda$',
+	ν: '$\\nu$',
+	ρ: '$\\rho$',
+	τ: '$\\tau$',
+	φ: '$\\phi$',
+	χ: '$\\chi$',
+	ψ: '$\\psi$',
+	ω: '$\\omega$',
+	Ω: '$\\Omega$',
+	ℓ: '$\\ell$',
+	'∞': '$\\infty$',
+	'≈': '$\\approx$',
+	'≤': '$\\leq$',
+	'≥': '$\\geq$',
+	'≠': '$\\neq$',
+	'±': '$\\pm$',
+	'×': '$\\times$',
+	'·': '$\\cdot$',
+	'−': '$-$',
+	'→': '$\\to$',
+	'∂': '$\\partial$',
+	'√': '$\\surd$',
+	'∴': '$\\therefore$',
+	'²': '$^2$',
+	'³': '$^3$',
+	'⁴': '$^4$',
+	'₀': '$_0$',
+	'₁': '$_1$',
+	'₂': '$_2$',
+	'₃': '$_3$',
+	'—': '---',
+	'–': '--',
+	'…': '\\ldots{}',
+	'‘': '`',
+	'’': "'",
+	'“': '``',
+	'”': "''",
+	'⚠': '(!)',
+	'✓': '(ok)'
 };
 
 const SPECIAL: Record<string, string> = {
-	'\\': '\\textbackslash{}', '{': '\\{', '}': '\\}', $: '\\$', '&': '\\&', '#': '\\#', '^': '\\^{}', _: '\\_', '%': '\\%',
-	'~': '\\textasciitilde{}', '<': '\\textless{}', '>': '\\textgreater{}', '|': '\\textbar{}'
+	'\\': '\\textbackslash{}',
+	'{': '\\{',
+	'}': '\\}',
+	$: '\\$',
+	'&': '\\&',
+	'#': '\\#',
+	'^': '\\^{}',
+	_: '\\_',
+	'%': '\\%',
+	'~': '\\textasciitilde{}',
+	'<': '\\textless{}',
+	'>': '\\textgreater{}',
+	'|': '\\textbar{}'
 };
 
 /** Any text into LaTeX text mode: specials escaped, known Unicode mapped, the rest replaced. */
@@ -63,7 +119,13 @@ function tabular(columns: string[], rows: (number | string | null)[][]): string[
 	const spec = columns.map(() => 'r').join('');
 	for (let i = 0; i < Math.max(rows.length, 1); i += 40) {
 		out.push('\\begin{center}\\small', `\\begin{tabular}{${spec}}`, '\\hline', columns.map(texText).join(' & ') + ' \\\\', '\\hline');
-		for (const row of rows.slice(i, i + 40)) out.push(row.slice(0, columns.length).map((v) => (typeof v === 'string' ? texText(v) : n(v))).join(' & ') + ' \\\\');
+		for (const row of rows.slice(i, i + 40))
+			out.push(
+				row
+					.slice(0, columns.length)
+					.map((v) => (typeof v === 'string' ? texText(v) : n(v)))
+					.join(' & ') + ' \\\\'
+			);
 		out.push('\\hline', '\\end{tabular}', '\\end{center}');
 	}
 	return out;
@@ -72,10 +134,16 @@ function tabular(columns: string[], rows: (number | string | null)[][]): string[
 function renderResult(r: Result): string[] {
 	switch (r.kind) {
 		case 'scalar':
-			return [`\\item \\textbf{${texText(r.label)}} $=$ ${n(r.value)}${r.unit ? ' ' + texText(r.unit) : ''} (${texText(orderText(r.order))})`, ...warnLine(r.warning), ...display(r.latex)];
+			return [
+				`\\item \\textbf{${texText(r.label)}} $=$ ${n(r.value)}${r.unit ? ' ' + texText(r.unit) : ''} (${texText(orderText(r.order))})`,
+				...warnLine(r.warning),
+				...display(r.latex)
+			];
 		case 'record':
 			return [
-				`\\item \\textbf{${texText(r.label)}}: ${Object.entries(r.fields).map(([k, v]) => `${texText(k)} $=$ ${n(v)}`).join(', ')}`,
+				`\\item \\textbf{${texText(r.label)}}: ${Object.entries(r.fields)
+					.map(([k, v]) => `${texText(k)} $=$ ${n(v)}`)
+					.join(', ')}`,
 				...warnLine(r.warning),
 				...display(r.latex)
 			];
@@ -110,7 +178,10 @@ export function renderLatex(doc: PadDocument, meta: { owner?: string; exportedAt
 	];
 	for (const s of doc.steps) {
 		out.push('', `\\subsection*{Step \\#${s.n}}`, '\\begin{verbatim}', verbatimLine(s.input), '\\end{verbatim}');
-		const items = s.status === 'ok' ? (s.results ?? []).flatMap(renderResult) : [`\\item ${s.status === 'error' ? 'Error: ' + texText(s.error?.message ?? 'unknown') : 'Not evaluated.'}`];
+		const items =
+			s.status === 'ok'
+				? (s.results ?? []).flatMap(renderResult)
+				: [`\\item ${s.status === 'error' ? 'Error: ' + texText(s.error?.message ?? 'unknown') : 'Not evaluated.'}`];
 		if (items.length) out.push('\\begin{itemize}', ...items, '\\end{itemize}');
 	}
 	out.push('', '\\end{document}', '');

@@ -26,11 +26,14 @@ const ENTITIES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;
  * table syntax (backslash escapes), no control characters and no line breaks.
  */
 function inline(text: string): string {
-	return text
-		.replace(/[\r\n]+/g, ' ')
-		.replace(/[\x00-\x1f\x7f]/g, ' ')
-		.replace(/[&<>]/g, (c) => ENTITIES[c])
-		.replace(/([\\`*_[\]|~])/g, '\\$1');
+	return (
+		text
+			.replace(/[\r\n]+/g, ' ')
+			// eslint-disable-next-line no-control-regex -- control characters are what this line removes
+			.replace(/[\x00-\x1f\x7f]/g, ' ')
+			.replace(/[&<>]/g, (c) => ENTITIES[c])
+			.replace(/([\\`*_[\]|~])/g, '\\$1')
+	);
 }
 
 function cell(v: unknown): string {
@@ -52,10 +55,16 @@ function mathBlock(latex: string | undefined): string[] {
 function renderResult(r: Results[number]): string[] {
 	switch (r.kind) {
 		case 'scalar':
-			return [`- **${inline(r.label)}** = ${cell(r.value)}${r.unit ? ' ' + inline(r.unit) : ''} (${inline(orderText(r.order))})`, ...mathBlock(r.latex), ...warn(r.warning)];
+			return [
+				`- **${inline(r.label)}** = ${cell(r.value)}${r.unit ? ' ' + inline(r.unit) : ''} (${inline(orderText(r.order))})`,
+				...mathBlock(r.latex),
+				...warn(r.warning)
+			];
 		case 'record':
 			return [
-				`- **${inline(r.label)}**: ${Object.entries(r.fields).map(([k, v]) => `${inline(k)} = ${cell(v)}`).join(', ')}`,
+				`- **${inline(r.label)}**: ${Object.entries(r.fields)
+					.map(([k, v]) => `${inline(k)} = ${cell(v)}`)
+					.join(', ')}`,
 				...mathBlock(r.latex),
 				...warn(r.warning)
 			];
@@ -89,7 +98,9 @@ function warn(w: string | undefined): string[] {
 }
 
 function bulkText(bulk: PadDocument['bulk']): string {
-	const params = Object.entries(bulk.params).map(([k, v]) => `${k}=${v}`).join(' ');
+	const params = Object.entries(bulk.params)
+		.map(([k, v]) => `${k}=${v}`)
+		.join(' ');
 	return `${bulk.name}${params ? ' ' + params : ''}`;
 }
 
@@ -97,7 +108,9 @@ function bulkText(bulk: PadDocument['bulk']): string {
 export function renderMarkdown(doc: PadDocument, meta: { owner?: string; exportedAt?: Date } = {}): string {
 	const out: string[] = [`# ${inline(doc.title)}`, ''];
 	const by = meta.owner ? ` by ${inline(meta.owner)}` : '';
-	out.push(`Bulkpad pad${by}; bulk now ${code(bulkText(doc.bulk))}; ${doc.steps.length} steps${meta.exportedAt ? `; exported ${meta.exportedAt.toISOString()}` : ''}.`);
+	out.push(
+		`Bulkpad pad${by}; bulk now ${code(bulkText(doc.bulk))}; ${doc.steps.length} steps${meta.exportedAt ? `; exported ${meta.exportedAt.toISOString()}` : ''}.`
+	);
 	for (const s of doc.steps) {
 		out.push('', `## Step ${s.n}`, '', fenced(s.input, 'bulkpad'), '');
 		if (s.status === 'ok') for (const r of s.results ?? []) out.push(...renderResult(r));

@@ -54,7 +54,7 @@ export function safeMath(latex: string): string | null {
 	const envs: string[] = [];
 	let depth = 0;
 	let delimiters = 0;
-	for (let i = 0; i < src.length; ) {
+	for (let i = 0; i < src.length;) {
 		const ch = src[i];
 		if (ch !== '\\') {
 			if (!PLAIN.test(ch)) return null;

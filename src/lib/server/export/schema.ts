@@ -33,7 +33,16 @@ const shape = <T extends z.ZodRawShape>(fields: T) => z.object(fields).catchall(
 
 /** The result types of src/lib/lang/result.ts, field by field: an allow-list, not a loose bag. */
 export const resultSchema = z.discriminatedUnion('kind', [
-	shape({ kind: z.literal('scalar'), label, value: num, order, unit: z.string().max(100).optional(), latex: latex.optional(), warning, fields: numbers.optional() }),
+	shape({
+		kind: z.literal('scalar'),
+		label,
+		value: num,
+		order,
+		unit: z.string().max(100).optional(),
+		latex: latex.optional(),
+		warning,
+		fields: numbers.optional()
+	}),
 	shape({ kind: z.literal('record'), label, fields: numbers, latex: latex.optional(), warning }),
 	shape({
 		kind: z.literal('table'),
@@ -59,7 +68,17 @@ export const resultSchema = z.discriminatedUnion('kind', [
 		order: order.optional(),
 		warning
 	}),
-	shape({ kind: z.literal('check'), label, pass: z.boolean(), lhs: num, rhs: num, residual: num, tolerance: num, order: order.optional(), warning }),
+	shape({
+		kind: z.literal('check'),
+		label,
+		pass: z.boolean(),
+		lhs: num,
+		rhs: num,
+		residual: num,
+		tolerance: num,
+		order: order.optional(),
+		warning
+	}),
 	shape({ kind: z.literal('note'), text: z.string().max(5000) })
 ]);
 
@@ -137,9 +156,16 @@ export const padDocumentSchema = z
 	})
 	.superRefine((doc, ctx) => {
 		doc.steps.forEach((s, i) => {
-			if (s.n !== i + 1) ctx.addIssue({ code: 'custom', path: ['steps', i, 'n'], message: `steps must be numbered 1, 2, 3, …; found ${s.n} at position ${i + 1}` });
-			if (s.status === 'ok' && !s.results) ctx.addIssue({ code: 'custom', path: ['steps', i, 'results'], message: 'a step with status "ok" needs results' });
-			if (s.status === 'error' && !s.error) ctx.addIssue({ code: 'custom', path: ['steps', i, 'error'], message: 'a step with status "error" needs an error' });
+			if (s.n !== i + 1)
+				ctx.addIssue({
+					code: 'custom',
+					path: ['steps', i, 'n'],
+					message: `steps must be numbered 1, 2, 3, …; found ${s.n} at position ${i + 1}`
+				});
+			if (s.status === 'ok' && !s.results)
+				ctx.addIssue({ code: 'custom', path: ['steps', i, 'results'], message: 'a step with status "ok" needs results' });
+			if (s.status === 'error' && !s.error)
+				ctx.addIssue({ code: 'custom', path: ['steps', i, 'error'], message: 'a step with status "error" needs an error' });
 		});
 	});
 

@@ -66,7 +66,9 @@ export async function sendMail(message: MailMessage, id = newId()): Promise<Outb
 /** Whether a message went out: a token mailed in a message that failed (or never left) opens nothing. */
 export function wasSent(outboxId: string | null): boolean {
 	if (!outboxId) return false;
-	return getDb().select({ status: schema.outbox.status }).from(schema.outbox).where(eq(schema.outbox.id, outboxId)).get()?.status === 'sent';
+	return (
+		getDb().select({ status: schema.outbox.status }).from(schema.outbox).where(eq(schema.outbox.id, outboxId)).get()?.status === 'sent'
+	);
 }
 
 /** The outbox, newest first, for the admin page and GET /api/admin/outbox. */

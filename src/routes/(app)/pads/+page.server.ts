@@ -14,7 +14,10 @@ export const actions: Actions = {
 	default: async (event) => {
 		const user = requireWriter(event);
 		const form = await event.request.formData();
-		const title = String(form.get('title') ?? '').trim().slice(0, 120) || `Pad of ${new Date().toISOString().slice(0, 10)}`;
+		const title =
+			String(form.get('title') ?? '')
+				.trim()
+				.slice(0, 120) || `Pad of ${new Date().toISOString().slice(0, 10)}`;
 		const pad = createPad(user.id, title);
 		redirect(303, `/pads/${pad.id}`);
 	}

@@ -11,7 +11,11 @@ export const load: PageServerLoad = ({ locals, url }) => {
 	const invite = url.searchParams.get('invite') ?? '';
 	const invitation = invite ? describeInvitation(invite) : null;
 	const policy = getSignupPolicy();
-	return { invite: invitation ? invite : '', invitation: invitation && { title: invitation.title, inviter: invitation.inviter, email: invitation.email }, policy };
+	return {
+		invite: invitation ? invite : '',
+		invitation: invitation && { title: invitation.title, inviter: invitation.inviter, email: invitation.email },
+		policy
+	};
 };
 
 export const actions: Actions = {

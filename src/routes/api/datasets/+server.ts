@@ -16,8 +16,7 @@ export const GET = api((event) =>
 /** POST /api/datasets — multipart: `file` (a CSV), optional `name`. */
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
-	const tooBig = () =>
-		failure(413, `The upload is over the limit of ${formatBytes(env.uploadMaxBytes)}.`, { limit: env.uploadMaxBytes });
+	const tooBig = () => failure(413, `The upload is over the limit of ${formatBytes(env.uploadMaxBytes)}.`, { limit: env.uploadMaxBytes });
 	// refuse before reading a byte when the client says up front that it is too big
 	const declared = Number(event.request.headers.get('content-length') ?? NaN);
 	if (Number.isFinite(declared) && declared > env.uploadMaxBytes + MULTIPART_OVERHEAD) tooBig();
@@ -33,7 +32,11 @@ export const POST = api(async (event) => {
 		if ((e as { status?: number }).status === 413) {
 			const serverLimit = Number(/(\d+)(?: bytes)?\.?$/.exec((e as Error).message)?.[1] ?? NaN);
 			if (Number.isFinite(serverLimit) && serverLimit < env.uploadMaxBytes) {
-				failure(413, `The upload is over the server's request limit of ${formatBytes(serverLimit)} (datasets may be up to ${formatBytes(env.uploadMaxBytes)}).`, { limit: serverLimit });
+				failure(
+					413,
+					`The upload is over the server's request limit of ${formatBytes(serverLimit)} (datasets may be up to ${formatBytes(env.uploadMaxBytes)}).`,
+					{ limit: serverLimit }
+				);
 			}
 			tooBig();
 		}

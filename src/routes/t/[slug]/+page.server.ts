@@ -19,8 +19,12 @@ export const actions: Actions = {
 	fork: async ({ params, locals }) => {
 		const user = locals.user;
 		if (!user) redirect(303, `/signin?next=/t/${encodeURIComponent(params.slug)}`);
-		if (user.role !== 'member' && user.role !== 'admin') return fail(403, { message: 'Readers cannot fork; ask an admin to make you a member.' });
-		const pad = forkPad(orPageError(() => findSharedPad(params.slug)), user);
+		if (user.role !== 'member' && user.role !== 'admin')
+			return fail(403, { message: 'Readers cannot fork; ask an admin to make you a member.' });
+		const pad = forkPad(
+			orPageError(() => findSharedPad(params.slug)),
+			user
+		);
 		redirect(303, `/pads/${pad.id}`);
 	}
 };

@@ -5,7 +5,8 @@ import ref from '../../../fixtures/holo/analysis/reference.json';
 
 describe('ball', () => {
 	it('vacuum finite part against a direct mpmath integration minus divergences (fixture); d = 3 gives −2π (Ryu & Takayanagi, JHEP 08 (2006) 045)', () => {
-		for (const r of ref.ball_vacuum) expectRel(`ball vacuum d=${r.d} A_fin`, r.areaFinite, ballVacuumAreaFinite(r.d), 1e-13, 'mpmath fixture');
+		for (const r of ref.ball_vacuum)
+			expectRel(`ball vacuum d=${r.d} A_fin`, r.areaFinite, ballVacuumAreaFinite(r.d), 1e-13, 'mpmath fixture');
 		expectRel('ball vacuum d=3 A_fin', -2 * Math.PI, ballVacuumAreaFinite(3), 1e-15, 'RT 2006');
 	});
 
@@ -26,7 +27,10 @@ describe('ball', () => {
 				return (r.value / r.firstOrder - 1) / Math.pow(R, d);
 			});
 			// the R^d-scaled correction must tend to a constant (second order of the series)
-			expect(c.every((x) => x < 0), `d=${d}: (ΔA/ΔA⁽¹⁾ − 1)/R^d = ${c}`).toBe(true);
+			expect(
+				c.every((x) => x < 0),
+				`d=${d}: (ΔA/ΔA⁽¹⁾ − 1)/R^d = ${c}`
+			).toBe(true);
 			expectRel(`ball d=${d}: (ΔA/ΔA⁽¹⁾ − 1)/R^d at R=0.05 vs R=0.1`, c[1], c[0], 1e-2, 'second-order term dominates');
 		}
 	}, 120_000);

@@ -1,6 +1,15 @@
 import { describe, it, expect } from 'vitest';
 import { makeBulk, deltaArea } from '$lib/holo/index';
-import { solitonCriticalWidth, solitonArea, solitonConnectedArea, solitonDisconnectedArea, solitonZstar, solitonWidth, dpStrip, makeDpBulk } from '$lib/holo/analysis';
+import {
+	solitonCriticalWidth,
+	solitonArea,
+	solitonConnectedArea,
+	solitonDisconnectedArea,
+	solitonZstar,
+	solitonWidth,
+	dpStrip,
+	makeDpBulk
+} from '$lib/holo/analysis';
 import { integrateOde } from '$lib/holo/numeric/ode';
 import { expectRel, expectAbs } from '../check';
 import ref from '../../../fixtures/holo/analysis/reference.json';
@@ -44,7 +53,14 @@ describe('black Dp-brane', () => {
 	});
 
 	it('p = 3 is the d = 4 brane (IMSY: the D3 near-horizon limit is AdS₅ × S⁵)', () => {
-		for (const l of [0.3, 1.5]) expectRel(`dp p=3 l=${l} ΔA vs brane d=4`, deltaArea(makeBulk('brane', { d: 4, zh: 1 }), l), dpStrip({ p: 3, zh: 1 }, l).deltaArea, 1e-12, 'IMSY 1998');
+		for (const l of [0.3, 1.5])
+			expectRel(
+				`dp p=3 l=${l} ΔA vs brane d=4`,
+				deltaArea(makeBulk('brane', { d: 4, zh: 1 }), l),
+				dpStrip({ p: 3, zh: 1 }, l).deltaArea,
+				1e-12,
+				'IMSY 1998'
+			);
 	});
 
 	it('large l: dA_fin/dl → zh^{−a} (entropy density, PHYSICS.md large-l check) and T = ν/(4π zh)', () => {

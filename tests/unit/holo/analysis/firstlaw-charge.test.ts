@@ -27,7 +27,13 @@ describe('charged thermodynamics in our normalisation (derived from the Einstein
 			]) {
 				const a = th(zh + dz, q + dc);
 				const b = th(zh - dz, q - dc);
-				expectRel(`charged d=${d} zh=${zh} q=${q}: de along (${dz}, ${dc})`, t.T * (a.s - b.s) + t.mu! * (a.rho! - b.rho!), a.e - b.e, 1e-7, 'thermodynamic first law');
+				expectRel(
+					`charged d=${d} zh=${zh} q=${q}: de along (${dz}, ${dc})`,
+					t.T * (a.s - b.s) + t.mu! * (a.rho! - b.rho!),
+					a.e - b.e,
+					1e-7,
+					'thermodynamic first law'
+				);
 			}
 		}
 	});

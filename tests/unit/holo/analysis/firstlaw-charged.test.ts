@@ -60,10 +60,23 @@ describe('charged first law, order n', () => {
 				const K = chargedPowers(d, (n + 1) * d).find((p) => p > n * d)!;
 				// against order n+1: the variation of the added terms, led by (l/zh)^K; the next power corrects
 				// the slope by O((l/zh)^{gap}) ≤ 1e−2 at l/zh ≤ 1/20
-				expectAbs(`charged d=${d} q=0.5 l=1 o=${n}: slope of log|residual| vs log(l/zh)`, K, slopeOf(d, n, 'residual', [20, 28, 40]), 0.05, 'derived');
+				expectAbs(
+					`charged d=${d} q=0.5 l=1 o=${n}: slope of log|residual| vs log(l/zh)`,
+					K,
+					slopeOf(d, n, 'residual', [20, 28, 40]),
+					0.05,
+					'derived'
+				);
 				// against the exact ΔS: the same power up to higher orders, at l/zh large enough that the residual
 				// stays above the ~1e−13 accuracy of the exact numerics
-				if (n <= 3) expectAbs(`charged d=${d} q=0.5 l=1 o=${n}: slope of log|residualExact| vs log(l/zh)`, K, slopeOf(d, n, 'residualExact', [4, 5, 6]), 0.25, 'derived; exact numerics');
+				if (n <= 3)
+					expectAbs(
+						`charged d=${d} q=0.5 l=1 o=${n}: slope of log|residualExact| vs log(l/zh)`,
+						K,
+						slopeOf(d, n, 'residualExact', [4, 5, 6]),
+						0.25,
+						'derived; exact numerics'
+					);
 			}
 		}
 	});

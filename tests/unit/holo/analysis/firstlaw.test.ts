@@ -31,7 +31,13 @@ describe('first law, order 1', () => {
 				// … and ΔS⁽¹⁾ is the small-l limit of the exact ΔS: relative difference O((l/zh)^d)
 				const ls = 0.02;
 				const exact = deltaArea(b, ls);
-				expectRel(`boosted d=${d} v=${v} l=${ls}: exact ΔA vs a₁ l²`, a1 * ls * ls, exact, 4 * Math.pow(ls, d) * (1 + d * (b.params.kappa as number)), 'derived; exact numerics');
+				expectRel(
+					`boosted d=${d} v=${v} l=${ls}: exact ΔA vs a₁ l²`,
+					a1 * ls * ls,
+					exact,
+					4 * Math.pow(ls, d) * (1 + d * (b.params.kappa as number)),
+					'derived; exact numerics'
+				);
 			}
 		}
 	});
@@ -45,7 +51,8 @@ describe('first law, exact', () => {
 		const b = makeBulk('boosted', { d, zh: 1, v });
 		const ex = firstLawCoefficients(b, l, 'exact');
 		const kappa = b.params.kappa as number;
-		const A = (w: number, q: number) => deltaArea(makeBulk('boosted', { d, zh: Math.pow(w, -1 / d), v: Math.sqrt(q / w / (1 + q / w)) }), l);
+		const A = (w: number, q: number) =>
+			deltaArea(makeBulk('boosted', { d, zh: Math.pow(w, -1 / d), v: Math.sqrt(q / w / (1 + q / w)) }), l);
 		const fd = (g: (h: number) => number, h: number) => (4 * (g(h / 2) - g(-h / 2)) - (g(h) - g(-h)) / 2) / (3 * h);
 		const Aw = fd((h) => A(1 + h, kappa), 1e-3);
 		const Aq = fd((h) => A(1, kappa + h), 1e-3);
@@ -68,7 +75,13 @@ describe('first law, exact', () => {
 			// α = 4π ∂_zhΔA / ∂_zh(l/zh²) at zh = 1; ∂_zh x = −x
 			const dA = 2 * (1 / x - 1 / Math.tanh(x)) * x;
 			const alpha = (4 * Math.PI * dA) / (-2 * l);
-			expectRel(`brane d=2 l=${l} exact α`, alpha, firstLawCoefficients(makeBulk('brane', { d: 2, zh: 1 }), l, 'exact').alpha, 1e-10, 'BTZ closed form');
+			expectRel(
+				`brane d=2 l=${l} exact α`,
+				alpha,
+				firstLawCoefficients(makeBulk('brane', { d: 2, zh: 1 }), l, 'exact').alpha,
+				1e-10,
+				'BTZ closed form'
+			);
 		}
 	});
 
@@ -116,10 +129,24 @@ describe('first law, order n', () => {
 			return xs.reduce((s, x, i) => s + (x - mx) * (ys[i] - my), 0) / xs.reduce((s, x) => s + (x - mx) ** 2, 0);
 		};
 		// against order n+1: the variation of the (n+1)-th term, a pure power of 1/zh at fixed l
-		for (let n = 1; n <= 4; n++) expectAbs(`boosted d=4 v=0.4 l=1 o=${n}: slope of log|residual| vs log(l/zh)`, (n + 1) * d, slopeOf(n, 'residual', [20, 28, 40]), 1e-6, 'derived');
+		for (let n = 1; n <= 4; n++)
+			expectAbs(
+				`boosted d=4 v=0.4 l=1 o=${n}: slope of log|residual| vs log(l/zh)`,
+				(n + 1) * d,
+				slopeOf(n, 'residual', [20, 28, 40]),
+				1e-6,
+				'derived'
+			);
 		// against the exact ΔS: the same power up to higher orders; l/zh must stay large enough that the
 		// residual (relative size (l/zh)^{nd}) is above the ~1e-13 accuracy of the exact numerics
-		for (let n = 1; n <= 3; n++) expectAbs(`boosted d=4 v=0.4 l=1 o=${n}: slope of log|residualExact| vs log(l/zh)`, (n + 1) * d, slopeOf(n, 'residualExact', [4, 5, 6]), 0.25, 'derived; exact numerics');
+		for (let n = 1; n <= 3; n++)
+			expectAbs(
+				`boosted d=4 v=0.4 l=1 o=${n}: slope of log|residualExact| vs log(l/zh)`,
+				(n + 1) * d,
+				slopeOf(n, 'residualExact', [4, 5, 6]),
+				0.25,
+				'derived; exact numerics'
+			);
 	});
 
 	it('firstLaw reports δΔS, α δΔE + ζ δΔP_y and a vanishing residual for o=exact; G cancels in α, ζ', () => {
@@ -147,6 +174,12 @@ describe('first law, order n', () => {
 		// ρ̂ l = l 2(d−1) q/(g_d zh^{d−1}): ∂_zh at zh = 1 is −(d−1) times it
 		const g = Math.sqrt((d - 1) / (2 * (d - 2)));
 		const dQ = (-(d - 1) * l * 2 * (d - 1) * q) / g;
-		expectRel('charged d=4 q=0.7 l=0.6 exact α, β', 4 * Math.PI * dA, r.alpha * de + r.zeta * dQ, 1e-9, 'finite differences, common practice');
+		expectRel(
+			'charged d=4 q=0.7 l=0.6 exact α, β',
+			4 * Math.PI * dA,
+			r.alpha * de + r.zeta * dQ,
+			1e-9,
+			'finite differences, common practice'
+		);
 	});
 });

@@ -21,7 +21,9 @@ describe('Padé approximants', () => {
 	});
 
 	it('polynomial roots (Aberth–Ehrlich)', () => {
-		const r = polyRoots([-6, 11, -6, 1]).map((z) => z.re).sort();
+		const r = polyRoots([-6, 11, -6, 1])
+			.map((z) => z.re)
+			.sort();
 		[1, 2, 3].forEach((x, i) => expectRel(`root ${x}`, x, r[i], 1e-13, '(x−1)(x−2)(x−3)'));
 		expect(padeApproximant([1, 1, 1, 1], 1, 2)).toBeNull(); // singular Toeplitz system
 	});
@@ -42,7 +44,10 @@ describe('resummation of ΔA and T_ent', () => {
 				const r = resum(b, l, n);
 				const ep = Math.abs(r.value - r.exact);
 				const es = Math.abs(r.series - r.exact);
-				expect(ep < es / 100 && ep < 0.01 * Math.abs(r.exact), `${name} ${JSON.stringify(p)} l=${l} (l_max=${l_max}, radius=${radius}): [${r.L}/${r.M}] err ${ep}, series err ${es}`).toBe(true);
+				expect(
+					ep < es / 100 && ep < 0.01 * Math.abs(r.exact),
+					`${name} ${JSON.stringify(p)} l=${l} (l_max=${l_max}, radius=${radius}): [${r.L}/${r.M}] err ${ep}, series err ${es}`
+				).toBe(true);
 			}
 		}
 	});
@@ -70,7 +75,9 @@ describe('resummation of ΔA and T_ent', () => {
 		const lines: string[] = [];
 		for (const l of [0.5, 1, 1.5, 2, 3]) {
 			const r = resumTent(b, l, 10);
-			lines.push(`l=${l}: exact ${r.exact.toPrecision(5)}, Padé[${r.L}/${r.M}] ${r.value.toPrecision(5)}, plain o=10 ${r.series.toPrecision(5)}, T_H ${TH.toPrecision(5)}`);
+			lines.push(
+				`l=${l}: exact ${r.exact.toPrecision(5)}, Padé[${r.L}/${r.M}] ${r.value.toPrecision(5)}, plain o=10 ${r.series.toPrecision(5)}, T_H ${TH.toPrecision(5)}`
+			);
 		}
 		console.info(lines.join('\n'));
 		const r1 = resumTent(b, 1, 10);

@@ -46,7 +46,10 @@ export const actions: Actions = {
 		const parsed = titleSchema.safeParse(String((await request.formData()).get('title') ?? ''));
 		if (!parsed.success) return fail(400, { message: parsed.error.issues[0].message });
 		const title = parsed.data;
-		renamePad(orPageError(() => findOwnPad(user, params.id)), title);
+		renamePad(
+			orPageError(() => findOwnPad(user, params.id)),
+			title
+		);
 		return { renamed: title };
 	},
 	delete: async ({ locals, params }) => {

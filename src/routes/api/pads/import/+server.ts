@@ -33,7 +33,9 @@ async function uploadedText(request: Request): Promise<string> {
 	const type = request.headers.get('content-type') ?? '';
 	const raw = await readLimited(request);
 	if (!type.startsWith('multipart/form-data')) return raw.toString('utf8');
-	const form = await new Response(new Uint8Array(raw), { headers: { 'content-type': type } }).formData().catch(() => failure(400, 'The form could not be read.'));
+	const form = await new Response(new Uint8Array(raw), { headers: { 'content-type': type } })
+		.formData()
+		.catch(() => failure(400, 'The form could not be read.'));
 	const file = form.get('file');
 	if (!(file instanceof File)) failure(400, 'Attach the pad as the form field "file".');
 	if (file.size > MAX_IMPORT_BYTES) tooBig();
