@@ -14,6 +14,9 @@ declare module 'vitest' {
 		baseUrl: string;
 		mailDir: string;
 		dbFile: string;
+		/** the test server's time budget of one line and of one whole replay (ms) */
+		evalBudgetMs: number;
+		replayBudgetMs: number;
 	}
 }
 
@@ -86,6 +89,8 @@ export default async function setup(project: TestProject) {
 	project.provide('baseUrl', baseUrl);
 	project.provide('mailDir', mailDir);
 	project.provide('dbFile', dbFile);
+	project.provide('evalBudgetMs', Number(env.BULKPAD_EVAL_BUDGET_MS));
+	project.provide('replayBudgetMs', Number(env.BULKPAD_REPLAY_BUDGET_MS));
 
 	return async () => {
 		server.kill('SIGTERM');
