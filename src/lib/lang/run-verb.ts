@@ -132,7 +132,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			tick();
 			results.push({
 				kind: 'scalar',
-				label: `${symbol ?? sym}${tag ?? ''}${argText ? `(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
+				label: `${symbol ?? sym}${tag ?? ''}${argText ? `${tag ? ' ' : ''}(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
 				value,
 				order,
 				latex: texScalar(verb, args, order, value),
