@@ -1,19 +1,11 @@
 // Starts the built app on a free loopback port with a fresh seeded database, for load benches.
 import { spawn, spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, existsSync } from 'node:fs';
-import { createServer } from 'node:net';
+import { freePort } from '../../scripts/free-port.mjs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 
-export function freePort() {
-	return new Promise((resolve) => {
-		const s = createServer();
-		s.listen(0, '127.0.0.1', () => {
-			const { port } = s.address();
-			s.close(() => resolve(port));
-		});
-	});
-}
+export { freePort };
 
 export async function startBuiltServer(extraEnv = {}) {
 	if (!existsSync('build/index.js') || !existsSync('dist/eval-worker.mjs')) throw new Error('build first: npm run build');

@@ -2,12 +2,12 @@
 // server, and the real built app (build/index.js) on a free loopback port.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { startFakeSmtp } from '../../scripts/fake-smtp.mjs';
 import { buildDir } from '../../scripts/out-dirs.mjs';
+import { freePort } from '../../scripts/free-port.mjs';
 
 declare module 'vitest' {
 	export interface ProvidedContext {
@@ -18,17 +18,6 @@ declare module 'vitest' {
 		evalBudgetMs: number;
 		replayBudgetMs: number;
 	}
-}
-
-function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const s = createServer();
-		s.once('error', reject);
-		s.listen(0, '127.0.0.1', () => {
-			const port = (s.address() as { port: number }).port;
-			s.close(() => resolve(port));
-		});
-	});
 }
 
 export default async function setup(project: TestProject) {

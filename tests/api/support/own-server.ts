@@ -1,8 +1,8 @@
 // A built Bulkpad server of a test's own, on a database file the test chooses, so the test may kill it,
 // restart it on the same file, or stop it to restore a backup. The suite's shared server is never touched.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import { buildDir } from '../../../scripts/out-dirs.mjs';
+import { freePort } from '../../../scripts/free-port.mjs';
 
 export interface OwnServer {
 	baseUrl: string;
@@ -11,17 +11,6 @@ export interface OwnServer {
 	log: () => string;
 	/** SIGKILL (no chance to finish anything) or SIGTERM; resolves once the process is gone */
 	stop: (signal: 'SIGKILL' | 'SIGTERM') => Promise<void>;
-}
-
-function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const s = createServer();
-		s.once('error', reject);
-		s.listen(0, '127.0.0.1', () => {
-			const port = (s.address() as { port: number }).port;
-			s.close(() => resolve(port));
-		});
-	});
 }
 
 /** Starts build/index.js on `dbFile` and waits until /api/health answers (a hang guard, not a speed check). */

@@ -3,22 +3,11 @@
 // its own fake SMTP server.
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { startFakeSmtp } from '../../../scripts/fake-smtp.mjs';
 import { buildDir } from '../../../scripts/out-dirs.mjs';
-
-function freePort(): Promise<number> {
-	return new Promise((resolve, reject) => {
-		const s = createServer();
-		s.once('error', reject);
-		s.listen(0, '127.0.0.1', () => {
-			const port = (s.address() as { port: number }).port;
-			s.close(() => resolve(port));
-		});
-	});
-}
+import { freePort } from '../../../scripts/free-port.mjs';
 
 export interface PrivateServer {
 	baseUrl: string;
