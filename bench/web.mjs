@@ -10,6 +10,7 @@ import { chromium } from 'playwright-core';
 import { buildDir } from '../scripts/out-dirs.mjs';
 import { emit, machineLine, median, writeSection } from './lib/results.mjs';
 import { freePort } from './lib/server.mjs';
+import { CHROMIUM, CHROMIUM_ARGS } from '../scripts/chromium-flags.mjs';
 
 const RUNS = Number(process.env.BENCH_RUNS ?? 7);
 const BUDGET_KB = 150;
@@ -27,17 +28,9 @@ const server = spawn(process.execPath, [`${buildDir}/index.js`], {
 	stdio: 'ignore'
 });
 const browser = await chromium.launch({
-	executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+	executablePath: CHROMIUM,
 	headless: true,
-	args: [
-		'--no-sandbox',
-		'--disable-gpu',
-		'--disable-quic',
-		'--no-first-run',
-		'--disable-background-networking',
-		'--disable-component-update',
-		'--disable-sync'
-	]
+	args: CHROMIUM_ARGS
 });
 
 try {

@@ -3,8 +3,9 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { mkdirSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { CHROMIUM, CHROMIUM_ARGS } from '../../scripts/chromium-flags.mjs';
 
-export const CHROMIUM = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
+export { CHROMIUM };
 export const ARTIFACTS = 'tests/artifacts';
 
 export async function launch(viewport = { width: 1280, height: 800 }): Promise<BrowserContext> {
@@ -12,15 +13,7 @@ export async function launch(viewport = { width: 1280, height: 800 }): Promise<B
 		executablePath: CHROMIUM,
 		headless: true,
 		viewport,
-		args: [
-			'--no-sandbox',
-			'--disable-gpu',
-			'--disable-quic',
-			'--no-first-run',
-			'--disable-background-networking',
-			'--disable-component-update',
-			'--disable-sync'
-		]
+		args: CHROMIUM_ARGS
 	});
 	// Playwright's 30 s default for a click, a navigation or a wait is a speed limit on a busy machine; these
 	// only have to catch a hang
