@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { solitonConnectedArea, solitonPhases, solitonSurface, solitonZstar } from '$lib/holo/analysis';
 import { expectRel } from '../check';
 
-// Issue 11, item 5. AdS soliton strip (Nishioka & Takayanagi, JHEP 01 (2007) 090; Klebanov, Kutasov &
+// AdS soliton strip (Nishioka & Takayanagi, JHEP 01 (2007) 090; Klebanov, Kutasov &
 // Murugan 2008 — from memory): connected below l_c, disconnected above; the entanglement's l-derivative jumps.
 
 describe('soliton phases', () => {
