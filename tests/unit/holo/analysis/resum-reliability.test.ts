@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { makeBulk } from '$lib/holo/index';
 import { nearestPole, padeApproximant, resum, resumTent } from '$lib/holo/analysis';
 
-// Issue 11, item 2: a resummed value always comes with its error estimate (neighbouring approximants
+// A resummed value always comes with its error estimate (neighbouring approximants
 // [L−1/M], [L/M−1]; Baker & Graves-Morris, "Padé Approximants", 2nd ed. 1996, common practice) and a warning
 // when that estimate is large, when a pole or a Froissart doublet is in range, or when ΔA < 0.
 
