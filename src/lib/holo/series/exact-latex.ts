@@ -1,6 +1,7 @@
 import { exactSeries, type ExactKind } from './exact';
 import { evaluateTerms, type Fraction, type Term } from './laurent';
 import { beta } from '../special/beta';
+import boostedTable from './boosted-latex.json';
 
 /**
  * Exact a_k as KaTeX: a rational content and a common monomial in front, then the primitive part with
@@ -14,7 +15,8 @@ import { beta } from '../special/beta';
  * Cost of the exact algebra, cold in a fresh process on the 2-core build machine (under a load of ~6):
  * brane and wave to order 14 ≲ 0.1 s for any d; the boosted brane carries κ as well and grows like n⁴ —
  * order 8 ≈ 0.2–0.5 s, order 12 ≈ 0.3–0.7 s (d = 3…10), order 14 above 1 s — so the boosted LaTeX is exact
- * up to order 12 and printed as decimals (with a note) for 13 and 14.
+ * up to order 12 and printed as decimals (with a note) for 13 and 14; its strings to order 12 are precomputed
+ * in boosted-latex.json (scripts/gen-series-latex.ts), so a cold request costs a table lookup.
  */
 export const EXACT_ORDER: Record<ExactKind, number> = { brane: 14, wave: 14, boosted: 12 };
 
@@ -39,8 +41,17 @@ export function exactTerms(d: number, kind: ExactKind, n: number): Term[][] {
 	return e.a.slice(0, n);
 }
 
-/** LaTeX of the exact a_k (cached per (d, kind, k)). */
+/**
+ * LaTeX of the exact a_k: the boosted brane's from the table scripts/gen-series-latex.ts wrote (d = 3…10, k ≤ 12;
+ * cold it would cost 0.1–0.5 s of BigInt algebra per d), everything else computed once and cached per (d, kind, k).
+ */
 export function exactLatex(d: number, kind: ExactKind, k: number): string {
+	const row = kind === 'boosted' ? (boostedTable as Record<string, string[] | undefined>)[d] : undefined;
+	return row?.[k - 1] ?? computeExactLatex(d, kind, k);
+}
+
+/** LaTeX of the exact a_k from the algebra (cached per (d, kind, k)); the table's source. */
+export function computeExactLatex(d: number, kind: ExactKind, k: number): string {
 	exactTerms(d, kind, k);
 	const e = cache.get(`${d}:${kind}`)!;
 	return (e.latex[k - 1] ??= formatTerms(e.a[k - 1], d, kind === 'boosted'));
