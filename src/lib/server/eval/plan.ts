@@ -10,7 +10,7 @@ import type { PadContext } from '../../lang/result';
 /** A list or range of more points than this is a sweep, whatever the verb. */
 const LIGHT_POINTS = 8;
 /** Series orders above this take noticeably longer (exact rationals grow fast). */
-const LIGHT_ORDER = 6;
+export const LIGHT_ORDER = 6;
 
 const WORD = /[a-z][a-z0-9_]*/g;
 

@@ -1,4 +1,5 @@
 import { evaluateLine, type EvalOptions } from './dispatch';
+import { answerFast } from './fast';
 import { driftBetween, DRIFT_TOLERANCE } from './drift';
 import { evalSettings } from './settings';
 import type { QueueAnswer } from './queue';
@@ -62,11 +63,17 @@ function tooLong(input: string): QueueAnswer | undefined {
 	};
 }
 
-/** A line with the default bulk and its own keys; nothing is stored. */
+/**
+ * A line with the default bulk and its own keys; nothing is stored. A single-point strip line of bounded cost is
+ * answered here at once (fast.ts); everything else waits for an evaluation process.
+ */
 export async function evaluateStateless(input: string, ownerId: string, opts: EvalOptions = {}): Promise<EvalReply> {
 	const t0 = performance.now();
+	const long = tooLong(input);
+	const fast = long ? undefined : answerFast(input, { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, macros: {} });
+	if (fast) return reply(fast, performance.now() - t0, undefined, DEFAULT_BULK);
 	const ctx = { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, ...lineLibrary(input) };
-	const answer = tooLong(input) ?? (await evaluateLine(input, ctx, ownerId, ownerId, opts));
+	const answer = long ?? (await evaluateLine(input, ctx, ownerId, ownerId, opts));
 	return reply(answer, performance.now() - t0, undefined, DEFAULT_BULK);
 }
 
