@@ -107,6 +107,59 @@ results.push(
 		{ minRuns: 3, minMs: 0 }
 	)
 );
+results.push({
+	...bench(
+		'exact LaTeX a_1..a_12(κ), cold, one bulk (boosted d=4)',
+		() => {
+			H.clearExactCache();
+			H.clearCoeffCache();
+			H.seriesCoeffs(boosted, 12);
+		},
+		{ minRuns: 3, minMs: 0 }
+	),
+	goal: '≤ 100 ms'
+});
+{
+	// what the table costs once per process: parsing its JSON (the bundle inlines it as a module object)
+	const text = readFileSync(join(root, 'src/lib/holo/series/boosted-latex.json'), 'utf8');
+	results.push({
+		...bench(`boosted LaTeX table: JSON.parse of ${(text.length / 1e6).toFixed(1)} MB (once per process)`, () => JSON.parse(text), {
+			minRuns: 5,
+			minMs: 0
+		}),
+		goal: ''
+	});
+}
+
+// exact balls (ball-shot.ts): one answer, and a sweep continued from point to point
+results.push({ ...bench('exact ball ΔA brane d=4 R=1', () => H.ballDeltaArea(4, 1, 1), { minRuns: 50 }), goal: '≤ 5 ms' });
+const Rs = Array.from({ length: 200 }, (_, i) => 0.1 + (1.9 * i) / 199);
+results.push({
+	...bench('exact ball sweep 200 points R=0.1..2 (brane d=4)', () => H.ballDeltaAreaSweep(4, Rs, 1), { minRuns: 3, minMs: 0 }),
+	goal: '≤ 0.5 s'
+});
+const ballRow = results.at(-2);
+let scipyBall = null;
+try {
+	execFileSync('python3', ['-c', 'import scipy'], { stdio: 'ignore' });
+	const [us, v] = execFileSync('python3', [join(root, 'bench/ball_scipy.py'), '4', '1', '1'], { encoding: 'utf8', timeout: 300000 })
+		.trim()
+		.split(' ');
+	scipyBall = { us: Number(us), value: Number(v.replace(/[^0-9.e+-]/g, '')) };
+	const rel = Math.abs(scipyBall.value / H.ballDeltaArea(4, 1, 1).value - 1);
+	const r = {
+		name: `scipy exact ball ΔA brane d=4 R=1 (solve_ivp DOP853 + brentq, bench/ball_scipy.py; agrees to ${rel.toExponential(1)})`,
+		median_us: Number(scipyBall.us.toFixed(0)),
+		runs: 1,
+		goal: `engine ≥ 20× faster: ×${(scipyBall.us / ballRow.median_us).toFixed(0)}`
+	};
+	console.log(JSON.stringify(r));
+	results.push(r);
+} catch (e) {
+	const r = { name: 'scipy exact ball comparison skipped: python3 with scipy is not available here', median_us: '—', runs: 0, goal: '' };
+	console.error(r.name, e.message.split('\n')[0]);
+	results.push(r);
+}
 
 /**
  * Base against current for the exact ΔA rows: ROUNDS alternating rounds (base first in even rounds, current first
@@ -197,7 +250,7 @@ const lines = [
 	'|---|---|---|---|',
 	...results.map(
 		(r, i) =>
-			`| ${r.name} | ${r.median_us} | ${r.runs} | ${['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`
+			`| ${r.name} | ${r.median_us} | ${r.runs} | ${r.goal ?? ['< 20 µs', '', '', '< 10 ms', '< 10 ms', '< 1 s each', '< 1 s each', ''][i] ?? ''} |`
 	),
 	'',
 	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',

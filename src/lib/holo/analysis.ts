@@ -16,6 +16,7 @@ export {
 	ballLogCoefficient,
 	ballDeltaAreaFirstOrder,
 	ballDeltaArea,
+	ballDeltaAreaSweep,
 	ballTent,
 	ballEnergy,
 	ballTip,
