@@ -1,8 +1,20 @@
 // Load on POST /api/eval with an API key (autocannon, loopback): requests/s and latency for a light line,
 // then the p99 of light lines while heavy sweeps run. Run after `npm run build`.
 import autocannon from 'autocannon';
+import { build } from 'esbuild';
+import { mkdtempSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { apiKeyFor, startBuiltServer } from './lib/server.mjs';
-import { emit, machineLine, writeSection } from './lib/results.mjs';
+import { emit, machineLine, median, writeSection } from './lib/results.mjs';
+
+/** The engine alone (src/lib/holo bundled as bench/engine.mjs does), for the sweep's server/engine ratio. */
+async function loadEngine() {
+	const outfile = join(mkdtempSync(join(tmpdir(), 'bulkpad-bench-')), 'holo.mjs');
+	await build({ entryPoints: ['src/lib/holo/index.ts'], bundle: true, format: 'esm', platform: 'neutral', mainFields: ['module', 'main'], outfile, logLevel: 'error' });
+	return import(pathToFileURL(outfile).href);
+}
 
 const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
 const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000' });
@@ -18,13 +30,40 @@ try {
 			body: JSON.stringify({ input: 'darea l=0.5' }),
 			...extra
 		});
+	const loadBefore = loadavg()[0];
 	await light({ duration: 3 }); // warm the pool and the JIT
+	// the health route on the same server and load, for the light lines' ratio
+	const health = await autocannon({ url: `${server.baseUrl}/api/health`, connections: 50, duration: DURATION });
+	emit({ name: 'GET /api/health, 50 connections', rps: health.requests.average, p50_ms: health.latency.p50 });
 	// one client at a time: the latency of a single request, with no queueing behind others
 	const single = await light({ connections: 1, duration: Math.min(DURATION, 10) });
 	emit({ name: 'eval darea l=0.5, 1 connection', rps: single.requests.average, p50_ms: single.latency.p50, p99_ms: single.latency.p99 });
 	const a = await light();
 	const base = { rps: a.requests.average, p50_ms: a.latency.p50, p99_ms: a.latency.p99, errors: a.errors, non2xx: a.non2xx };
 	emit({ name: 'eval darea l=0.5, 50 connections', ...base });
+
+	// a 2000-point exact strip sweep through the API against the engine's own time for the same points
+	const sweepLine = 'sweep darea l=0.05..1.2:2000';
+	const H = await loadEngine();
+	const brane = H.makeBulk('brane', { d: 4, zh: 1 });
+	const ls = Array.from({ length: 2000 }, (_, i) => 0.05 + (1.15 * i) / 1999);
+	const engineMs = [];
+	const serverMs = [];
+	for (let k = 0; k < 7; k++) {
+		const t0 = performance.now();
+		for (const l of ls) H.deltaArea(brane, l);
+		engineMs.push(performance.now() - t0);
+		const r = await fetch(`${server.baseUrl}/api/eval`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', authorization: `Bearer ${key}` },
+			body: JSON.stringify({ input: sweepLine })
+		});
+		const body = await r.json();
+		if (!body.ok) throw new Error(`${sweepLine}: ${JSON.stringify(body.error)}`);
+		serverMs.push(body.runMs);
+	}
+	const sweep = { engine_ms: median(engineMs), server_run_ms: median(serverMs) };
+	emit({ name: `${sweepLine}: evaluation process run time vs engine alone`, ...sweep });
 
 	// heavy sweeps from another user, back to back, while the light load runs
 	let stop = false;
@@ -55,10 +94,13 @@ try {
 	};
 	emit({ name: 'eval darea l=0.5 during heavy sweeps', ...loaded });
 
+	const loadAfter = loadavg()[0];
 	writeSection(
 		'api',
 		`## API (\`npm run bench -- api\`)
-${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"input":"darea l=0.5"}\` with an API key.
+${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"input":"darea l=0.5"}\` with an API key
+(a stateless single-point strip line: answered by the server process itself, src/lib/server/eval/fast.ts).
+Load average ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after (other work on the machine slows every row alike).
 
 | load | requests/s | p50 ms | p99 ms | errors | non-2xx |
 |---|---|---|---|---|---|
@@ -66,8 +108,15 @@ ${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"
 | light lines only | ${base.rps.toFixed(0)} | ${base.p50_ms} | ${base.p99_ms} | ${base.errors} | ${base.non2xx} |
 | while \`${heavyLine}\` runs back to back (${heavyRuns} sweeps) | ${loaded.rps.toFixed(0)} | ${loaded.p50_ms} | ${loaded.p99_ms} | ${loaded.errors} | ${loaded.non2xx} |
 
-Goals (issue): p50 < 5 ms, ≥ 1,000 requests/s. With 50 connections the p50 is bounded below by
-connections ÷ throughput (Little's law), so the single-connection row is the per-request latency.`
+| \`GET /api/health\`, same server, same load | ${health.requests.average.toFixed(0)} | ${health.latency.p50} | ${health.latency.p99} | ${health.errors} | ${health.non2xx} |
+
+Light lines / health at 50 connections: **${((100 * base.rps) / health.requests.average).toFixed(0)} %** (goal ≥ 50 %);
+single-connection p50 ${single.latency.p50} ms (goal ≤ 1 ms). With 50 connections the p50 is bounded below by
+connections ÷ throughput (Little's law), so the single-connection row is the per-request latency.
+
+\`${sweepLine}\` (exact, brane d=4): the evaluation process's run time ${sweep.server_run_ms.toFixed(1)} ms against
+${sweep.engine_ms.toFixed(1)} ms for the engine alone on the same 2000 points in this process, median of 7:
+**×${(sweep.server_run_ms / sweep.engine_ms).toFixed(1)}** (goal ≤ ×3, and ≤ 40 ms).`
 	);
 } finally {
 	await server.stop();
