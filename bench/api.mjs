@@ -12,7 +12,15 @@ import { emit, machineLine, median, writeSection } from './lib/results.mjs';
 /** The engine alone (src/lib/holo bundled as bench/engine.mjs does), for the sweep's server/engine ratio. */
 async function loadEngine() {
 	const outfile = join(mkdtempSync(join(tmpdir(), 'bulkpad-bench-')), 'holo.mjs');
-	await build({ entryPoints: ['src/lib/holo/index.ts'], bundle: true, format: 'esm', platform: 'neutral', mainFields: ['module', 'main'], outfile, logLevel: 'error' });
+	await build({
+		entryPoints: ['src/lib/holo/index.ts'],
+		bundle: true,
+		format: 'esm',
+		platform: 'neutral',
+		mainFields: ['module', 'main'],
+		outfile,
+		logLevel: 'error'
+	});
 	return import(pathToFileURL(outfile).href);
 }
 

@@ -45,7 +45,8 @@ const S0 = 1e-5;
  */
 function landingDepth(d: number): number {
 	return Math.pow(10, -Math.min(5, Math.max(2.5, 16 / (d - 1))));
-}const N = 10; // r z φ q K, then ∂_τ of r z φ q K
+}
+const N = 10; // r z φ q K, then ∂_τ of r z φ q K
 
 /** One shot from the tip (z0 = 1) in f = 1 − τ z^d: R̂, ΔÂ/Ω and their τ-derivatives. */
 export interface BallTipShot {
@@ -109,12 +110,31 @@ function powInt(x: number, n: number): number {
 
 // Dormand–Prince 5(4) tableau (Hairer, Nørsett & Wanner, Table II.5.2); FSAL: stage 7 is the next step's stage 1.
 const a21 = 1 / 5;
-const a31 = 3 / 40, a32 = 9 / 40;
-const a41 = 44 / 45, a42 = -56 / 15, a43 = 32 / 9;
-const a51 = 19372 / 6561, a52 = -25360 / 2187, a53 = 64448 / 6561, a54 = -212 / 729;
-const a61 = 9017 / 3168, a62 = -355 / 33, a63 = 46732 / 5247, a64 = 49 / 176, a65 = -5103 / 18656;
-const b1 = 35 / 384, b3 = 500 / 1113, b4 = 125 / 192, b5 = -2187 / 6784, b6 = 11 / 84;
-const e1 = b1 - 5179 / 57600, e3 = b3 - 7571 / 16695, e4 = b4 - 393 / 640, e5 = b5 + 92097 / 339200, e6 = b6 - 187 / 2100, e7 = -1 / 40;
+const a31 = 3 / 40,
+	a32 = 9 / 40;
+const a41 = 44 / 45,
+	a42 = -56 / 15,
+	a43 = 32 / 9;
+const a51 = 19372 / 6561,
+	a52 = -25360 / 2187,
+	a53 = 64448 / 6561,
+	a54 = -212 / 729;
+const a61 = 9017 / 3168,
+	a62 = -355 / 33,
+	a63 = 46732 / 5247,
+	a64 = 49 / 176,
+	a65 = -5103 / 18656;
+const b1 = 35 / 384,
+	b3 = 500 / 1113,
+	b4 = 125 / 192,
+	b5 = -2187 / 6784,
+	b6 = 11 / 84;
+const e1 = b1 - 5179 / 57600,
+	e3 = b3 - 7571 / 16695,
+	e4 = b4 - 393 / 640,
+	e5 = b5 + 92097 / 339200,
+	e6 = b6 - 187 / 2100,
+	e7 = -1 / 40;
 
 class Stepper {
 	k1 = new Float64Array(N);
