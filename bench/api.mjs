@@ -46,6 +46,27 @@ try {
 	// one client at a time: the latency of a single request, with no queueing behind others
 	const single = await light({ connections: 1, duration: Math.min(DURATION, 10) });
 	emit({ name: 'eval darea l=0.5, 1 connection', rps: single.requests.average, p50_ms: single.latency.p50, p99_ms: single.latency.p99 });
+	// where a light line's time goes: one connection each, the differences between routes that do more and more
+	const one = async (name, opts) => {
+		const r = await autocannon({ connections: 1, duration: Math.min(DURATION, 5), ...opts });
+		const row = { name, rps: r.requests.average, mean_ms: r.latency.mean, p50_ms: r.latency.p50 };
+		emit(row);
+		return row;
+	};
+	const auth = { 'content-type': 'application/json', authorization: `Bearer ${key}` };
+	const padId = (
+		await (await fetch(`${server.baseUrl}/api/pads`, { method: 'POST', headers: auth, body: JSON.stringify({ title: 'bench' }) })).json()
+	).pad.id;
+	const post = (body) => ({ url: `${server.baseUrl}/api/eval`, method: 'POST', headers: auth, body: JSON.stringify(body) });
+	const ladder = [
+		await one('GET /api/health (HTTP, routing, security headers)', { url: `${server.baseUrl}/api/health` }),
+		await one('darea l=0.5 stateless (+ key check, zod, parse, engine, JSON): fast path', post({ input: 'darea l=0.5' })),
+		await one(
+			'darea l=0.5 | table stateless, queued (+ queue, IPC to a process, structured clone)',
+			post({ input: 'darea l=0.5 | table' })
+		),
+		await one('darea l=0.5 in a pad (+ stored as a step: two writes, synchronous=FULL)', post({ input: 'darea l=0.5', pad: padId }))
+	];
 	const a = await light();
 	const base = { rps: a.requests.average, p50_ms: a.latency.p50, p99_ms: a.latency.p99, errors: a.errors, non2xx: a.non2xx };
 	emit({ name: 'eval darea l=0.5, 50 connections', ...base });
@@ -117,6 +138,12 @@ Load average ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after (oth
 | while \`${heavyLine}\` runs back to back (${heavyRuns} sweeps) | ${loaded.rps.toFixed(0)} | ${loaded.p50_ms} | ${loaded.p99_ms} | ${loaded.errors} | ${loaded.non2xx} |
 
 | \`GET /api/health\`, same server, same load | ${health.requests.average.toFixed(0)} | ${health.latency.p50} | ${health.latency.p99} | ${health.errors} | ${health.non2xx} |
+
+Where one light request's time goes (one connection, ${Math.min(DURATION, 5)} s each, mean latency; each row adds one stage):
+
+| route | mean ms | requests/s |
+|---|---|---|
+${ladder.map((r) => `| ${r.name} | ${r.mean_ms.toFixed(2)} | ${r.rps.toFixed(0)} |`).join('\n')}
 
 Light lines / health at 50 connections: **${((100 * base.rps) / health.requests.average).toFixed(0)} %** (goal ≥ 50 %);
 single-connection p50 ${single.latency.p50} ms (goal ≤ 1 ms). With 50 connections the p50 is bounded below by
