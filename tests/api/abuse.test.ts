@@ -13,8 +13,13 @@ const BUDGET_MS = inject('evalBudgetMs');
 const REPLAY_BUDGET_MS = inject('replayBudgetMs');
 const seconds = (ms: number) => `${(ms / 1000).toFixed(1)} s`;
 const OVER_BUDGET = `evaluation stopped: over the time budget of ${seconds(BUDGET_MS)}`;
-/** Far over any budget the test server has (minutes of work): every point shoots the exact ball surface. */
-const HEAVY_LINE = 'sweep darea ball R=0.1..2:2000';
+/**
+ * A heavy line that can never finish within any test budget, on any machine: 2000 points of mutual information
+ * (three strip solves each) in a metric bulk whose f and h are as long as a formula may be, so every quadrature
+ * node evaluates ~100 functions (~0.1 s a point here even when idle). Exact balls no longer serve: they take
+ * milliseconds since ball-shot.ts.
+ */
+const HEAVY_LINE = `use metric f="1-z^4+0*(${Array(52).fill('sin(z)').join('+')})" h="1+0*(${Array(52).fill('cos(z)').join('+')})"; sweep mi pair l=0.2..1.2:2000 gap=0.1`;
 const DEMO_SLUG = 'sable-boosted-first-law';
 
 let attacker: Client;

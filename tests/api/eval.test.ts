@@ -5,7 +5,13 @@ import { Client, signedIn, freshMember } from '../helpers/client';
  * A line that never finishes inside the test server's budget (20 s) on any machine: each point shoots the exact
  * ball surface (~0.3 s each here), so 2000 of them are minutes of work.
  */
-const HEAVY_LINE = 'sweep darea ball R=0.1..2:2000';
+/**
+ * A heavy line that can never finish within any test budget, on any machine: 2000 points of mutual information
+ * (three strip solves each) in a metric bulk whose f and h are as long as a formula may be, so every quadrature
+ * node evaluates ~100 functions (~0.1 s a point here even when idle). Exact balls no longer serve: they take
+ * milliseconds since ball-shot.ts.
+ */
+const HEAVY_LINE = `use metric f="1-z^4+0*(${Array(52).fill('sin(z)').join('+')})" h="1+0*(${Array(52).fill('cos(z)').join('+')})"; sweep mi pair l=0.2..1.2:2000 gap=0.1`;
 
 describe('POST /api/eval', () => {
 	it('needs a signed-in user (401) and a member or admin (403 for a reader)', async () => {

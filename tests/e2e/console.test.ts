@@ -171,10 +171,12 @@ describe('the console', () => {
 	});
 
 	it('shows a long sweep’s progress and cancels it with Esc, keeping the line', async () => {
-		// A line that can never finish while the test looks at it, on any machine: each point shoots the exact
-		// ball surface (~0.35 s here), so 2000 are minutes of work, far past the test server's budget. Whether
-		// the work is fast or slow, the test only sees progress, then the cancel.
-		const line = 'use brane d=4 zh=1; sweep darea ball R=0.1..2:2000';
+		// A line that can never finish while the test looks at it, on any machine: 2000 points of mutual information
+		// in a metric bulk whose f and h are as long as a formula may be (~0.1 s a point here even when idle), so
+		// minutes of work, far past the test server's budget. Whether the work is fast or slow, the test only sees
+		// progress, then the cancel. (Exact balls served here until ball-shot.ts made them milliseconds.)
+		const junk = (fn: string) => Array(52).fill(`${fn}(z)`).join('+');
+		const line = `use metric f="1-z^4+0*(${junk('sin')})" h="1+0*(${junk('cos')})"; sweep mi pair l=0.2..1.2:2000 gap=0.1`;
 		await input().fill(line);
 		await page.keyboard.press('Enter');
 		await expect.poll(() => page.locator('.status-running').textContent(), { timeout: 60_000, interval: 20 }).toMatch(/\d+\/2000/);
