@@ -51,4 +51,4 @@ if __name__ == '__main__':
     while time.perf_counter() - t < 3 or n < 2:
         v = delta_area(d, R, zh)
         n += 1
-    print((time.perf_counter() - t) / n * 1e6, repr(v))
+    print((time.perf_counter() - t) / n * 1e6, repr(float(v)))
