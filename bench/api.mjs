@@ -62,7 +62,7 @@ try {
 		await one('GET /api/health (HTTP, routing, security headers)', { url: `${server.baseUrl}/api/health` }),
 		await one('darea l=0.5 stateless (+ key check, zod, parse, engine, JSON): fast path', post({ input: 'darea l=0.5' })),
 		await one(
-			'darea l=0.5 | table stateless, queued (+ queue, IPC to a process, structured clone)',
+			'darea l=0.5 \\| table stateless, queued (+ queue, IPC to a process, structured clone)',
 			post({ input: 'darea l=0.5 | table' })
 		),
 		await one('darea l=0.5 in a pad (+ stored as a step: two writes, synchronous=FULL)', post({ input: 'darea l=0.5', pad: padId }))
@@ -136,7 +136,6 @@ Load average ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after (oth
 | one connection, requests back to back | ${single.requests.average.toFixed(0)} | ${single.latency.p50} | ${single.latency.p99} | ${single.errors} | ${single.non2xx} |
 | light lines only | ${base.rps.toFixed(0)} | ${base.p50_ms} | ${base.p99_ms} | ${base.errors} | ${base.non2xx} |
 | while \`${heavyLine}\` runs back to back (${heavyRuns} sweeps) | ${loaded.rps.toFixed(0)} | ${loaded.p50_ms} | ${loaded.p99_ms} | ${loaded.errors} | ${loaded.non2xx} |
-
 | \`GET /api/health\`, same server, same load | ${health.requests.average.toFixed(0)} | ${health.latency.p50} | ${health.latency.p99} | ${health.errors} | ${health.non2xx} |
 
 Where one light request's time goes (one connection, ${Math.min(DURATION, 5)} s each, mean latency; each row adds one stage):
