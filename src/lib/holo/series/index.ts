@@ -1,4 +1,6 @@
+import { metricModelOf } from '../bulks/metric';
 import { HoloError } from '../errors';
+import { metricCoeffsNumeric } from '../metric/coeffs';
 import { solveStrip } from '../strip';
 import type { Bulk, SeriesCoeff } from '../types';
 import { btzCoeff, fractionValue } from './btz';
@@ -39,10 +41,23 @@ function isChargedSeries(bulk: Bulk): boolean {
 	return bulk.name === 'charged' && bulk.d > 2;
 }
 
+/** A custom metric's series (metric/series.ts): every power K ≤ n d of l/scale with a nonzero coefficient. */
+function metricSeriesAt(bulk: Bulk, n: number): { powers: number[]; values: number[] } | undefined {
+	const data = bulk.name === 'metric' ? metricModelOf(bulk) : undefined;
+	return data && metricCoeffsNumeric(data.model, n, bulk.scale!);
+}
+
+/** Bulks whose powers of l/scale are not the multiples of d (charged, metric). */
+function isIrregularSeries(bulk: Bulk): boolean {
+	return isChargedSeries(bulk) || bulk.name === 'metric';
+}
+
 /** Exponents of l/scale of the terms of order n, ascending: k d (k = 1..n), or the charged brane's K ≤ n d. */
 export function seriesPowers(bulk: Bulk, n: number): number[] {
 	requireSeries(bulk);
 	checkOrder(n);
+	const ms = metricSeriesAt(bulk, n);
+	if (ms) return ms.powers;
 	if (isChargedSeries(bulk)) return chargedSeries(bulk.d, n).powers;
 	return Array.from({ length: n }, (_, i) => (i + 1) * bulk.d);
 }
@@ -52,6 +67,8 @@ export function seriesValues(bulk: Bulk, n: number): number[] {
 	requireSeries(bulk);
 	checkOrder(n);
 	const { d } = bulk;
+	const ms = metricSeriesAt(bulk, n);
+	if (ms) return ms.values;
 	if (isChargedSeries(bulk)) {
 		const q2 = bulk.params.q2 as number;
 		return chargedSeries(d, n).polys.map((p) => evalQ2(p, q2));
@@ -75,6 +92,11 @@ export function seriesValues(bulk: Bulk, n: number): number[] {
  * brane, boosted and wave; the charged brane's terms (k = index, power = da + 2(d−1)b ≤ n d, `poly` in q²).
  */
 export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
+	const ms = metricSeriesAt(bulk, n);
+	if (ms) {
+		// decimals: the metric's coefficients are sums of Beta values weighted by its Taylor coefficients
+		return ms.values.map((value, i) => ({ k: i + 1, power: ms.powers[i], value, latex: `\\approx ${Number(value.toPrecision(12))}`, exact: false }));
+	}
 	if (isChargedSeries(bulk)) {
 		const values = seriesValues(bulk, n);
 		const { powers, polys } = chargedSeries(bulk.d, n);
@@ -100,7 +122,7 @@ export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
 	checkOrder(n);
 	if (n === 0) return 0;
 	const a = seriesValues(bulk, n);
-	if (isChargedSeries(bulk)) {
+	if (isIrregularSeries(bulk)) {
 		const x = l / bulk.scale!;
 		const K = seriesPowers(bulk, n);
 		let s = 0;
@@ -131,7 +153,7 @@ const validityCache = new Map<string, ValidityResult>();
  */
 export function seriesRadiusEstimate(bulk: Bulk): { radius: number; uncertainty: number } {
 	requireSeries(bulk);
-	if (isChargedSeries(bulk)) {
+	if (isIrregularSeries(bulk)) {
 		const at = (n: number) => bulk.scale! * radiusFromGrowth(seriesPowers(bulk, n), seriesValues(bulk, n), bulk.d);
 		const r = at(MAX_ORDER);
 		return { radius: r, uncertainty: Math.abs(r - at(MAX_ORDER - 2)) + 0.01 * r };
@@ -199,7 +221,7 @@ export function validity(bulk: Bulk, n: number, tol: number): ValidityResult {
 export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefined {
 	if (n === 0 || !bulk.hasSeries) return undefined;
 	const { l_max, radius, radius_err } = validity(bulk, n, 1e-2);
-	const how = isChargedSeries(bulk) ? ', estimated from the growth of the coefficients' : ', Domb–Sykes extrapolation';
+	const how = isIrregularSeries(bulk) ? ', estimated from the growth of the coefficients' : ', Domb–Sykes extrapolation';
 	// only past the radius by more than its uncertainty: a still-converging series must not be called divergent
 	if (l > radius + radius_err) {
 		return `l=${fmt(l)} is beyond the series' radius of convergence (${fmt(radius)} ± ${fmt(radius_err)}${how}): an order-${n} truncation here is a number, not an approximation — use o=exact`;
