@@ -85,6 +85,7 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 	const derivative = (c: number[] | undefined) => (c ? (z: number) => c.reduce((s, x, k) => (k ? s + k * x * Math.pow(z, k - 1) : s), 0) : undefined);
 	const horizon = findHorizon({ d, f, g, h, fPrime: derivative(fPoly), gPrime: derivative(gPoly), scale: nums.zh ?? 1 });
 	const zh = horizon.kind === 'simple' ? horizon.zh : undefined;
+	// an extremal or irregular zero still ends the turning points (zmax below)
 	const scale = zh ?? nums.zh ?? 1;
 	const m = 2 * (d - 1);
 	const H = (z: number) => h(z) / Math.pow(z, m);
@@ -138,6 +139,7 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		stress,
 		thermo: (G) => {
 			const s = stress(G);
+			if (horizon.problem) throw new HoloError(horizon.problem.message, horizon.problem.key, 'no temperature without a regular horizon');
 			const t = { T: horizon.T, s: horizon.s(G), e: s.tt, p: s.xx };
 			return s.yy === s.xx ? t : { ...t, py: s.yy };
 		}

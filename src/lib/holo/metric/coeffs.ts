@@ -3,6 +3,7 @@ import { taylorOf, type MetricModel } from './model';
 import { evaluateQPoly } from './rational';
 import { NUMBERS, polyRing, type DPoly } from './ring';
 import { metricSeries } from './series';
+import { texName } from './taylor-exact';
 
 /**
  * The metric's small-width series (series.ts) at its numbers or in its symbolic parameters. "Order n" keeps the
@@ -80,7 +81,7 @@ export function polyLatex(p: DPoly, vars: readonly string[]): string {
 	rows.sort((a, b) => a.e.reduce((s, x) => s + x, 0) - b.e.reduce((s, x) => s + x, 0) || (a.e.join() < b.e.join() ? -1 : 1));
 	let out = '';
 	rows.forEach(({ e, v }, i) => {
-		const mono = e.map((x, j) => (x === 0 ? '' : x === 1 ? vars[j]! : `${vars[j]}^{${x}}`)).join(' ');
+		const mono = e.map((x, j) => (x === 0 ? '' : x === 1 ? texName(vars[j]!) : `${texName(vars[j]!)}^{${x}}`)).join(' ');
 		const abs = Math.abs(v);
 		const num = mono && Math.abs(abs - 1) < 1e-15 ? '' : Number(abs.toPrecision(12)).toString().replace(/e([+-]\d+)$/, (_, x) => `\\times 10^{${Number(x)}}`);
 		const sign = v < 0 ? '-' : i === 0 ? '' : '+';

@@ -1,6 +1,6 @@
 import type { Stress } from '../types';
 import { isNonzero, taylorOf, coefficientValue, type MetricKey, type MetricModel } from './model';
-import { addQPoly, constQPoly, makeQ, printQPoly, scaleQPoly, type QPoly } from './rational';
+import { addQPoly, constQPoly, makeQ, scaleQPoly, type QPoly } from './rational';
 import { latexOf } from './taylor-exact';
 
 /**
@@ -68,9 +68,9 @@ export function fgStress(model: MetricModel): FgResult {
 			yy: addQPoly(scaleQPoly(at('h'), makeQ(BigInt(d))), at('f'), makeQ(-1n))
 		};
 		latex = () => ({
-			tt: `16\\pi G\\,T_{tt} = ${latexOf(parts.tt, printQPoly(parts.tt))}`,
-			xx: `16\\pi G\\,T_{xx} = ${latexOf(parts.xx, printQPoly(parts.xx))}`,
-			yy: `16\\pi G\\,T_{yy} = ${latexOf(parts.yy, printQPoly(parts.yy))}`
+			tt: `16\\pi G\\,T_{tt} = ${latexOf(parts.tt)}`,
+			xx: `16\\pi G\\,T_{xx} = ${latexOf(parts.xx)}`,
+			yy: `16\\pi G\\,T_{yy} = ${latexOf(parts.yy)}`
 		});
 	}
 	return { kind: 'stress', order: dep.order, stress, trace, latex };

@@ -8,9 +8,10 @@ import { findRootBrent } from '../numeric/brent';
  * T = √(f' g')/(4π) (common practice: Euclidean regularity at z = zh; the brane's d/(4π zh) is the check) and
  * entropy density s = √h(zh)/(4G zh^{d−1}) (the horizon's area density, Bekenstein–Hawking).
  * A zero of f with f' = 0 there is extremal (T = 0); f touching zero without changing sign too; no zero is
- * horizonless. A zero of g before f's, or g not vanishing with f, is refused (no regular static horizon).
+ * horizonless. A zero of g before f's, g not vanishing with f, or a zero where f' or g' is not finite is
+ * 'irregular': no temperature, but the zero still ends the strip's turning points.
  */
-export type HorizonKind = 'simple' | 'extremal' | 'none';
+export type HorizonKind = 'simple' | 'extremal' | 'none' | 'irregular';
 
 export interface Horizon {
 	kind: HorizonKind;
@@ -21,6 +22,8 @@ export interface Horizon {
 	s: (G: number) => number;
 	/** where the scan stopped: a value stopped being finite (a cap) before any zero */
 	zmax?: number;
+	/** 'irregular': why there is no temperature (the strip still ends at zh), and the function at fault */
+	problem?: { message: string; key: 'f' | 'g' };
 }
 
 export interface HorizonInput {
@@ -76,14 +79,18 @@ export function findHorizon(input: HorizonInput): Horizon {
 	const gz = g(zh);
 	const fp = input.fPrime ? input.fPrime(zh) : slope(f, zh);
 	const gp = input.gPrime ? input.gPrime(zh) : slope(g, zh);
+	const s = (G: number) => Math.sqrt(h(zh)) / (4 * G * Math.pow(zh, d - 1));
+	const irregular = (message: string, key: 'f' | 'g'): Horizon => ({ kind: 'irregular', zh, T: NaN, s, problem: { message, key } });
+	const at = zh.toPrecision(12);
+	if (!Number.isFinite(fp)) return irregular(`f's zero at zh=${at} is not simple: f' is not finite there`, 'f');
 	// g must not vanish first, and must vanish with f (a regular static horizon)
 	for (let i = 1; i <= 200; i++) {
 		const z = (zh * i) / 201;
-		if (!(g(z) > 0)) throw new HoloError(`g vanishes at z≈${z.toPrecision(6)}, before f's zero at zh=${zh.toPrecision(6)}`, 'g', 'g_tt must vanish with f at the horizon');
+		if (!(g(z) > 0)) return irregular(`g vanishes at z≈${z.toPrecision(6)}, before f's zero at zh=${at}`, 'g');
 	}
-	if (!(Math.abs(gz) <= 1e-9)) throw new HoloError(`g does not vanish at f's zero zh=${zh.toPrecision(12)} (g=${gz})`, 'g', 'a static horizon needs g(zh) = 0 where f(zh) = 0');
-	const s = (G: number) => Math.sqrt(h(zh)) / (4 * G * Math.pow(zh, d - 1));
+	if (!(Math.abs(gz) <= 1e-9)) return irregular(`g does not vanish at f's zero zh=${at} (g=${gz}): no regular static horizon`, 'g');
+	if (!Number.isFinite(gp)) return irregular(`g's zero at zh=${at} is not simple: g' is not finite there`, 'g');
 	if (Math.abs(fp) * zh <= 1e-7 || Math.abs(gp) * zh <= 1e-7) return { kind: 'extremal', zh, T: 0, s };
-	if (!(fp * gp > 0)) throw new HoloError(`f and g cross zero with opposite slopes at zh=${zh.toPrecision(12)}`, 'g');
+	if (!(fp * gp > 0)) return irregular(`f and g cross zero with opposite slopes at zh=${at}`, 'g');
 	return { kind: 'simple', zh, T: Math.sqrt(fp * gp) / (4 * Math.PI), s };
 }

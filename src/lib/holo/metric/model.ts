@@ -1,7 +1,7 @@
 import { HoloError } from '../errors';
 import { FormulaError, readFormulaTree, type FormulaTree } from '../formula';
-import { evaluateQPoly, printQPoly, valueQ, constantOf, type QPoly } from './rational';
-import { taylorExact, type ExactTaylor } from './taylor-exact';
+import { evaluateQPoly, valueQ, constantOf, type QPoly } from './rational';
+import { taylorExact, textOf as latexFree, type ExactTaylor } from './taylor-exact';
 import { taylorNumeric } from './taylor-numeric';
 
 /**
@@ -120,7 +120,7 @@ export function checkBoundary(model: MetricModel): void {
 		const t = taylorOf(model, key, 0);
 		const c0 = t.exact ? constantOf(t.exact.coeffs[0]!) : undefined;
 		if (t.exact && !(c0 && c0.n === c0.d)) {
-			throw new HoloError(`${key}(0) must be 1 (got ${printQPoly(t.exact.coeffs[0]!)})`, key, 'the metric must approach AdS at the boundary');
+			throw new HoloError(`${key}(0) must be 1 (got ${latexFree(t.exact.coeffs[0]!)})`, key, 'the metric must approach AdS at the boundary');
 		}
 		if (!t.exact && !(Math.abs(t.numeric![0]! - 1) <= 1e-12)) {
 			throw new HoloError(`${key}(0) must be 1 (got ${t.numeric![0]})`, key, 'the metric must approach AdS at the boundary');

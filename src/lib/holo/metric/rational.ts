@@ -113,11 +113,11 @@ export function evaluateQPoly(a: QPoly, values: Readonly<Record<string, number>>
 }
 
 /** Text nerdamer (and a reader) can take: '(1/3)*m^2*q-2'. */
-export function printQPoly(a: QPoly): string {
+export function printQPoly(a: QPoly, names: readonly string[] = a.vars): string {
 	if (a.terms.size === 0) return '0';
 	const parts = [...a.terms].map(([k, v]) => {
 		const mono = (k === '' ? [] : k.split(','))
-			.map((e, i) => (e === '0' ? '' : e === '1' ? a.vars[i]! : `${a.vars[i]}^${e}`))
+			.map((e, i) => (e === '0' ? '' : e === '1' ? names[i]! : `${names[i]}^${e}`))
 			.filter(Boolean);
 		return [`(${printQ(v)})`, ...mono].join('*');
 	});

@@ -13,6 +13,7 @@ import {
 	parseDecimal,
 	parseFraction,
 	printQ,
+	printQPoly,
 	scaleQPoly,
 	type QPoly
 } from './rational';
@@ -27,6 +28,16 @@ import {
  * D(0) to be a nonzero number. Returns undefined when the formula is not of this kind (the caller then uses
  * taylorNumeric), and the caller cross-checks these coefficients against taylorNumeric at numbers.
  */
+/**
+ * Parameters reach nerdamer under internal names (bkp0, bkp1, …): a user's `i` or `E` would otherwise be
+ * nerdamer's imaginary unit or constant.
+ */
+const internal = (i: number) => `bkp${i}`;
+const internalNames = (vars: readonly string[]) => vars.map((_, i) => internal(i));
+const restore = (text: string, vars: readonly string[]) => text.replace(/bkp(\d+)/g, (_, i) => vars[Number(i)]!);
+/** A parameter's name in LaTeX: upright when longer than a letter (zh, not z·h). */
+export const texName = (name: string) => (name.length > 1 ? `\\mathrm{${name.replace(/_/g, '\\_')}}` : name);
+
 interface Frac {
 	n: string;
 	d: string;
@@ -37,7 +48,8 @@ function rationalText(t: FormulaTree, params: readonly string[], values: Readonl
 		case 'num':
 			return { n: `(${printQ(parseDecimal(String(t.value)))})`, d: '1' };
 		case 'name':
-			if (t.name === 'z' || params.includes(t.name)) return { n: t.name, d: '1' };
+			if (t.name === 'z') return { n: 'z', d: '1' };
+			if (params.includes(t.name)) return { n: internal(params.indexOf(t.name)), d: '1' };
 			// a parameter given as a number counts as the decimal the user typed (1.3 → 13/10)
 			return Object.hasOwn(values, t.name) ? { n: `(${printQ(parseDecimal(String(values[t.name])))})`, d: '1' } : undefined;
 		case 'call':
@@ -123,7 +135,8 @@ export function taylorExact(
 	const expand = (text: string) => nerdamer(`expand(${text})`);
 	const num = expand(r.n);
 	const den = expand(r.d);
-	const inZ = (e: NSym) => (e.variables().includes('z') ? coeffList(e, 'z') : [e]).map((c) => toQPoly(c, vars));
+	const inZ = (e: NSym) =>
+		(e.variables().includes('z') ? coeffList(e, 'z') : [e]).map((c) => ({ ...toQPoly(c, internalNames(vars)), vars }));
 	const n = inZ(num);
 	const dd = inZ(den);
 	// strip common leading powers of z (e.g. (z^4 - z^6)/z^2)
@@ -134,7 +147,7 @@ export function taylorExact(
 	const d0 = dd[0] ? constantOf(dd[0]) : undefined;
 	if (!d0 || d0.n === 0n) {
 		if (dd[0] && d0 === undefined) return undefined; // D(0) depends on a parameter: leave it to the numbers
-		throw new HoloError(`${key} is not analytic at z = 0: its denominator ${den.toString()} vanishes there`, key);
+		throw new HoloError(`${key} is not analytic at z = 0: its denominator ${restore(den.toString(), vars)} vanishes there`, key);
 	}
 	const inv = divQ(makeQ(1n), d0);
 	const c: QPoly[] = [];
@@ -147,6 +160,11 @@ export function taylorExact(
 }
 
 /** LaTeX of an exact polynomial in the parameters, from nerdamer. */
-export function latexOf(p: QPoly, printed: string): string {
-	return isZeroQPoly(p) ? '0' : nerdamer(printed).toTeX();
+export function latexOf(p: QPoly): string {
+	return isZeroQPoly(p) ? '0' : restore(nerdamer(printQPoly(p, internalNames(p.vars))).toTeX(), p.vars.map(texName));
+}
+
+/** Plain text of an exact polynomial for messages ('1-2*cm'), tidied by nerdamer. */
+export function textOf(p: QPoly): string {
+	return isZeroQPoly(p) ? '0' : restore(nerdamer(printQPoly(p, internalNames(p.vars))).toString(), p.vars);
 }

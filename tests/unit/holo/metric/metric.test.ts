@@ -130,17 +130,22 @@ describe('stress tensor, horizon and errors', () => {
 		expect(bulk.horizon).toBeUndefined();
 	});
 
-	it('extremal horizon: T = 0; g not vanishing with f is refused naming g', () => {
+	it('extremal horizon: T = 0; g not vanishing with f or a zero that is not simple: no temperature, naming the function', () => {
 		const ext = makeBulk('metric', { d: 4, f: '(1 - z^4)^2' });
 		expect(ext.thermo!(1).T).toBe(0);
-		const e = holoError(() => makeBulk('metric', { d: 4, f: '1 - z^4', g: '1 - z^4/2' }));
+		const bad = makeBulk('metric', { d: 4, f: '1 - z^4', g: '1 - z^4/2' });
+		// the strip still ends at f's zero
+		expect(bad.slice.zmax).toBeCloseTo(1, 12);
+		const e = holoError(() => bad.thermo!(1));
 		expect(e.key).toBe('g');
 		expect(e.message).toMatch(/g does not vanish at f's zero/);
+		const root = makeBulk('metric', { d: 4, f: 'sqrt(1 - z^4)' });
+		expect(holoError(() => root.thermo!(1)).message).toMatch(/^f's zero at zh=1\.00000000000 is not simple/);
 	});
 
 	it('names the term at fault', () => {
 		const e1 = holoError(() => makeBulk('metric', { d: 4, f: '2 - z^4' }));
-		expect([e1.key, e1.message]).toEqual(['f', 'f(0) must be 1 (got (2))']);
+		expect([e1.key, e1.message]).toEqual(['f', 'f(0) must be 1 (got 2)']);
 		const e2 = holoError(() => makeBulk('metric', { d: 4, f: '1 - z^4', h: '1 + z^4*log(z)' }));
 		expect(e2.message).toContain('log(z)');
 		const e3 = holoError(() => makeBulk('metric', { d: 4, f: '1 - sqrt(z)^8' }));
