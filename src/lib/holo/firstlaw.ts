@@ -52,6 +52,8 @@ import { areaParameterDerivative } from './dparam';
 import { boostedCoeffPolys, seriesCoeffs } from './series/index';
 import { chargeCoupling } from './bulks/charged';
 import type { Bulk, SeriesCoeff } from './types';
+import { metricModelOf } from './bulks/metric';
+import { metricFirstLaw } from './metric/firstlaw';
 
 export type Order = number | 'exact';
 
@@ -274,6 +276,11 @@ const sumSeries = (a: number[], x: number) => a.reduce((s, v, i) => s + v * Math
 export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): FirstLawCoefficients {
 	checkOrder(order);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const metric = metricLaw(bulk, l, order);
+	if (metric) {
+		const { alpha, dA } = metric;
+		return { order, l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, conjugate: null, Aw: dA, Aq: 0 };
+	}
 	const F = familyOf(bulk);
 	const twoParameter = F.kind === 'boosted' || F.kind === 'wave' || F.kind === 'charged';
 	let Aw: number;
@@ -324,6 +331,12 @@ function chargedExactGradient(bulk: Bulk, F: Family, l: number): { Aw: number; A
 					[]
 				);
 	return { Aw: (-dA * Math.pow(zh, F.d + 1)) / F.d, Aq };
+}
+
+/** A metric bulk's first law along its scale direction (metric/firstlaw.ts), or undefined for other bulks. */
+function metricLaw(bulk: Bulk, l: number, order: Order, G = 1) {
+	const data = bulk.name === 'metric' ? metricModelOf(bulk) : undefined;
+	return data && metricFirstLaw(bulk, data.model, l, order, G);
 }
 
 export interface TentResult {
@@ -386,6 +399,16 @@ export interface FirstLawCheck extends FirstLawCoefficients {
  */
 export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCheck {
 	if (!(G > 0) || !Number.isFinite(G)) throw new HoloError('G must be positive', 'G');
+	const metric = metricLaw(bulk, l, order, G);
+	if (metric) {
+		// the scale direction δλ = 1/d (metric/firstlaw.ts): δΔE = l T_tt, δΔS = ∂_λΔA/(4G d)
+		const { alpha, dA, dARef, dAExact, dANext, Ttt } = metric;
+		const d = bulk.d;
+		const rhs = alpha * l * Ttt;
+		const lhs = dARef / (4 * G * d);
+		const scale = { lhs, rhs, residual: dANext === undefined ? lhs - rhs : dANext / (4 * G * d), residualExact: dAExact / (4 * G * d) - rhs };
+		return { order, l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, conjugate: null, Aw: dA, Aq: 0, G, scale };
+	}
 	const F = familyOf(bulk);
 	const co = firstLawCoefficients(bulk, l, order);
 	const ex = order === 'exact' ? co : firstLawCoefficients(bulk, l, 'exact');

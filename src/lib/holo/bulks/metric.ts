@@ -1,6 +1,7 @@
 import { HoloError } from '../errors';
 import { fgStress } from '../metric/fg';
 import { findHorizon, type Horizon } from '../metric/horizon';
+import { metricTerms, type MetricTerms } from '../metric/coeffs';
 import { checkBoundary, readMetric, taylorOf, type MetricModel } from '../metric/model';
 import { evaluateQPoly } from '../metric/rational';
 import type { Bulk, PowerTerm, Stress } from '../types';
@@ -24,6 +25,15 @@ const metricData = new WeakMap<Bulk, { model: MetricModel; horizon?: Horizon }>(
 /** The metric model behind a metric bulk (for the series and the capabilities). */
 export function metricModelOf(bulk: Bulk): { model: MetricModel; horizon?: Horizon } | undefined {
 	return metricData.get(bulk);
+}
+
+/** The `coeffs` terms of a metric bulk (symbolic in its named parameters, or numbers). */
+export function metricSeriesTerms(bulk: Bulk, n: number): MetricTerms {
+	const data = metricData.get(bulk);
+	if (!data) throw new HoloError(`${bulk.name} is not a metric bulk`, 'bulk');
+	if (!Number.isInteger(n) || n < 1 || n > 14) throw new HoloError('order must be a whole number from 1 to 14', 'o');
+	const hasScale = bulk.horizon !== undefined || typeof bulk.params.zh === 'number';
+	return metricTerms(data.model, n, hasScale ? bulk.scale : undefined);
 }
 
 function readSymbols(v: number | string | undefined): string[] {
@@ -62,10 +72,14 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 	if (model.shown.length) out.params = model.shown.join(',');
 	if (model.symbols.length) {
 		// symbolic: structure only (coefficients, stress in symbols); numbers need values for every parameter
-		const need = () => {
-			throw new HoloError(`${model.symbols.join(', ')} ${model.symbols.length > 1 ? 'are' : 'is'} symbolic: give ${model.symbols.map((s) => `${s}=…`).join(' ')} for numbers`, model.symbols[0]!);
+		const need = (): never => {
+			throw new HoloError(
+				`${model.symbols.join(', ')} ${model.symbols.length > 1 ? 'are' : 'is'} symbolic: give ${model.symbols.map((s) => `${s}=…`).join(' ')} for numbers`,
+				model.symbols[0]!,
+				'coeffs darea o=n | tex gives the series in the symbols'
+			);
 		};
-		const bulk: Bulk = { name: 'metric', d, params: out, slice: { d, f: need, h: need }, hasSeries: false };
+		const bulk: Bulk = { name: 'metric', d, params: out, slice: { d, f: need, h: need }, hasSeries: false, stress: need, thermo: need };
 		metricData.set(bulk, { model });
 		return bulk;
 	}

@@ -81,7 +81,10 @@ export function polyLatex(p: DPoly, vars: readonly string[]): string {
 	rows.sort((a, b) => a.e.reduce((s, x) => s + x, 0) - b.e.reduce((s, x) => s + x, 0) || (a.e.join() < b.e.join() ? -1 : 1));
 	let out = '';
 	rows.forEach(({ e, v }, i) => {
-		const mono = e.map((x, j) => (x === 0 ? '' : x === 1 ? texName(vars[j]!) : `${texName(vars[j]!)}^{${x}}`)).join(' ');
+		const mono = e
+			.map((x, j) => (x === 0 ? '' : x === 1 ? texName(vars[j]!) : `${texName(vars[j]!)}^{${x}}`))
+			.filter(Boolean)
+			.join(' ');
 		const abs = Math.abs(v);
 		const num = mono && Math.abs(abs - 1) < 1e-15 ? '' : Number(abs.toPrecision(12)).toString().replace(/e([+-]\d+)$/, (_, x) => `\\times 10^{${Number(x)}}`);
 		const sign = v < 0 ? '-' : i === 0 ? '' : '+';
@@ -100,4 +103,31 @@ export function evaluateCoeff(c: SymbolicCoeff, vars: readonly string[], values:
 		s += t;
 	}
 	return s;
+}
+
+export interface MetricTerms {
+	terms: { k: number; coeff: number; latex: string; power: number }[];
+	/** what l is measured in: the horizon (or a zh= key), or nothing (coefficients of l^K) */
+	scale: 'z_h' | '1';
+}
+
+/**
+ * The `coeffs` answer for a metric: with named parameters (listed in params= or left without a number) each
+ * coefficient of l^K as a polynomial in them (coeff = its value when every parameter has a number, else NaN);
+ * otherwise the numbers, in l/zh when the metric has a horizon or a zh= key.
+ */
+export function metricTerms(model: MetricModel, n: number, scale: number | undefined): MetricTerms {
+	if (model.shown.length) {
+		const { vars, coeffs } = metricCoeffsSymbolic(model, n);
+		const known = model.symbols.length === 0;
+		return {
+			scale: '1',
+			terms: coeffs.map((c, i) => ({ k: i + 1, power: c.power, latex: c.latex, coeff: known ? evaluateCoeff(c, vars, model.values) : NaN }))
+		};
+	}
+	const { powers, values } = metricCoeffsNumeric(model, n, scale ?? 1);
+	return {
+		scale: scale === undefined ? '1' : 'z_h',
+		terms: values.map((v, i) => ({ k: i + 1, power: powers[i]!, coeff: v, latex: `\\approx ${Number(v.toPrecision(12))}` }))
+	};
 }
