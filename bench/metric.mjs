@@ -58,30 +58,55 @@ const text = '1 - m*z^4 + q^2*z^6';
 const symbolic = () => H.metricCoeffsSymbolic(H.readMetric({ d: 4, f: text, values: {} }), 6);
 const a = performance.now();
 const first = symbolic();
-row('coefficients to order 6, two-parameter symbolic metric d=4 (f="1 - m*z^4 + q^2*z^6"), first call in the process', {
-	median_us: Number(((performance.now() - a) * 1000).toFixed(0)),
-	runs: 1
-}, '≤ 1 s');
+row(
+	'coefficients to order 6, two-parameter symbolic metric d=4 (f="1 - m*z^4 + q^2*z^6"), first call in the process',
+	{
+		median_us: Number(((performance.now() - a) * 1000).toFixed(0)),
+		runs: 1
+	},
+	'≤ 1 s'
+);
 row('the same, each call on a fresh model (no cache)', time(symbolic, { runs: 5, ms: 2000, warm: false }), '≤ 1 s');
 console.error(`${first.coeffs.length} symbolic coefficients`);
 
 // numeric: the brane and the same brane as a metric, coefficients cold and the order-6 value at l = 0.5
 const brane = H.makeBulk('brane', { d: 4, zh: 1 });
 const metric = H.makeBulk('metric', { d: 4, f: '1 - z^4' });
-row('brane d=4: series coefficients to order 6, cold (cache cleared)', time(() => {
-	H.clearCoeffCache();
-	H.seriesValues(brane, 6);
-}));
-row('metric f="1 - z^4": series coefficients to order 6, cold (fresh model)', time(() => {
-	H.metricCoeffsNumeric(H.readMetric({ d: 4, f: '1 - z^4', values: {} }), 6);
-}));
-row('brane d=4: ΔA order 6 at l=0.5 (coefficients cached)', time(() => H.deltaAreaSeries(brane, 0.5, 6), { runs: 2000 }));
-row('metric f="1 - z^4": ΔA order 6 at l=0.5 (coefficients cached)', time(() => H.deltaAreaSeries(metric, 0.5, 6), { runs: 2000 }));
-row('metric f="1 - z^4*exp(-z^2)" (numeric Taylor): coefficients to order 6, cold', time(() => {
-	H.metricCoeffsNumeric(H.readMetric({ d: 4, f: '1 - z^4*exp(-z^2)', values: {} }), 6);
-}));
-row('brane d=4: exact ΔA at l=5 (near the horizon)', time(() => H.deltaArea(brane, 5), { runs: 500 }));
-row('metric f="1 - z^4": exact ΔA at l=5 (near the horizon)', time(() => H.deltaArea(metric, 5), { runs: 500 }));
+row(
+	'brane d=4: series coefficients to order 6, cold (cache cleared)',
+	time(() => {
+		H.clearCoeffCache();
+		H.seriesValues(brane, 6);
+	})
+);
+row(
+	'metric f="1 - z^4": series coefficients to order 6, cold (fresh model)',
+	time(() => {
+		H.metricCoeffsNumeric(H.readMetric({ d: 4, f: '1 - z^4', values: {} }), 6);
+	})
+);
+row(
+	'brane d=4: ΔA order 6 at l=0.5 (coefficients cached)',
+	time(() => H.deltaAreaSeries(brane, 0.5, 6), { runs: 2000 })
+);
+row(
+	'metric f="1 - z^4": ΔA order 6 at l=0.5 (coefficients cached)',
+	time(() => H.deltaAreaSeries(metric, 0.5, 6), { runs: 2000 })
+);
+row(
+	'metric f="1 - z^4*exp(-z^2)" (numeric Taylor): coefficients to order 6, cold',
+	time(() => {
+		H.metricCoeffsNumeric(H.readMetric({ d: 4, f: '1 - z^4*exp(-z^2)', values: {} }), 6);
+	})
+);
+row(
+	'brane d=4: exact ΔA at l=5 (near the horizon)',
+	time(() => H.deltaArea(brane, 5), { runs: 500 })
+);
+row(
+	'metric f="1 - z^4": exact ΔA at l=5 (near the horizon)',
+	time(() => H.deltaArea(metric, 5), { runs: 500 })
+);
 
 writeSection(
 	'metric',

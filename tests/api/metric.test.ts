@@ -13,7 +13,14 @@ beforeAll(async () => {
 	c = await signedIn('tomas@sable.test');
 });
 
-type R = { kind: string; value?: number; fields?: Record<string, number>; terms?: { coeff: number; power: number }[]; lhs?: number; rhs?: number };
+type R = {
+	kind: string;
+	value?: number;
+	fields?: Record<string, number>;
+	terms?: { coeff: number; power: number }[];
+	lhs?: number;
+	rhs?: number;
+};
 
 async function results(input: string): Promise<R[]> {
 	const r = await c.post('/api/eval', { input });
@@ -45,7 +52,8 @@ describe('use metric through the API reproduces the named bulks', () => {
 		it(`${name}: stress, thermo (T, s, e, p) and the first law (order 2 and exact)`, async () => {
 			for (const verb of ['stress', 'thermo']) {
 				const [a, b] = [(await results(`${named}; ${verb}`))[1]!, (await results(`${metric}; ${verb}`))[1]!];
-				for (const k of verb === 'stress' ? ['tt', 'xx', 'yy'] : ['T', 's', 'e', 'p']) close(`${name} ${verb} ${k}`, a.fields![k]!, b.fields![k]!);
+				for (const k of verb === 'stress' ? ['tt', 'xx', 'yy'] : ['T', 's', 'e', 'p'])
+					close(`${name} ${verb} ${k}`, a.fields![k]!, b.fields![k]!);
 			}
 			for (const o of ['2', 'exact']) {
 				const [a, b] = [(await results(`${named}; firstlaw l=0.5 o=${o}`))[1]!, (await results(`${metric}; firstlaw l=0.5 o=${o}`))[1]!];

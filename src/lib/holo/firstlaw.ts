@@ -406,7 +406,12 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 		const d = bulk.d;
 		const rhs = alpha * l * Ttt;
 		const lhs = dARef / (4 * G * d);
-		const scale = { lhs, rhs, residual: dANext === undefined ? lhs - rhs : dANext / (4 * G * d), residualExact: dAExact / (4 * G * d) - rhs };
+		const scale = {
+			lhs,
+			rhs,
+			residual: dANext === undefined ? lhs - rhs : dANext / (4 * G * d),
+			residualExact: dAExact / (4 * G * d) - rhs
+		};
 		return { order, l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, conjugate: null, Aw: dA, Aq: 0, G, scale };
 	}
 	const F = familyOf(bulk);

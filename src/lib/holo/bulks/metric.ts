@@ -41,7 +41,8 @@ function readSymbols(v: number | string | undefined): string[] {
 	const list = String(v)
 		.split(/[\s,]+/)
 		.filter(Boolean);
-	for (const s of list) if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(s) || s === 'z') throw new HoloError(`params: '${s}' is not a parameter name`, 'params');
+	for (const s of list)
+		if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(s) || s === 'z') throw new HoloError(`params: '${s}' is not a parameter name`, 'params');
 	return list;
 }
 
@@ -96,7 +97,8 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 	const fPoly = polyOf(tf, 'f');
 	const hPoly = polyOf(th, 'h');
 	const gPoly = gtext === undefined ? fPoly : polyOf(taylorOf(model, 'g', 0), 'g');
-	const derivative = (c: number[] | undefined) => (c ? (z: number) => c.reduce((s, x, k) => (k ? s + k * x * Math.pow(z, k - 1) : s), 0) : undefined);
+	const derivative = (c: number[] | undefined) =>
+		c ? (z: number) => c.reduce((s, x, k) => (k ? s + k * x * Math.pow(z, k - 1) : s), 0) : undefined;
 	const horizon = findHorizon({ d, f, g, h, fPrime: derivative(fPoly), gPrime: derivative(gPoly), scale: nums.zh ?? 1 });
 	const zh = horizon.kind === 'simple' ? horizon.zh : undefined;
 	// an extremal or irregular zero still ends the turning points (zmax below)
@@ -139,7 +141,8 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 	if (zh !== undefined && !terms) slice.zmax = Math.min(slice.zmax ?? Infinity, zh);
 	const fg = fgStress(model);
 	const stress = (G: number): Stress => {
-		if (fg.kind === 'deformation') throw new HoloError(fg.message, fg.keys[0]!, 'there is no stress tensor of a normalisable state to give');
+		if (fg.kind === 'deformation')
+			throw new HoloError(fg.message, fg.keys[0]!, 'there is no stress tensor of a normalisable state to give');
 		return fg.stress(G);
 	};
 	const bulk: Bulk = {

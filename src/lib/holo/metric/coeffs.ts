@@ -60,7 +60,8 @@ export function metricCoeffsSymbolic(model: MetricModel, n: number): { vars: str
 	const R = polyRing(vars);
 	const toD = (k: 'f' | 'h') => {
 		const t = taylorOf(model, k, M);
-		if (!t.exact) throw new HoloError(`${k} is not a rational function of z: its series has numbers only`, k, 'give every parameter a number');
+		if (!t.exact)
+			throw new HoloError(`${k} is not a rational function of z: its series has numbers only`, k, 'give every parameter a number');
 		return t.exact.coeffs.map((p) => {
 			const out: DPoly = new Map();
 			for (const [mono, q] of p.terms) out.set(mono, Number(q.n) / Number(q.d));
@@ -86,7 +87,12 @@ export function polyLatex(p: DPoly, vars: readonly string[]): string {
 			.filter(Boolean)
 			.join(' ');
 		const abs = Math.abs(v);
-		const num = mono && Math.abs(abs - 1) < 1e-15 ? '' : Number(abs.toPrecision(12)).toString().replace(/e([+-]\d+)$/, (_, x) => `\\times 10^{${Number(x)}}`);
+		const num =
+			mono && Math.abs(abs - 1) < 1e-15
+				? ''
+				: Number(abs.toPrecision(12))
+						.toString()
+						.replace(/e([+-]\d+)$/, (_, x) => `\\times 10^{${Number(x)}}`);
 		const sign = v < 0 ? '-' : i === 0 ? '' : '+';
 		out += `${i === 0 ? '' : ' '}${sign}${i === 0 ? '' : ' '}${num}${num && mono ? '\\,' : ''}${mono}`;
 	});

@@ -33,7 +33,13 @@ export function departureOf(model: MetricModel, upTo = model.d): FgDeparture {
 }
 
 export type FgResult =
-	| { kind: 'stress'; order: number; stress: (G: number) => Stress; trace: (G: number) => number; latex?: () => Record<'tt' | 'xx' | 'yy', string> }
+	| {
+			kind: 'stress';
+			order: number;
+			stress: (G: number) => Stress;
+			trace: (G: number) => number;
+			latex?: () => Record<'tt' | 'xx' | 'yy', string>;
+	  }
 	| { kind: 'deformation'; order: number; keys: MetricKey[]; message: string };
 
 export function fgStress(model: MetricModel): FgResult {

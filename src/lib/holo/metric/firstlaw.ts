@@ -54,7 +54,8 @@ function exactSlope(bulk: Bulk, l: number): number {
 
 export function metricFirstLaw(bulk: Bulk, model: MetricModel, l: number, order: number | 'exact', G = 1): MetricFirstLaw {
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
-	if (order !== 'exact' && (!Number.isInteger(order) || order < 1 || order > 12)) throw new HoloError('order must be an integer 1…12 or exact', 'o');
+	if (order !== 'exact' && (!Number.isInteger(order) || order < 1 || order > 12))
+		throw new HoloError('order must be an integer 1…12 or exact', 'o');
 	const fg = fgStress(model);
 	if (fg.kind === 'deformation') throw new HoloError(fg.message, fg.keys[0]!, 'the first law needs a normalisable state');
 	const Ttt = fg.stress(G).tt;

@@ -1,4 +1,3 @@
-import { HoloError } from '../errors';
 import { findRootBrent } from '../numeric/brent';
 
 /**
@@ -71,7 +70,8 @@ export function findHorizon(input: HorizonInput): Horizon {
 	void fprev;
 	const horizonless: Horizon = { kind: 'none', T: 0, s: () => 0, zmax: cap };
 	if (!zero) {
-		if (touch !== undefined) return { kind: 'extremal', zh: touch, T: 0, s: (G) => Math.sqrt(h(touch!)) / (4 * G * Math.pow(touch!, d - 1)) };
+		if (touch !== undefined)
+			return { kind: 'extremal', zh: touch, T: 0, s: (G) => Math.sqrt(h(touch!)) / (4 * G * Math.pow(touch!, d - 1)) };
 		return horizonless;
 	}
 	const [a, b] = zero;

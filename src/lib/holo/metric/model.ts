@@ -79,7 +79,11 @@ function checkAgainst(exact: QPoly[], numeric: Float64Array, at: Record<string, 
 		const a = evaluateQPoly(p, at);
 		const b = numeric[k]!;
 		if (!(Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b)))) {
-			throw new HoloError(`${key}: exact and numeric Taylor coefficients of z^${k} disagree (${a} vs ${b})`, key, 'please report this metric');
+			throw new HoloError(
+				`${key}: exact and numeric Taylor coefficients of z^${k} disagree (${a} vs ${b})`,
+				key,
+				'please report this metric'
+			);
 		}
 	});
 }
@@ -120,7 +124,11 @@ export function checkBoundary(model: MetricModel): void {
 		const t = taylorOf(model, key, 0);
 		const c0 = t.exact ? constantOf(t.exact.coeffs[0]!) : undefined;
 		if (t.exact && !(c0 && c0.n === c0.d)) {
-			throw new HoloError(`${key}(0) must be 1 (got ${latexFree(t.exact.coeffs[0]!)})`, key, 'the metric must approach AdS at the boundary');
+			throw new HoloError(
+				`${key}(0) must be 1 (got ${latexFree(t.exact.coeffs[0]!)})`,
+				key,
+				'the metric must approach AdS at the boundary'
+			);
 		}
 		if (!t.exact && !(Math.abs(t.numeric![0]! - 1) <= 1e-12)) {
 			throw new HoloError(`${key}(0) must be 1 (got ${t.numeric![0]})`, key, 'the metric must approach AdS at the boundary');

@@ -74,4 +74,3 @@ export function evaluateDPoly(p: DPoly, vars: readonly string[], values: Readonl
 	}
 	return s;
 }
-

@@ -57,7 +57,8 @@ function rationalText(t: FormulaTree, params: readonly string[], values: Readonl
 		case 'op': {
 			if (t.op === 'pow') {
 				const e = t.args[1]!;
-				const p = e.kind === 'num' ? e.value : e.kind === 'op' && e.op === 'unaryMinus' && e.args[0]!.kind === 'num' ? -e.args[0]!.value : NaN;
+				const p =
+					e.kind === 'num' ? e.value : e.kind === 'op' && e.op === 'unaryMinus' && e.args[0]!.kind === 'num' ? -e.args[0]!.value : NaN;
 				if (!Number.isInteger(p) || Math.abs(p) > 64) return undefined;
 				const a = rationalText(t.args[0]!, params, values);
 				if (!a) return undefined;

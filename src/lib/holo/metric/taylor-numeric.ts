@@ -66,7 +66,8 @@ function powConst(a: Series, p: number, what: () => string): Series {
 		return r;
 	}
 	if (Number.isInteger(p) && p < 0 && p >= -64) return div(constant(N, 1), powConst(a, -p, what), what);
-	if (!(a[0] > 0)) throw notAnalytic(what(), a[0] === 0 ? 'a fractional power of a term vanishing at z = 0' : 'a fractional power of a negative number');
+	if (!(a[0] > 0))
+		throw notAnalytic(what(), a[0] === 0 ? 'a fractional power of a term vanishing at z = 0' : 'a fractional power of a negative number');
 	const c = new Float64Array(N + 1);
 	c[0] = Math.pow(a[0], p);
 	for (let n = 1; n <= N; n++) {
@@ -90,7 +91,8 @@ function expS(a: Series): Series {
 }
 
 function logS(a: Series, what: () => string): Series {
-	if (!(a[0] > 0)) throw notAnalytic(what(), a[0] === 0 ? 'the logarithm of a term vanishing at z = 0' : 'the logarithm of a negative number');
+	if (!(a[0] > 0))
+		throw notAnalytic(what(), a[0] === 0 ? 'the logarithm of a term vanishing at z = 0' : 'the logarithm of a negative number');
 	const N = a.length - 1;
 	const c = new Float64Array(N + 1);
 	c[0] = Math.log(a[0]);
@@ -136,7 +138,11 @@ const integral = (q: Series, c0: number): Series => {
 };
 
 function notAnalytic(term: string, why: string): HoloError {
-	return new HoloError(`not analytic at z = 0: ${term} (${why})`, 'f', 'the series and the stress tensor need f, g, h analytic at the boundary');
+	return new HoloError(
+		`not analytic at z = 0: ${term} (${why})`,
+		'f',
+		'the series and the stress tensor need f, g, h analytic at the boundary'
+	);
 }
 
 const CONSTANT_ONLY: Record<string, (...x: number[]) => number> = {
@@ -199,7 +205,13 @@ export function taylorNumeric(t: FormulaTree, values: Readonly<Record<string, nu
 					case 'sqrt':
 						return powConst(x, 0.5, what);
 					case 'cbrt':
-						return x[0] < 0 ? powConst(x.map((v) => -v), 1 / 3, what).map((v) => -v) : powConst(x, 1 / 3, what);
+						return x[0] < 0
+							? powConst(
+									x.map((v) => -v),
+									1 / 3,
+									what
+								).map((v) => -v)
+							: powConst(x, 1 / 3, what);
 					case 'pow':
 						if (isConstant(a[1]!)) return powConst(x, a[1]![0], what);
 						return expS(mul(a[1]!, logS(x, what)));
@@ -228,17 +240,75 @@ export function taylorNumeric(t: FormulaTree, values: Readonly<Record<string, nu
 						return div(s, c, what);
 					}
 					case 'atan':
-						return integral(div(derivative(x), constant(N, 1).map((v, i) => v + mul(x, x)[i]), what), Math.atan(x[0]));
+						return integral(
+							div(
+								derivative(x),
+								constant(N, 1).map((v, i) => v + mul(x, x)[i]),
+								what
+							),
+							Math.atan(x[0])
+						);
 					case 'asinh':
-						return integral(div(derivative(x), powConst(constant(N, 1).map((v, i) => v + mul(x, x)[i]), 0.5, what), what), Math.asinh(x[0]));
+						return integral(
+							div(
+								derivative(x),
+								powConst(
+									constant(N, 1).map((v, i) => v + mul(x, x)[i]),
+									0.5,
+									what
+								),
+								what
+							),
+							Math.asinh(x[0])
+						);
 					case 'asin':
-						return integral(div(derivative(x), powConst(constant(N, 1).map((v, i) => v - mul(x, x)[i]), 0.5, what), what), Math.asin(x[0]));
+						return integral(
+							div(
+								derivative(x),
+								powConst(
+									constant(N, 1).map((v, i) => v - mul(x, x)[i]),
+									0.5,
+									what
+								),
+								what
+							),
+							Math.asin(x[0])
+						);
 					case 'acos':
-						return integral(div(derivative(x), powConst(constant(N, 1).map((v, i) => v - mul(x, x)[i]), 0.5, what), what), Math.acos(x[0])).map((v, i) => (i === 0 ? v : -v));
+						return integral(
+							div(
+								derivative(x),
+								powConst(
+									constant(N, 1).map((v, i) => v - mul(x, x)[i]),
+									0.5,
+									what
+								),
+								what
+							),
+							Math.acos(x[0])
+						).map((v, i) => (i === 0 ? v : -v));
 					case 'atanh':
-						return integral(div(derivative(x), constant(N, 1).map((v, i) => v - mul(x, x)[i]), what), Math.atanh(x[0]));
+						return integral(
+							div(
+								derivative(x),
+								constant(N, 1).map((v, i) => v - mul(x, x)[i]),
+								what
+							),
+							Math.atanh(x[0])
+						);
 					case 'acosh':
-						return integral(div(derivative(x), powConst(mul(x, x).map((v, i) => v - (i === 0 ? 1 : 0)), 0.5, what), what), Math.acosh(x[0]));
+						return integral(
+							div(
+								derivative(x),
+								powConst(
+									mul(x, x).map((v, i) => v - (i === 0 ? 1 : 0)),
+									0.5,
+									what
+								),
+								what
+							),
+							Math.acosh(x[0])
+						);
 					case 'abs':
 						if (x[0] === 0) throw notAnalytic(what(), 'abs of a term vanishing at z = 0');
 						return x[0] > 0 ? x : x.map((v) => -v);

@@ -95,7 +95,13 @@ export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
 	const ms = metricSeriesAt(bulk, n);
 	if (ms) {
 		// decimals: the metric's coefficients are sums of Beta values weighted by its Taylor coefficients
-		return ms.values.map((value, i) => ({ k: i + 1, power: ms.powers[i], value, latex: `\\approx ${Number(value.toPrecision(12))}`, exact: false }));
+		return ms.values.map((value, i) => ({
+			k: i + 1,
+			power: ms.powers[i],
+			value,
+			latex: `\\approx ${Number(value.toPrecision(12))}`,
+			exact: false
+		}));
 	}
 	if (isChargedSeries(bulk)) {
 		const values = seriesValues(bulk, n);

@@ -42,7 +42,10 @@ describe('metric written as a named bulk reproduces it', () => {
 			const pairs = [
 				[makeBulk('brane', { d, zh: 1 }), makeBulk('metric', { d, f: `1 - z^${d}` })],
 				[makeBulk('wave', { d, zp: 1.2 }), makeBulk('metric', { d, f: '1', h: `1 + (z/zp)^${d}`, zp: 1.2 })],
-				[makeBulk('charged', { d, zh: 1.3, q: 0.5 }), makeBulk('metric', { d, f: `1 - (1+q^2)*(z/zh)^${d} + q^2*(z/zh)^${2 * (d - 1)}`, zh: 1.3, q: 0.5 })]
+				[
+					makeBulk('charged', { d, zh: 1.3, q: 0.5 }),
+					makeBulk('metric', { d, f: `1 - (1+q^2)*(z/zh)^${d} + q^2*(z/zh)^${2 * (d - 1)}`, zh: 1.3, q: 0.5 })
+				]
 			];
 			for (const [named, metric] of pairs) {
 				const n = 5;
@@ -53,7 +56,9 @@ describe('metric written as a named bulk reproduces it', () => {
 				const pa = seriesPowers(named!, n);
 				const pb = seriesPowers(metric!, n);
 				expect(pb, `${named!.name} d=${d} powers`).toEqual(pa);
-				a.forEach((x, i) => expectRel(`${named!.name} d=${d} K=${pa[i]}`, x, b[i]! * Math.pow(unit, pa[i]!), 1e-12, `the ${named!.name} bulk's series`));
+				a.forEach((x, i) =>
+					expectRel(`${named!.name} d=${d} K=${pa[i]}`, x, b[i]! * Math.pow(unit, pa[i]!), 1e-12, `the ${named!.name} bulk's series`)
+				);
 			}
 		}
 	});
@@ -93,7 +98,9 @@ describe('symbolic parameters', () => {
 			const num = readMetric({ d: 4, f: '1 - m*z^4 + q^2*z^6', values: { m: m!, q: q! } });
 			const { powers, values } = metricCoeffsNumeric(num, 4);
 			expect(coeffs.map((c) => c.power)).toEqual(powers);
-			coeffs.forEach((c, i) => expectRel(`m=${m} q=${q} K=${c.power}`, values[i]!, evaluateCoeff(c, vars, { m: m!, q: q! }), 1e-12, 'numeric series'));
+			coeffs.forEach((c, i) =>
+				expectRel(`m=${m} q=${q} K=${c.power}`, values[i]!, evaluateCoeff(c, vars, { m: m!, q: q! }), 1e-12, 'numeric series')
+			);
 		}
 	});
 
@@ -154,7 +161,10 @@ describe('stress tensor, horizon and errors', () => {
 
 	it('a non-rational metric: Taylor-mode coefficients give the series of its typed-out Taylor polynomial (to 1e−12)', () => {
 		// z⁴e^{−z²} = Σ_j (−1)^j z^{4+2j}/j! (common practice); through z^24 the two metrics share every coefficient
-		const poly = Array.from({ length: 11 }, (_, j) => `${j % 2 ? '+' : '-'} z^${4 + 2 * j}/${[1, 1, 2, 6, 24, 120, 720, 5040, 40320, 362880, 3628800][j]}`).join(' ');
+		const poly = Array.from(
+			{ length: 11 },
+			(_, j) => `${j % 2 ? '+' : '-'} z^${4 + 2 * j}/${[1, 1, 2, 6, 24, 120, 720, 5040, 40320, 362880, 3628800][j]}`
+		).join(' ');
 		const a = makeBulk('metric', { d: 4, f: '1 - z^4*exp(-z^2)', zh: 1 });
 		const b = makeBulk('metric', { d: 4, f: `1 ${poly}`, zh: 1 });
 		// each series is in l over its own horizon (the two horizons differ): compare the coefficients of l^K
