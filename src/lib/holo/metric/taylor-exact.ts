@@ -137,7 +137,7 @@ export function taylorExact(
 	const num = expand(r.n);
 	const den = expand(r.d);
 	const inZ = (e: NSym) =>
-		(e.variables().includes('z') ? coeffList(e, 'z') : [e]).map((c) => ({ ...toQPoly(c, internalNames(vars)), vars }));
+		(e.variables().includes('z') ? coeffList(e, 'z') : [e]).map((c): QPoly => ({ ...toQPoly(c, internalNames(vars)), vars }));
 	const n = inZ(num);
 	const dd = inZ(den);
 	// strip common leading powers of z (e.g. (z^4 - z^6)/z^2)
@@ -153,7 +153,7 @@ export function taylorExact(
 	const inv = divQ(makeQ(1n), d0);
 	const c: QPoly[] = [];
 	for (let k = 0; k <= N; k++) {
-		let s = n[k] ?? constQPoly(vars, makeQ(0n));
+		let s: QPoly = n[k] ?? constQPoly(vars, makeQ(0n));
 		for (let j = 1; j <= k && j < dd.length; j++) s = addQPoly(s, mulQPoly(dd[j]!, c[k - j]!), makeQ(-1n));
 		c.push(scaleQPoly(s, inv));
 	}
