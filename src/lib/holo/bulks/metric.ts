@@ -1,10 +1,10 @@
 import { HoloError } from '../errors';
 import { fgStress } from '../metric/fg';
 import { findHorizon, type Horizon } from '../metric/horizon';
-import { metricTerms, type MetricTerms } from '../metric/coeffs';
+import { metricCoeffsNumeric, metricTerms, type MetricTerms } from '../metric/coeffs';
 import { checkBoundary, readMetric, taylorOf, type MetricModel } from '../metric/model';
 import { evaluateQPoly } from '../metric/rational';
-import type { Bulk, PowerTerm, Stress } from '../types';
+import type { Bulk, PowerTerm, SeriesCapability, Stress } from '../types';
 import { readDimension } from './params';
 import { compileMetricFunction } from './sandbox';
 
@@ -34,6 +34,29 @@ export function metricSeriesTerms(bulk: Bulk, n: number): MetricTerms {
 	if (!Number.isInteger(n) || n < 1 || n > 14) throw new HoloError('order must be a whole number from 1 to 14', 'o');
 	const hasScale = bulk.horizon !== undefined || typeof bulk.params.zh === 'number';
 	return metricTerms(data.model, n, hasScale ? bulk.scale : undefined);
+}
+
+/**
+ * Bulk.series of a numeric metric: the powers K ≤ n d of l/scale with a nonzero coefficient (mixed powers, like
+ * the charged brane's), decimals for LaTeX (coeffs with named parameters goes through metricSeriesTerms).
+ */
+function metricSeriesCapability(model: MetricModel, scale: number): SeriesCapability {
+	const at = (n: number) => metricCoeffsNumeric(model, n, scale);
+	return {
+		mixedPowers: true,
+		powers: (n) => at(n).powers,
+		values: (n) => at(n).values,
+		coeffs: (n) => {
+			const { powers, values } = at(n);
+			return values.map((value, i) => ({
+				k: i + 1,
+				power: powers[i],
+				value,
+				latex: `\\approx ${Number(value.toPrecision(12))}`,
+				exact: false
+			}));
+		}
+	};
 }
 
 function readSymbols(v: number | string | undefined): string[] {
@@ -80,7 +103,7 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 				'coeffs darea o=n | tex gives the series in the symbols'
 			);
 		};
-		const bulk: Bulk = { name: 'metric', d, params: out, slice: { d, f: need, h: need }, hasSeries: false, stress: need, thermo: need };
+		const bulk: Bulk = { name: 'metric', d, params: out, slice: { d, f: need, h: need }, stress: need, thermo: need };
 		metricData.set(bulk, { model });
 		return bulk;
 	}
@@ -152,7 +175,7 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		horizon: zh,
 		scale: d >= 3 ? scale : undefined,
 		slice,
-		hasSeries: d >= 3,
+		series: d >= 3 ? metricSeriesCapability(model, scale) : undefined,
 		stress,
 		thermo: (G) => {
 			const s = stress(G);

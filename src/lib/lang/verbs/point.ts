@@ -9,7 +9,7 @@ import type { Point, ScalarAt } from './types';
 /** A line's order as a whole number, for verbs and forms that need a series truncation. */
 export function requireSeries(p: Point): number {
 	if (p.order === 'exact') throw new Error('unreachable: exact order asked of a series');
-	if (!p.bulk.hasSeries) throw new p.holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
+	if (!p.bulk.series) throw new p.holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
 	return p.order;
 }
 
@@ -91,7 +91,7 @@ export function ballArea(p: Point, verb: string): number {
 
 /** The warning a series value of a strip carries at this point, if any. */
 export function seriesWarningAt(p: Point): string | undefined {
-	if (p.order === 'exact' || !p.bulk.hasSeries || p.shape === 'ball') return undefined;
+	if (p.order === 'exact' || !p.bulk.series || p.shape === 'ball') return undefined;
 	const l = p.q.l;
 	if (l === undefined) return undefined;
 	return p.holo.seriesWarning(p.bulk, l, p.order) ?? undefined;
