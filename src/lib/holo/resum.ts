@@ -24,6 +24,7 @@ import { MAX_ORDER, seriesCoeffs } from './series/index';
 import { padeApproximant, evalPade, nearestPole, evalPoly, type PadeApproximant } from './numeric/pade';
 import { firstLawSeries, firstLawCoefficients } from './firstlaw';
 import type { Bulk } from './types';
+import { sigFigs } from './numeric/digits';
 
 export interface ResumResult {
 	order: number;
@@ -121,8 +122,7 @@ function reliability(
 	return notes.length ? { pole, froissart, warning: `Padé: ${notes.join('; ')}` } : { pole, froissart };
 }
 
-const fmtRel = (r: number) =>
-	Number.isFinite(r) ? `${Number((100 * r).toPrecision(2))}%` : 'an unbounded amount (a neighbour has a pole in range)';
+const fmtRel = (r: number) => (Number.isFinite(r) ? `${sigFigs(100 * r, 2)}%` : 'an unbounded amount (a neighbour has a pole in range)');
 
 function checkN(n: number): void {
 	if (!Number.isInteger(n) || n < 2 || n > MAX_ORDER)

@@ -22,6 +22,7 @@ import { HoloError } from '../errors';
 import { findRootBrent } from '../numeric/brent';
 import { integrateStrip, widthAt } from '../strip';
 import type { Bulk, Slice, Stress } from '../types';
+import { sigFigs } from '../numeric/digits';
 
 export interface SolitonParams {
 	d: number;
@@ -222,7 +223,7 @@ export function solitonSurface(P: SolitonParams, l: number, choice: SolitonPhase
 	if (rt.connected === undefined) {
 		const { lmax } = solitonMaxWidth(P);
 		throw new HoloError(
-			`no connected surface for l > l_max = ${Number(lmax.toPrecision(6))}`,
+			`no connected surface for l > l_max = ${sigFigs(lmax)}`,
 			'l',
 			'the disconnected surface is the RT surface there: use phase=rt or phase=disconnected'
 		);

@@ -3,16 +3,11 @@
  * metric's exact Taylor coefficients live in (taylor-exact.ts). Small on purpose: add, multiply, scale,
  * evaluate, print in a form nerdamer reads back.
  */
+import { gcd } from '../series/btz';
+
 export interface Q {
 	n: bigint;
 	d: bigint;
-}
-
-function gcd(a: bigint, b: bigint): bigint {
-	a = a < 0n ? -a : a;
-	b = b < 0n ? -b : b;
-	while (b) [a, b] = [b, a % b];
-	return a;
 }
 
 export function makeQ(n: bigint, d: bigint = 1n): Q {

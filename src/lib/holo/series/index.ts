@@ -4,6 +4,7 @@ import { solveStrip } from '../strip';
 import type { Bulk, SeriesCapability, SeriesCoeff } from '../types';
 import { kappaCoeffs } from './coeffs';
 import { radiusEstimate, radiusFromGrowth } from './radius';
+import { sigFigs } from '../numeric/digits';
 
 export { MAX_ORDER };
 
@@ -173,6 +174,4 @@ export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefi
 	return undefined;
 }
 
-function fmt(x: number): string {
-	return Number(x.toPrecision(4)).toString();
-}
+const fmt = (x: number): string => sigFigs(x, 4);

@@ -5,6 +5,7 @@
  */
 import type { SolitonPhaseChoice, SolitonSurface } from '../../holo/index';
 import type { Point, ScalarAt } from './types';
+import { shortNumber } from '../format';
 
 /** A line's order as a whole number, for verbs and forms that need a series truncation. */
 export function requireSeries(p: Point): number {
@@ -44,8 +45,6 @@ function checkPhase(p: Point): void {
 	);
 }
 
-const short = (x: number) => String(Number(x.toPrecision(6)));
-
 /**
  * What a soliton strip answer is about: its phase, whether that is the RT surface, and l_c, l_max beside it.
  * Every verb with a phase= key passes its answer through here, so a phase the bulk lacks is refused here too.
@@ -58,7 +57,7 @@ export function withSolitonPhase(p: Point, out: ScalarAt): ScalarAt {
 	const which = `${s.phase}${s.minimal ? ', the RT surface' : ', not minimal'}`;
 	const note =
 		`${s.phase} surface (${s.minimal ? 'minimal: the RT surface' : 'not the minimal one: not the entanglement entropy'}); ` +
-		`l_c = ${short(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${short(ph.lmax)}` +
+		`l_c = ${shortNumber(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${shortNumber(ph.lmax)}` +
 		(s.phase === 'disconnected' ? '; the two sheets reach the cap z0, given as z*' : '');
 	return {
 		...out,
