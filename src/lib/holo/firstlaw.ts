@@ -46,7 +46,9 @@
  * de = T ds + μ dρ, with 1/l corrections (tested at l = 20 zh). Exact: ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA and ∂_qΔA
  * by the extremality formula above. No bulk here is both boosted and charged, so there is no three-term law.
  */
+import { metricModelOf } from './bulks/metric';
 import { HoloError } from './errors';
+import { metricFirstLaw } from './metric/firstlaw';
 import { MAX_ASKED_ORDER } from './limits';
 import { solveStrip } from './strip';
 import { areaParameterDerivative } from './dparam';
@@ -224,6 +226,11 @@ const sumSeries = (a: number[], x: number) => a.reduce((s, v, i) => s + v * Math
 export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): FirstLawCoefficients {
 	checkOrder(order);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const metric = metricLaw(bulk, l, order);
+	if (metric) {
+		const { alpha, dA } = metric;
+		return { order, l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, conjugate: null, Aw: dA, Aq: 0 };
+	}
 	const F = familyOf(bulk);
 	const twoParameter = F.kind === 'boosted' || F.kind === 'wave' || F.kind === 'charged';
 	let Aw: number;
@@ -251,6 +258,16 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	}
 	const conjugate = F.kind === 'charged' ? 'charge' : twoParameter ? 'momentum' : null;
 	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, conjugate, Aw, Aq, series };
+}
+
+/**
+ * A custom metric's first law along its scale direction (metric/firstlaw.ts): its family is not one of the
+ * (w, q) families (a black-box f has no power terms to vary, and its series mixes every power), so it is
+ * solved there; undefined for every other bulk.
+ */
+function metricLaw(bulk: Bulk, l: number, order: Order, G = 1) {
+	const data = metricModelOf(bulk);
+	return data && metricFirstLaw(bulk, data.model, l, order, G);
 }
 
 export interface TentResult {
@@ -313,6 +330,17 @@ export interface FirstLawCheck extends FirstLawCoefficients {
  */
 export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCheck {
 	if (!(G > 0) || !Number.isFinite(G)) throw new HoloError('G must be positive', 'G');
+	const metric = metricLaw(bulk, l, order, G);
+	if (metric) {
+		// the scale direction δλ = 1/d (metric/firstlaw.ts): δΔE = l T_tt, δΔS = ∂_λΔA/(4G d)
+		const { alpha, dA, dARef, dAExact, dANext, Ttt } = metric;
+		const d = bulk.d;
+		const rhs = alpha * l * Ttt;
+		const lhs = dARef / (4 * G * d);
+		const residual = dANext === undefined ? lhs - rhs : dANext / (4 * G * d);
+		const scale = { lhs, rhs, residual, residualExact: dAExact / (4 * G * d) - rhs };
+		return { order, l, alpha, zeta: 0, tent: 1 / alpha, mu: 0, twoParameter: false, conjugate: null, Aw: dA, Aq: 0, G, scale };
+	}
 	const F = familyOf(bulk);
 	const co = firstLawCoefficients(bulk, l, order);
 	const ex = order === 'exact' ? co : firstLawCoefficients(bulk, l, 'exact');

@@ -261,3 +261,34 @@ export function evaluateFormula(
 	);
 	return f.evaluate(entries.map(([, v]) => v));
 }
+
+/**
+ * A checked formula as a plain tree, for code that reads its structure rather than its values (the metric's
+ * Taylor coefficients, holo/metric/). Refused exactly as compileFormula refuses (it runs first), so the tree
+ * holds only numbers, the bound names and constants, + − × ÷ ^, unary ± and the allowed function calls.
+ */
+export type FormulaTree =
+	| { kind: 'num'; value: number }
+	| { kind: 'name'; name: string }
+	| { kind: 'op'; op: 'add' | 'subtract' | 'multiply' | 'divide' | 'pow' | 'unaryMinus' | 'unaryPlus'; args: FormulaTree[] }
+	| { kind: 'call'; name: string; args: FormulaTree[] };
+
+export function readFormulaTree(text: string, names: readonly string[], opts: { limits?: Partial<FormulaLimits> } = {}): FormulaTree {
+	compileFormula(text, names, opts);
+	const toTree = (node: MathNode): FormulaTree => {
+		const n = node as MathNode & Record<string, unknown>;
+		switch (node.type) {
+			case 'ConstantNode':
+				return { kind: 'num', value: n.value as number };
+			case 'SymbolNode':
+				return { kind: 'name', name: n.name as string };
+			case 'ParenthesisNode':
+				return toTree(n.content as MathNode);
+			case 'OperatorNode':
+				return { kind: 'op', op: n.fn as 'add', args: (n.args as MathNode[]).map(toTree) };
+			default:
+				return { kind: 'call', name: (n.fn as { name: string }).name, args: (n.args as MathNode[]).map(toTree) };
+		}
+	};
+	return toTree(parseText(text));
+}

@@ -6,6 +6,7 @@ export { HoloError } from './errors';
 export type { Bulk, BulkName, Slice, PowerTerm, SeriesCoeff, SeriesShape, SeriesCapability, FirstLawFamily, Stress, Thermo } from './types';
 export { MAX_ASKED_ORDER } from './limits';
 export { makeBulk, registerBulk, BULK_NAMES } from './bulks/index';
+export { metricSeriesTerms } from './bulks/metric';
 export { zstarOf, widthOf, areaFinite, deltaArea, vacuumAreaFinite, stripIntegrals } from './area';
 export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor, widthSlope } from './strip';
 export { dAreaDParam } from './dparam';

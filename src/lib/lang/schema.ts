@@ -60,7 +60,13 @@ export const BULK_SCHEMAS = {
 	wave: z.object({ d: dim(3, ' for a wave along a transverse direction').default(4), zp: positive('zp').default(1) }).strict(),
 	soliton: z.object({ d: dim(3, ' for a circle to cap off').default(4), z0: positive('z0').default(1) }).strict(),
 	metric: z
-		.object({ d: dim(2).default(4), f: formula('f'), h: formula('h').default('1') })
+		.object({
+			d: dim(2).default(4),
+			f: formula('f'),
+			h: formula('h').default('1'),
+			g: formula('g').optional(),
+			params: z.string('params must be a string of names, e.g. params="m,q"').optional()
+		})
 		.catchall(z.number('extra metric keys must be numbers'))
 } satisfies Record<BulkName, z.ZodType>;
 

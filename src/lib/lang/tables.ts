@@ -104,7 +104,8 @@ export function tableRef(t: TableResult): StepRef | undefined {
 /** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series (each term at its own power of ℓ/scale). */
 export function seriesLatex(st: SeriesTerms): string {
 	const d = st.d;
-	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{${st.scale}}\\right)^{${t.power}}`);
+	const unit = (k: number) => (st.scale === '1' ? `\\ell^{${k}}` : `\\left(\\frac{\\ell}{${st.scale}}\\right)^{${k}}`);
+	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)${unit(t.power)}`);
 	const pre = d === 2 ? '' : `\\ell^{${2 - d}}`;
 	return `\\Delta A = ${pre}\\Big[${terms.join(' + ') || '0'}\\Big]`;
 }

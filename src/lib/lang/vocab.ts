@@ -28,7 +28,7 @@ export const BULK_KEYS: Record<BulkName, readonly string[]> = {
 	dp: ['p', 'zh'],
 	wave: ['d', 'zp'],
 	soliton: ['d', 'z0'],
-	metric: ['d', 'f', 'h']
+	metric: ['d', 'f', 'g', 'h', 'params']
 };
 /** every key a bulk may take */
 export const ALL_BULK_KEYS = ['d', 'zh', 'v', 'rapidity', 'q', 'p', 'zp', 'z0', 'f', 'h'] as const;

@@ -58,7 +58,8 @@ describe('metric strings: each attack refused with its exact error, then a clean
 		['sin.constructor("return process")', 'f is refused: only named functions can be called'],
 		['true', 'f is refused: only numbers are allowed (got true)'],
 		['1 - z!', "f is refused: operator '!' is not allowed"],
-		['1 - 2 cm', "f is refused: unknown name 'cm'"],
+		// a free name is a symbolic parameter (never a unit): here it makes f(0) ≠ 1
+		['1 - 2 cm', 'f(0) must be 1 (got -2*cm+1)'],
 		['1 - sqrt', "f is refused: 'sqrt' is a function: call it, e.g. sqrt(z)"],
 		['1 - pow(z)', 'f is refused: pow takes 2 arguments, got 1'],
 		[HUGE_NESTING, 'f is longer than 400 characters'],

@@ -38,7 +38,7 @@ describe('complete', () => {
 	it('works in the statement the cursor is in', () => {
 		expect(inserts('use brane; th')).toEqual(['thermo']);
 		expect(inserts('thermo; use ', 12)).toEqual([...BULKS]);
-		expect(inserts('use metric f="a;b" ', undefined, { bulk: 'metric' })).toEqual(['d=', 'h=']);
+		expect(inserts('use metric f="a;b" ', undefined, { bulk: 'metric' })).toEqual(['d=', 'g=', 'h=', 'params=']);
 	});
 	it('gives one line of help with each candidate', () => {
 		const c = complete('thermo').items;

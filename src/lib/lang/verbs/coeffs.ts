@@ -14,9 +14,18 @@ export const coeffs = defineVerb({
 		accuracy:
 			'values ≤ 1e-12 relative for d = 4…10, k ≤ 14 against 60-digit mpmath (tests/fixtures/holo/series.json); LaTeX exact where marked',
 		source: 'order 1: Bhattacharya, Nozaki, Takayanagi & Ugajin 2013; higher orders derived here (PHYSICS.md, "Perturbative series")',
-		examples: ['coeffs darea o=4 | tex', 'use boosted d=4 v=0.6; coeffs darea o=3']
+		examples: [
+			'coeffs darea o=4 | tex',
+			'use boosted d=4 v=0.6; coeffs darea o=3',
+			'use metric d=4 f="1-m*z^4+q^2*z^6"; coeffs darea o=3 | tex'
+		]
 	},
 	at: (p) => {
+		if (p.bulk.name === 'metric' && typeof p.order === 'number') {
+			// a metric's coefficients: polynomials in its named parameters, or numbers (holo/metric/coeffs.ts)
+			const t = p.holo.metricSeriesTerms(p.bulk, p.order);
+			return { terms: t.terms, d: p.bulk.d, scale: t.scale };
+		}
 		const n = requireSeries(p);
 		const c = p.holo.seriesCoeffs(p.bulk, n);
 		return {

@@ -54,8 +54,8 @@ export interface RecordAt {
 export interface SeriesTerms {
 	terms: { k: number; coeff: number; latex: string; power: number }[];
 	d: number;
-	/** the length the series variable is measured in: z_h, or z_p for the plane wave */
-	scale: 'z_h' | 'z_p';
+	/** the length the series variable is measured in: z_h, or z_p for the plane wave; '1': terms multiply ℓ^K (a metric's named parameters) */
+	scale: 'z_h' | 'z_p' | '1';
 }
 
 export interface CheckAt {
