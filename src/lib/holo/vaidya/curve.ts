@@ -10,7 +10,8 @@ import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
  * boundary time is not monotonic in ζ for d ≥ 3 (Liu & Suh 2014): near saturation it overshoots t_sat and comes
  * back, so a time can have up to three surfaces (two of the family and the static one); the linear-growth part
  * of a wide strip is steep in ζ. The curve is sampled on a grid clustered at ζ = 1, refined by bisection where
- * t or ΔA jumps, and its interior extrema of t are located (golden section), so every solution of t(ζ) = t lies in
+ * t or ΔA jumps, and its interior extrema of t are located (golden section to 1e−6 in ζ, so t_max to ~1e−12), so
+ * every solution of t(ζ) = t lies in
  * a bracket of the grid and is then refined by Brent's method in ζ — never by continuation in t.
  */
 export interface Curve {
@@ -84,7 +85,7 @@ function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
 		let p1 = pointAt(d, l, x1, b.surface?.zstar);
 		let p2 = pointAt(d, l, x2, b.surface?.zstar);
 		if (!p1 || !p2) continue;
-		for (let k = 0; k < 40 && hi - lo > 1e-10 * hi; k++) {
+		for (let k = 0; k < 40 && hi - lo > 1e-6 * hi; k++) {
 			if (sgn * p1.t > sgn * p2.t) {
 				hi = x2;
 				x2 = x1;

@@ -93,19 +93,23 @@ function pFromTurn(S: Setup, ut: number, lnr: number): number {
 export function minimumOfP(d: number, mu: number): number {
 	const n = 2 * (d - 1);
 	if (d === 2) return Math.pow(mu, -0.25);
-	// bisection + Newton in ln y on h(y) = −n + μ(n−d) y + μ d y^{1+n/d}
+	// Newton in ln y on h(y) = −n + μ(n−d) y + μ d y^{1+n/d}: h is increasing and convex in y, so from a point
+	// with h > 0 the iterates decrease monotonically onto the root
 	const e = 1 + n / d;
-	const h = (ly: number) => -n + mu * (n - d) * Math.exp(ly) + mu * d * Math.exp(e * ly);
-	let lo = -5;
-	while (h(lo) > 0) lo -= 5;
-	let hi = lo + 5;
-	while (h(hi) < 0) hi += 5;
-	for (let k = 0; k < 200 && hi - lo > 1e-15 * Math.max(1, Math.abs(lo)); k++) {
-		const mid = 0.5 * (lo + hi);
-		if (h(mid) < 0) lo = mid;
-		else hi = mid;
+	const A = mu * (n - d);
+	const B = mu * d;
+	let ly = Math.min(Math.log(n / Math.max(A, B)), -Math.log(B) / e);
+	while (-n + A * Math.exp(ly) + B * Math.exp(e * ly) < 0) ly += 1;
+	for (let k = 0; k < 100; k++) {
+		const y = Math.exp(ly);
+		const ye = Math.exp(e * ly);
+		const h = -n + A * y + B * ye;
+		const dh = A * y + e * B * ye; // dh/d ln y
+		const step = h / dh;
+		ly -= step;
+		if (Math.abs(step) < 1e-15) break;
 	}
-	return Math.exp((0.5 * (lo + hi)) / d);
+	return Math.exp(ly / d);
 }
 
 /** The zero of P in (ζ, u_m) (a > 1), or NaN when P does not reach zero there (no such surface). */

@@ -15,32 +15,61 @@ const PAST_EDGE = 40;
  */
 export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
 	const lnl = Math.log(l);
-	let best: Surface | null = null;
-	const g = (x: number): number => {
+	const g = (x: number): { v: number; s: Surface | null } => {
 		const s = surfaceAt(d, Math.exp(x), zeta);
-		if (!s) return PAST_EDGE;
-		const v = Math.log(s.l) - lnl;
-		if (!best || Math.abs(v) < Math.abs(Math.log(best.l) - lnl)) best = s;
-		return v;
+		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
 	let x0 = Math.log(guess ?? l / vacuumWidthFactor(d));
 	let g0 = g(x0);
-	let step = g0 < 0 ? 0.25 : -0.25;
+	// secant from the guess (ln l is close to linear in ln z*, slope ≈ 1 far from the edge); Brent's bracketed
+	// search below takes over if it leaves the family or stalls
+	if (g0.s) {
+		let xa = x0;
+		let ga = g0;
+		let xb = x0 - Math.min(Math.max(g0.v, -0.5), 0.5);
+		for (let k = 0; k < 12; k++) {
+			const gb = g(xb);
+			if (!gb.s) break;
+			if (Math.abs(gb.v) < 1e-15) return gb.s;
+			const den = gb.v - ga.v;
+			if (den === 0) break;
+			const xn = xb - (gb.v * (xb - xa)) / den;
+			if (Math.abs(xn - xb) < 1e-14 * Math.max(1, Math.abs(xb))) {
+				const gn = g(xn);
+				return gn.s ?? gb.s;
+			}
+			xa = xb;
+			ga = gb;
+			xb = xn;
+		}
+	}
+	let step = g0.v < 0 ? 0.25 : -0.25;
 	let x1 = x0 + step;
 	let g1 = g(x1);
-	for (let k = 0; g0 * g1 > 0; k++) {
+	for (let k = 0; g0.v * g1.v > 0; k++) {
 		if (k > 80) return null;
 		x0 = x1;
 		g0 = g1;
-		if (g1 === PAST_EDGE) step = -Math.abs(step);
+		if (!g1.s) step = -Math.abs(step);
 		else step *= 1.6;
 		x1 = x0 + step;
 		g1 = g(x1);
 	}
-	best = null;
-	const r = findRootBrent(g, x0, x1, 1e-15, 200, g0, g1);
-	const s = surfaceAt(d, Math.exp(r.x), zeta);
-	return s ?? best;
+	let best: Surface | null = null;
+	const r = findRootBrent(
+		(x) => {
+			const q = g(x);
+			if (q.s && (!best || Math.abs(q.v) < Math.abs(Math.log(best.l) - lnl))) best = q.s;
+			return q.v;
+		},
+		x0,
+		x1,
+		1e-15,
+		200,
+		g0.v,
+		g1.v
+	);
+	return surfaceAt(d, Math.exp(r.x), zeta) ?? best;
 }
 
 /** One point of the family at fixed width: ζ = 1 is the static brane surface (reached at t = t_sat). */
