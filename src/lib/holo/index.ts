@@ -27,3 +27,4 @@ export type { Units } from './units';
 export { gamma, lgamma, rgamma } from './special/gamma';
 export { beta, betaHalfShift } from './special/beta';
 export * from './analysis';
+export * from './vaidya/index';
