@@ -28,3 +28,5 @@ export { gamma, lgamma, rgamma } from './special/gamma';
 export { beta, betaHalfShift } from './special/beta';
 export * from './analysis';
 export * from './vaidya/index';
+export { staticProfile } from './profile';
+export type { ProfilePoint } from './profile';

@@ -5,3 +5,4 @@ export { analyseGrowth, tsunamiVelocity } from './growth';
 export type { Growth } from './growth';
 export { surfaceAt } from './family';
 export type { Surface } from './family';
+export { hrtProfile } from './profile';
