@@ -123,7 +123,7 @@ export function surfacesAt(curve: Curve, t: number): Surface[] {
 		const gb = B.t - t;
 		if (ga * gb > 0 || (gb === 0 && i + 2 < points.length)) continue;
 		if (B.zeta >= 1 && gb === 0) continue; // the static end itself is added by the caller
-		let last: Surface | null = null;
+		let last = null as Surface | null;
 		const g = (zeta: number): number => {
 			if (zeta <= 0) return -t;
 			if (zeta >= 1) return curve.static.tsat - t;

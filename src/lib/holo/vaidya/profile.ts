@@ -65,7 +65,7 @@ export function hrtProfile(
 		tip,
 		true
 	).map((p) => ({ ...p, v: zc - p.z }));
-	let at = inside[inside.length - 1];
+	let at: ProfilePoint = inside[inside.length - 1];
 	at = { x: at.x, z: zeta, v: 0 };
 	const parts: ProfilePoint[] = [tip, ...inside];
 	const descent = (u: number): [number, number] => {
