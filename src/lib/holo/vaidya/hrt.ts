@@ -39,6 +39,11 @@ export interface HrtAnswer {
 const CACHE = new Map<string, Curve>();
 const CACHE_MAX = 16;
 
+/** Forgets the cached family curves (benchmarks time cold points with it). */
+export function clearQuenchCache(): void {
+	CACHE.clear();
+}
+
 /** The family curve of width l/zh (cached: a growth sweep at one width reuses it for every time). */
 export function curveFor(d: number, L: number): Curve {
 	const key = `${d}:${L}`;

@@ -1,5 +1,5 @@
 /** Thin-shell AdS–Vaidya quench: HRT surfaces of strips, growth analysis, surface profiles (PHYSICS.md, "Quench"). */
-export { hrtDeltaArea, curveFor } from './hrt';
+export { hrtDeltaArea, curveFor, clearQuenchCache } from './hrt';
 export type { HrtAnswer, HrtSurface } from './hrt';
 export { analyseGrowth, tsunamiVelocity } from './growth';
 export type { Growth } from './growth';
