@@ -71,12 +71,22 @@ function refine(d: number, l: number, pts: CurvePoint[]): void {
 /** Inserts each interior local extremum of t (golden-section search on the three grid points around it). */
 function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
 	const found: CurvePoint[] = [];
+	// the family has one fold near saturation (and its partner minimum when t overshoots): refine the two most
+	// prominent extrema; rounding wiggles in the steep part of a wide strip's curve are not folds
+	const cand: { i: number; sgn: number; prom: number }[] = [];
 	for (let i = 1; i + 1 < pts.length; i++) {
 		const a = pts[i - 1];
 		const b = pts[i];
 		const c = pts[i + 1];
 		const sgn = b.t > a.t && b.t >= c.t ? 1 : b.t < a.t && b.t <= c.t ? -1 : 0;
 		if (!sgn || c.zeta >= 1 || a.zeta <= 0) continue;
+		cand.push({ i, sgn, prom: Math.abs(b.t - 0.5 * (a.t + c.t)) });
+	}
+	cand.sort((x, y) => y.prom - x.prom);
+	for (const { i, sgn } of cand.slice(0, 2)) {
+		const a = pts[i - 1];
+		const b = pts[i];
+		const c = pts[i + 1];
 		let lo = a.zeta;
 		let hi = c.zeta;
 		const gr = (Math.sqrt(5) - 1) / 2;

@@ -1,4 +1,3 @@
-import { findRootBrent } from '../numeric/brent';
 import { vacuumWidthFactor } from '../strip';
 import { surfaceAt, type Surface } from './family';
 import { integrateAdaptive } from './quad';
@@ -9,9 +8,9 @@ import { integrateAdaptive } from './quad';
 const PAST_EDGE = 40;
 
 /**
- * The surface of width l (units zh = 1) that crosses the shell at fraction ζ: Brent in x = ln z* on
- * ln(l(x)/l), bracketed from `guess` (the previous ζ's tip in a scan, else the vacuum tip l/W₀). At fixed ζ the
- * width grows monotonically with the tip up to the family's edge (checked by the scans in the tests).
+ * The surface of width l (units zh = 1) that crosses the shell at fraction ζ: a safeguarded secant in x = ln z*
+ * on ln(l(x)/l), from `guess` (the previous ζ's tip in a scan, else the vacuum tip l/W₀). At fixed ζ the width
+ * grows monotonically with the tip up to the family's edge (seen in every scan of the tests).
  */
 export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
 	const lnl = Math.log(l);
@@ -19,57 +18,45 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 		const s = surfaceAt(d, Math.exp(x), zeta);
 		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
-	let x0 = Math.log(guess ?? l / vacuumWidthFactor(d));
-	let g0 = g(x0);
-	// secant from the guess (ln l is close to linear in ln z*, slope ≈ 1 far from the edge); Brent's bracketed
-	// search below takes over if it leaves the family or stalls
-	if (g0.s) {
-		let xa = x0;
-		let ga = g0;
-		let xb = x0 - Math.min(Math.max(g0.v, -0.5), 0.5);
-		for (let k = 0; k < 12; k++) {
-			const gb = g(xb);
-			if (!gb.s) break;
-			if (Math.abs(gb.v) < 1e-15) return gb.s;
-			const den = gb.v - ga.v;
-			if (den === 0) break;
-			const xn = xb - (gb.v * (xb - xa)) / den;
-			if (Math.abs(xn - xb) < 1e-14 * Math.max(1, Math.abs(xb))) {
-				const gn = g(xn);
-				return gn.s ?? gb.s;
-			}
-			xa = xb;
-			ga = gb;
-			xb = xn;
+	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
+	let xa = Math.log(guess ?? l / vacuumWidthFactor(d));
+	let a = g(xa);
+	for (let k = 0; !a.s; k++) {
+		if (k > 60) return null;
+		xa -= 0.05 * Math.pow(1.5, k);
+		a = g(xa);
+	}
+	// safeguarded secant on ln(l(x)/l), x = ln z* (ln l is close to linear in x, slope ≈ 1 far from the edge): the
+	// bracket [lo, hi] (hi = wider than l, or past the edge) takes a bisection whenever the secant leaves it
+	let lo = a.v < 0 ? xa : -Infinity;
+	let hi = a.v > 0 ? xa : Infinity;
+	let xb = xa - Math.min(Math.max(a.v, -0.5), 0.5);
+	for (let k = 0; k < 200; k++) {
+		if (Math.abs(a.v) < 1e-15) return a.s;
+		const b = g(xb);
+		if (!b.s) {
+			hi = Math.min(hi, xb);
+			xb = 0.5 * (xa + xb);
+			continue;
+		}
+		if (b.v < 0) lo = Math.max(lo, xb);
+		else hi = Math.min(hi, xb);
+		if (Math.abs(b.v) < 1e-15) return b.s;
+		let xn = b.v === a.v ? NaN : xb - (b.v * (xb - xa)) / (b.v - a.v);
+		if (!(xn > lo && xn < hi)) {
+			if (Number.isFinite(lo) && Number.isFinite(hi)) xn = 0.5 * (lo + hi);
+			else xn = xb + (b.v < 0 ? 0.5 : -0.5);
+		}
+		const done = Math.abs(xn - xb) < 1e-14 * Math.max(1, Math.abs(xb));
+		xa = xb;
+		a = b;
+		xb = xn;
+		if (done) {
+			const last = g(xb);
+			return last.s && Math.abs(last.v) <= Math.abs(b.v) ? last.s : b.s;
 		}
 	}
-	let step = g0.v < 0 ? 0.25 : -0.25;
-	let x1 = x0 + step;
-	let g1 = g(x1);
-	for (let k = 0; g0.v * g1.v > 0; k++) {
-		if (k > 80) return null;
-		x0 = x1;
-		g0 = g1;
-		if (!g1.s) step = -Math.abs(step);
-		else step *= 1.6;
-		x1 = x0 + step;
-		g1 = g(x1);
-	}
-	let best: Surface | null = null;
-	const r = findRootBrent(
-		(x) => {
-			const q = g(x);
-			if (q.s && (!best || Math.abs(q.v) < Math.abs(Math.log(best.l) - lnl))) best = q.s;
-			return q.v;
-		},
-		x0,
-		x1,
-		1e-15,
-		200,
-		g0.v,
-		g1.v
-	);
-	return surfaceAt(d, Math.exp(r.x), zeta) ?? best;
+	return a.s;
 }
 
 /** One point of the family at fixed width: ζ = 1 is the static brane surface (reached at t = t_sat). */
