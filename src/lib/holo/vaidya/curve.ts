@@ -53,7 +53,7 @@ export function buildCurve(d: number, l: number): Curve {
 function refine(d: number, l: number, pts: CurvePoint[]): void {
 	const tr = Math.max(...pts.map((p) => p.t));
 	const ar = Math.max(...pts.map((p) => p.dA));
-	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS; ) {
+	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS;) {
 		const A = pts[i];
 		const B = pts[i + 1];
 		const jump = Math.abs(B.t - A.t) > tr / 16 || Math.abs(B.dA - A.dA) > ar / 16;

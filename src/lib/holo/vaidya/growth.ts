@@ -151,9 +151,7 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 		kind: {
 			continuous,
 			slopeBefore: slopeBefore * scaleS,
-			how: continuous
-				? 'dΔA/dt → 0 at saturation: continuous'
-				: 'dΔA/dt jumps from the value before saturation to 0: a kink'
+			how: continuous ? 'dΔA/dt → 0 at saturation: continuous' : 'dΔA/dt jumps from the value before saturation to 0: a kink'
 		}
 	};
 }

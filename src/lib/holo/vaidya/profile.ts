@@ -9,13 +9,7 @@ import { hrtDeltaArea, type HrtAnswer } from './hrt';
  * when a > 1. Each part in a variable that removes its square-root endpoint: u = 1 − s² at the tip, u = u_t − s²
  * at the turning point. The static (saturated) surface uses the brane profile with v(z) = t − ∫₀^z dz/f.
  */
-export function hrtProfile(
-	d: number,
-	zh: number,
-	l: number,
-	t: number,
-	count = 60
-): { answer: HrtAnswer; points: ProfilePoint[] } {
+export function hrtProfile(d: number, zh: number, l: number, t: number, count = 60): { answer: HrtAnswer; points: ProfilePoint[] } {
 	const answer = hrtDeltaArea(d, zh, l, t);
 	const w = answer.winner;
 	if (w.kind === 'vacuum') {
