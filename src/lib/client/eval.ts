@@ -2,25 +2,10 @@
  * POST /api/eval from the browser. Asks for the NDJSON stream so a long sweep can report progress, and
  * takes an AbortSignal: aborting closes the request, which the server takes as "cancel this evaluation".
  */
-import type { BulkState, Result, UnitsState } from '$lib/lang/result';
+import type { EvalBody } from '$lib/lang/result';
 
-export interface EvalError {
-	message: string;
-	start: number;
-	end: number;
-	hint?: string;
-	code?: string;
-}
-
-export interface EvalBody {
-	ok: boolean;
-	step?: { id: string; n: number };
-	bulk?: BulkState;
-	units?: UnitsState;
-	ms?: number;
-	results?: Result[];
-	error?: EvalError;
-}
+// the reply's shapes are declared once, beside the results, for the server and this client alike
+export type { EvalBody, EvalError } from '$lib/lang/result';
 
 export interface EvalReply {
 	status: number;
@@ -96,7 +81,7 @@ export async function evaluateLine(
 	try {
 		body = (await res.json()) as EvalBody;
 	} catch {
-		body = { ok: false, error: { message: `The server answered ${res.status}.`, start: 0, end: 0 } };
+		body = { ok: false, error: { message: `The server answered ${res.status}.`, start: 0, end: 0, code: 'internal' } };
 	}
 	return { status: res.status, body };
 }

@@ -4,6 +4,7 @@
  */
 import type { Order } from './result';
 import type { BulkState } from './result';
+import { sigFigs } from '../holo/numeric/digits';
 
 /** A number as LaTeX: 1.234567890\times10^{-3}. */
 export function texNumber(x: number, digits = 10): string {
@@ -16,9 +17,9 @@ export function texNumber(x: number, digits = 10): string {
 	return `${m[1]}\\times10^{${exp}}`;
 }
 
-/** A number for a label: short, 6 significant digits. */
+/** A number for a label: short, 6 significant digits (the engine's formatter, so messages and labels agree). */
 export function shortNumber(x: number): string {
-	return Number(x.toPrecision(6)).toString();
+	return sigFigs(x, 6);
 }
 
 /** `boosted d=4 zh=1 v=0.6` */

@@ -113,12 +113,42 @@ export interface LineOutcome {
 	ref: StepRef;
 }
 
-/** A language or engine error that points at the offending characters of the line. */
-export interface LineErrorShape {
+/**
+ * Why a line has no answer, and its HTTP status: 'language' 400, 'limit' 422, 'throttled' 429 (its author
+ * already has too many lines waiting), 'busy' 503 (the queue was too long for too long), 'internal' 500.
+ * Neither 'busy' nor 'throttled' is a verdict on the line itself.
+ */
+export type EvalErrorCode = 'language' | 'limit' | 'internal' | 'busy' | 'throttled';
+
+/** The error of POST /api/eval (API.md), pointing at the offending characters of the line. */
+export interface EvalError {
 	message: string;
 	start: number;
 	end: number;
 	hint?: string;
-	/** 'language' → HTTP 400; 'limit' → HTTP 422 */
-	code: 'language' | 'limit';
+	code: EvalErrorCode;
+	/** seconds, with 'busy' and 'throttled' (also sent as Retry-After) */
+	retryAfter?: number;
 }
+
+/** The error a failed step keeps (an imported step may carry no code). */
+export type StepError = Omit<EvalError, 'code' | 'retryAfter'> & { code?: EvalErrorCode };
+
+/** The JSON body of POST /api/eval, declared once for the server that sends it and the browser that reads it. */
+export interface EvalBody {
+	ok: boolean;
+	/** the step the line became (pad evaluations) */
+	step?: { id: string; n: number };
+	/** the pad's bulk and units after the line */
+	bulk?: BulkState;
+	units?: UnitsState;
+	/** wall time of the request, time waiting in the queue, time evaluating */
+	ms?: number;
+	queuedMs?: number;
+	runMs?: number;
+	results?: Result[];
+	error?: EvalError;
+}
+
+/** A language or engine error that points at the offending characters of the line (LangError's shape). */
+export type LineErrorShape = Omit<EvalError, 'code' | 'retryAfter'> & { code: Extract<EvalErrorCode, 'language' | 'limit'> };

@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import type { Order } from './result';
 import { BULK_KEYS, WORD_KEYS, type BulkName } from './vocab';
+import { shortNumber } from './format';
 
 const dim = (min: number, why = '') =>
 	z.number('d must be a number').int('d must be a whole number').min(min, `d must be ≥ ${min}${why}`).max(10, 'd must be ≤ 10');
@@ -70,9 +71,7 @@ export const BULK_SCHEMAS = {
 		.strict()
 } satisfies Record<BulkName, z.ZodType>;
 
-function fmt(x: number): string {
-	return String(Number(x.toPrecision(6)));
-}
+const fmt = shortNumber;
 
 export type Checked<T> = { ok: true; value: T } | { ok: false; key?: string; message: string; hint?: string };
 

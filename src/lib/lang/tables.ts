@@ -119,7 +119,7 @@ export function validityHints(orders: Order[], pointOf: (o: Order) => Point): Re
 		if (o === 'exact' || o < 1) continue;
 		try {
 			const p = pointOf(o);
-			if (!p.bulk.hasSeries) continue;
+			if (!p.bulk.series) continue;
 			const r = p.holo.validity(p.bulk, o, DEFAULT_VALIDITY_TOL);
 			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max;
 		} catch (e) {

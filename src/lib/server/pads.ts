@@ -3,7 +3,7 @@ import { getDb, schema } from './db';
 import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
-import type { BulkState, LetValue, LineErrorShape, PadContext, Result, StepRef, UnitsState } from '../lang/result';
+import type { BulkState, LetValue, PadContext, Result, StepError, StepRef, UnitsState } from '../lang/result';
 
 export const DEFAULT_BULK: BulkState = { name: 'brane', params: { d: 4, zh: 1 } };
 export const DEFAULT_UNITS: UnitsState = { system: 'geo', G: 1 };
@@ -151,7 +151,7 @@ export function finishStep(
 	ms: number,
 	answer:
 		| { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> }
-		| { ok: false; error: LineErrorShape | { message: string; start: number; end: number; code: string } }
+		| { ok: false; error: StepError }
 ) {
 	const db = getDb();
 	db.transaction((tx) => {

@@ -22,6 +22,7 @@ import { HoloError } from '../errors';
 import { findRootBrent } from '../numeric/brent';
 import { integrateStrip, widthAt } from '../strip';
 import type { Bulk, Slice, Stress } from '../types';
+import { sigFigs } from '../numeric/digits';
 
 export interface SolitonParams {
 	d: number;
@@ -57,7 +58,6 @@ export function makeSolitonBulk(params: Record<string, number | string>): Bulk {
 		params: { d, z0, period: (4 * Math.PI * z0) / d },
 		scale: z0,
 		slice: sliceOf(P),
-		hasSeries: false,
 		// y is the circle θ here
 		stress: (G): Stress => ({ tt: -c(G), ty: 0, xx: c(G), yy: -(d - 1) * c(G) }),
 		thermo: (G) => ({ T: 0, s: 0, e: -c(G), p: c(G), py: -(d - 1) * c(G) })
@@ -223,7 +223,7 @@ export function solitonSurface(P: SolitonParams, l: number, choice: SolitonPhase
 	if (rt.connected === undefined) {
 		const { lmax } = solitonMaxWidth(P);
 		throw new HoloError(
-			`no connected surface for l > l_max = ${Number(lmax.toPrecision(6))}`,
+			`no connected surface for l > l_max = ${sigFigs(lmax)}`,
 			'l',
 			'the disconnected surface is the RT surface there: use phase=rt or phase=disconnected'
 		);

@@ -14,5 +14,5 @@ export function makeVaidya(params: Record<string, number | string>): Bulk {
 	if (!Number.isInteger(d) || d < 2 || d > 6) throw new HoloError('vaidya needs an integer d from 2 to 6', 'd');
 	const zh = readLength(params, 'zh');
 	const brane = makeBrane({ d, zh });
-	return { ...brane, name: 'vaidya', params: { d, zh }, hasSeries: false, series: undefined };
+	return { ...brane, name: 'vaidya', params: { d, zh }, series: undefined, firstLaw: undefined };
 }

@@ -9,7 +9,8 @@ export interface Fraction {
 	den: bigint;
 }
 
-function gcd(a: bigint, b: bigint): bigint {
+/** Greatest common divisor of two BigInts (the one used by every exact-rational module here). */
+export function gcd(a: bigint, b: bigint): bigint {
 	a = a < 0n ? -a : a;
 	b = b < 0n ? -b : b;
 	while (b) [a, b] = [b, a % b];

@@ -1,6 +1,7 @@
 import { exactSeries, type ExactKind } from './exact';
 import { evaluateTerms, type Fraction, type Term } from './laurent';
 import { beta } from '../special/beta';
+import { gcd } from './btz';
 
 /**
  * Exact a_k as KaTeX: a rational content and a common monomial in front, then the primitive part with
@@ -65,13 +66,6 @@ export function clearExactCache(): void {
 }
 
 // ---------- formatting ----------
-
-function gcd(a: bigint, b: bigint): bigint {
-	a = a < 0n ? -a : a;
-	b = b < 0n ? -b : b;
-	while (b) [a, b] = [b, a % b];
-	return a;
-}
 
 function atomLatex(d: number, i: number): string {
 	if (i === 1) return '\\pi';

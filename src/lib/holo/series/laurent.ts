@@ -12,7 +12,7 @@
  * 140 s); the reversion to order 12 needs thousands of such products. This file does the same ring
  * arithmetic (sums, products, rational scaling, inverse of a monomial — no simplification rules) exactly.
  */
-import { fraction, fractionValue, type Fraction } from './btz';
+import { fraction, fractionValue, gcd, type Fraction } from './btz';
 
 export type { Fraction };
 
@@ -61,13 +61,6 @@ function decode(k: number, n: number): number[] {
 		k = (k - r) / BASE;
 	}
 	return e;
-}
-
-function gcd(a: bigint, b: bigint): bigint {
-	a = a < 0n ? -a : a;
-	b = b < 0n ? -b : b;
-	while (b) [a, b] = [b, a % b];
-	return a;
 }
 
 export function rat(num: number | bigint, den: number | bigint = 1): Fraction {

@@ -5,11 +5,12 @@
  */
 import type { HrtAnswer, SolitonPhaseChoice, SolitonSurface } from '../../holo/index';
 import type { Point, ScalarAt } from './types';
+import { shortNumber } from '../format';
 
 /** A line's order as a whole number, for verbs and forms that need a series truncation. */
 export function requireSeries(p: Point): number {
 	if (p.order === 'exact') throw new Error('unreachable: exact order asked of a series');
-	if (!p.bulk.hasSeries) throw new p.holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
+	if (!p.bulk.series) throw new p.holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
 	return p.order;
 }
 
@@ -87,8 +88,6 @@ function checkPhase(p: Point): void {
 	);
 }
 
-const short = (x: number) => String(Number(x.toPrecision(6)));
-
 /**
  * What a soliton strip answer is about: its phase, whether that is the RT surface, and l_c, l_max beside it.
  * Every verb with a phase= key passes its answer through here, so a phase the bulk lacks is refused here too.
@@ -101,7 +100,7 @@ export function withSolitonPhase(p: Point, out: ScalarAt): ScalarAt {
 	const which = `${s.phase}${s.minimal ? ', the RT surface' : ', not minimal'}`;
 	const note =
 		`${s.phase} surface (${s.minimal ? 'minimal: the RT surface' : 'not the minimal one: not the entanglement entropy'}); ` +
-		`l_c = ${short(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${short(ph.lmax)}` +
+		`l_c = ${shortNumber(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${shortNumber(ph.lmax)}` +
 		(s.phase === 'disconnected' ? '; the two sheets reach the cap z0, given as z*' : '');
 	return {
 		...out,
@@ -134,7 +133,7 @@ export function ballArea(p: Point, verb: string): number {
 
 /** The warning a series value of a strip carries at this point, if any. */
 export function seriesWarningAt(p: Point): string | undefined {
-	if (p.order === 'exact' || !p.bulk.hasSeries || p.shape === 'ball') return undefined;
+	if (p.order === 'exact' || !p.bulk.series || p.shape === 'ball') return undefined;
 	const l = p.q.l;
 	if (l === undefined) return undefined;
 	return p.holo.seriesWarning(p.bulk, l, p.order) ?? undefined;

@@ -1,4 +1,5 @@
 import { sqliteTable, text, integer, real, index, uniqueIndex } from 'drizzle-orm/sqlite-core';
+import type { BulkState, LetValue, Result, StepError, StepRef, UnitsState } from '../../lang/result';
 
 /** Roles of PRODUCT.md: readers open what is shared with them, members work, admins curate. */
 export const ROLES = ['admin', 'member', 'reader'] as const;
@@ -45,11 +46,11 @@ export const pads = sqliteTable(
 			.references(() => users.id, { onDelete: 'cascade' }),
 		title: text('title').notNull(),
 		/** JSON BulkState, UnitsState and lets: the pad's state after its last step */
-		bulk: text('bulk', { mode: 'json' }).notNull(),
-		units: text('units', { mode: 'json' }).notNull(),
-		lets: text('lets', { mode: 'json' }).notNull(),
+		bulk: text('bulk', { mode: 'json' }).$type<BulkState>().notNull(),
+		units: text('units', { mode: 'json' }).$type<UnitsState>().notNull(),
+		lets: text('lets', { mode: 'json' }).$type<Record<string, LetValue>>().notNull(),
 		/** input history for Up/Down, newest last (includes lines that failed) */
-		history: text('history', { mode: 'json' }).notNull(),
+		history: text('history', { mode: 'json' }).$type<string[]>().notNull(),
 		createdAt: createdAt(),
 		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
 			.notNull()
@@ -69,12 +70,12 @@ export const steps = sqliteTable(
 		input: text('input').notNull(),
 		/** pending → ok | error; the input is stored before evaluation so nothing typed is lost */
 		status: text('status', { enum: ['pending', 'ok', 'error'] }).notNull(),
-		results: text('results', { mode: 'json' }),
-		error: text('error', { mode: 'json' }),
+		results: text('results', { mode: 'json' }).$type<Result[]>(),
+		error: text('error', { mode: 'json' }).$type<StepError>(),
 		/** what `#n` exposes to later steps */
-		ref: text('ref', { mode: 'json' }),
+		ref: text('ref', { mode: 'json' }).$type<StepRef>(),
 		/** the bulk the step was evaluated in, so a replay starts from the same state */
-		bulkBefore: text('bulk_before', { mode: 'json' }),
+		bulkBefore: text('bulk_before', { mode: 'json' }).$type<BulkState>(),
 		ms: real('ms'),
 		createdAt: createdAt()
 	},
@@ -119,8 +120,8 @@ export const macros = sqliteTable('macros', {
 	state: text('state', { enum: MACRO_STATES }).notNull().default('proposed'),
 	version: integer('version').notNull().default(1),
 	/** { param: default } */
-	params: text('params', { mode: 'json' }).notNull(),
-	body: text('body', { mode: 'json' }).notNull(),
+	params: text('params', { mode: 'json' }).$type<Record<string, string>>().notNull(),
+	body: text('body', { mode: 'json' }).$type<string[]>().notNull(),
 	authorId: text('author_id')
 		.notNull()
 		.references(() => users.id, { onDelete: 'cascade' }),
@@ -139,8 +140,8 @@ export const macroVersions = sqliteTable(
 			.notNull()
 			.references(() => macros.id, { onDelete: 'cascade' }),
 		version: integer('version').notNull(),
-		params: text('params', { mode: 'json' }).notNull(),
-		body: text('body', { mode: 'json' }).notNull(),
+		params: text('params', { mode: 'json' }).$type<Record<string, string>>().notNull(),
+		body: text('body', { mode: 'json' }).$type<string[]>().notNull(),
 		editedBy: text('edited_by').notNull(),
 		createdAt: createdAt()
 	},
@@ -153,8 +154,8 @@ export const datasets = sqliteTable('datasets', {
 		.notNull()
 		.references(() => users.id, { onDelete: 'cascade' }),
 	name: text('name').notNull(),
-	columns: text('columns', { mode: 'json' }).notNull(),
-	rows: text('rows', { mode: 'json' }).notNull(),
+	columns: text('columns', { mode: 'json' }).$type<string[]>().notNull(),
+	rows: text('rows', { mode: 'json' }).$type<number[][]>().notNull(),
 	bytes: integer('bytes').notNull(),
 	createdAt: createdAt()
 });

@@ -15,7 +15,7 @@ import {
 	type StepRow
 } from '../pads';
 import { datasetRefs } from '../datasets';
-import type { BulkState, LetValue, Result, StepRef, UnitsState } from '../../lang/result';
+import type { BulkState, EvalBody, LetValue, Result, StepRef, UnitsState } from '../../lang/result';
 import type { EvalAnswer } from './worker';
 
 export type { EvalOptions } from './dispatch';
@@ -24,7 +24,7 @@ export const MAX_INPUT = 2000;
 
 export interface EvalReply {
 	status: 200 | 400 | 422 | 429 | 500 | 503;
-	body: Record<string, unknown>;
+	body: EvalBody;
 	headers?: Record<string, string>;
 }
 

@@ -4,22 +4,17 @@
  * exhausts memory or time takes only that process down.
  */
 import { runLine, LangError } from '../../lang';
-import type { LineOutcome, PadContext } from '../../lang/result';
+import type { EvalError, LineOutcome, PadContext } from '../../lang/result';
 
 export interface EvalTask {
 	input: string;
 	ctx: PadContext;
 }
 
-/**
- * 'busy' (503) means the line never started because the queue was too long for too long; 'throttled' (429)
- * means its author already has too many lines waiting. Neither is a verdict on the line itself.
- */
-export type EvalErrorCode = 'language' | 'limit' | 'internal' | 'busy' | 'throttled';
+// the error's codes and their statuses are declared once, in lang/result.ts
+export type { EvalErrorCode } from '../../lang/result';
 
-export type EvalAnswer =
-	| { ok: true; outcome: LineOutcome }
-	| { ok: false; error: { message: string; start: number; end: number; hint?: string; code: EvalErrorCode; retryAfter?: number } };
+export type EvalAnswer = { ok: true; outcome: LineOutcome } | { ok: false; error: EvalError };
 
 export function evaluateTask({ input, ctx }: EvalTask, onProgress?: (done: number, total: number) => void): EvalAnswer {
 	try {

@@ -3,7 +3,7 @@ import { getDb, schema } from '../db';
 import { newId } from '../auth/accounts';
 import type { AppUser } from '../auth/guards';
 import { createPad, type PadRow } from '../pads';
-import type { BulkState, LetValue, UnitsState } from '../../lang/result';
+import type { BulkState, LetValue, Result, StepError, StepRef, UnitsState } from '../../lang/result';
 import type { PadDocument } from './schema';
 
 /**
@@ -31,14 +31,15 @@ export function importPad(user: AppUser, doc: PadDocument): PadRow {
 					n: s.n,
 					input: s.input,
 					status: pending ? 'error' : s.status,
-					results: s.status === 'ok' ? s.results : null,
+					// the document's schema (schema.ts) has checked these shapes; extra fields are kept as they came
+					results: s.status === 'ok' ? (s.results as Result[]) : null,
 					error: pending
 						? { message: 'was still being evaluated when the pad was exported', start: 0, end: s.input.length }
 						: s.status === 'error'
-							? s.error
+							? (s.error as StepError)
 							: null,
-					ref: s.status === 'ok' ? (s.ref ?? null) : null,
-					bulkBefore: s.bulkBefore ?? null
+					ref: s.status === 'ok' ? ((s.ref as StepRef | undefined) ?? null) : null,
+					bulkBefore: (s.bulkBefore as BulkState | undefined) ?? null
 				})
 				.run();
 		}
