@@ -161,6 +161,27 @@ try {
 	results.push(r);
 }
 
+// the quench (holo/vaidya): one HRT ΔA(t) point from cold (the family curve of that width is built), and growth
+// sweeps at one width (the curve is built once and every time reuses it), as `sweep darea l=2 t=0..3:N` runs them
+const quench = (n) => {
+	H.clearQuenchCache();
+	for (let i = 0; i < n; i++) H.hrtDeltaArea(3, 1, 2, (3 * i) / (n - 1));
+};
+for (const [name, fn, goal, opts] of [
+	['quench ΔA(t) one point, cold (d=3 l=2 t=1)', () => (H.clearQuenchCache(), H.hrtDeltaArea(3, 1, 2, 1)), '≤ 2 ms', { minRuns: 10 }],
+	['quench ΔA(t) one point, cold (d=4 l=4 t=2)', () => (H.clearQuenchCache(), H.hrtDeltaArea(4, 1, 4, 2)), '≤ 2 ms', { minRuns: 10 }],
+	['quench growth sweep 60 points, cold (d=3 l=2 t=0..3)', () => quench(60), '≤ 150 ms', { minRuns: 5 }],
+	['quench growth sweep 200 points, cold (d=3 l=2 t=0..3)', () => quench(200), 'inside the time budget', { minRuns: 3, minMs: 0 }]
+]) {
+	results.push({ ...bench(name, fn, opts), goal });
+}
+let quenchRunner = null;
+try {
+	quenchRunner = JSON.parse(readFileSync(join(root, 'tests/fixtures/holo/vaidya.json'), 'utf8')).secondsPerPoint;
+} catch {
+	// the fixture is not there (not generated yet)
+}
+
 /**
  * Base against current for the exact ΔA rows: ROUNDS alternating rounds (base first in even rounds, current first
  * in odd ones, so neither always gets the warmer machine), each a full `bench`; the figure is the median of
@@ -254,6 +275,9 @@ const lines = [
 	),
 	'',
 	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',
+	quenchRunner
+		? `mpmath quench runner (tests/fixtures/holo/vaidya_runner.py, 32 digits, all surfaces from scratch): ${quenchRunner} s per (l, t) point`
+		: 'mpmath quench runner time: fixture not generated',
 	...(compared.length
 		? [
 				'',

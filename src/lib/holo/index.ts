@@ -29,3 +29,6 @@ export type { Units } from './units';
 export { gamma, lgamma, rgamma } from './special/gamma';
 export { beta, betaHalfShift } from './special/beta';
 export * from './analysis';
+export * from './vaidya/index';
+export { staticProfile } from './profile';
+export type { ProfilePoint } from './profile';

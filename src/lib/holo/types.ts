@@ -1,6 +1,6 @@
 /** Shared shapes of the engine (no logic). */
 
-export type BulkName = 'vacuum' | 'brane' | 'boosted' | 'wave' | 'charged' | 'soliton' | 'dp' | 'metric';
+export type BulkName = 'vacuum' | 'brane' | 'boosted' | 'wave' | 'charged' | 'soliton' | 'dp' | 'metric' | 'vaidya';
 
 /** One term c·(z/scale)^p of a metric function written as a sparse sum of powers. */
 export interface PowerTerm {

@@ -122,8 +122,14 @@ function keysOf(bulk: string, verb: string | undefined, subject: string | undefi
 	if (isBulk(bulk)) keys.push(...BULK_KEYS[bulk]);
 	return (
 		[...new Set(keys)]
-			// phase= picks a soliton surface: elsewhere there is only one, so it is not offered
-			.filter((k) => !given.has(k) && !(k === 'o' && given.has('order')) && !(k === 'phase' && bulk !== 'soliton'))
+			// phase= picks a soliton surface: elsewhere there is only one, so it is not offered; t= is for the quench
+			.filter(
+				(k) =>
+					!given.has(k) &&
+					!(k === 'o' && given.has('order')) &&
+					!(k === 'phase' && bulk !== 'soliton') &&
+					!(k === 't' && bulk !== 'vaidya')
+			)
 			.map((k) => {
 				const h = help(k);
 				return h ? { insert: `${k}=`, label: k, detail: h.summary } : { insert: `${k}=`, label: k };

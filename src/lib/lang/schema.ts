@@ -67,7 +67,14 @@ export const BULK_SCHEMAS = {
 			g: formula('g').optional(),
 			params: z.string('params must be a string of names, e.g. params="m,q"').optional()
 		})
-		.catchall(z.number('extra metric keys must be numbers'))
+		.catchall(z.number('extra metric keys must be numbers')),
+	// the quench solver covers d = 2…6 (PHYSICS.md, "Quench")
+	vaidya: z
+		.object({
+			d: z.number('d must be a number').int('d must be a whole number').min(2, 'd must be ≥ 2').max(6, 'vaidya takes d ≤ 6').default(4),
+			zh: positive('zh').default(1)
+		})
+		.strict()
 } satisfies Record<BulkName, z.ZodType>;
 
 const fmt = shortNumber;
@@ -120,7 +127,9 @@ export const KEY_SCHEMAS: Record<string, z.ZodType> = {
 	tol: z.number('tol must be a number').positive('tol must be > 0').max(1, 'tol must be ≤ 1'),
 	o: ORDER,
 	of: word('of'),
-	phase: word('phase')
+	phase: word('phase'),
+	// boundary time since the quench (time-dependent bulks); t < 0 is before it
+	t: z.number('t must be a number').refine((t) => Number.isFinite(t), 't must be finite')
 };
 
 function word(key: string): z.ZodType {

@@ -5,7 +5,7 @@
 // the verbs live in the registry (./verbs/index.ts): one module per verb
 export { isVerb, verbNames, verbSpec, type Verb } from './verbs/index';
 
-export const BULKS = ['vacuum', 'brane', 'boosted', 'charged', 'dp', 'wave', 'soliton', 'metric'] as const;
+export const BULKS = ['vacuum', 'brane', 'boosted', 'charged', 'dp', 'wave', 'soliton', 'metric', 'vaidya'] as const;
 export type BulkName = (typeof BULKS)[number];
 
 export const SHAPES = ['strip', 'ball', 'pair'] as const;
@@ -28,13 +28,14 @@ export const BULK_KEYS: Record<BulkName, readonly string[]> = {
 	dp: ['p', 'zh'],
 	wave: ['d', 'zp'],
 	soliton: ['d', 'z0'],
-	metric: ['d', 'f', 'g', 'h', 'params']
+	metric: ['d', 'f', 'g', 'h', 'params'],
+	vaidya: ['d', 'zh']
 };
 /** every key a bulk may take */
 export const ALL_BULK_KEYS = ['d', 'zh', 'v', 'rapidity', 'q', 'p', 'zp', 'z0', 'f', 'h'] as const;
 
 /** keys that are not bulk keys */
-export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y', 'of', 'phase'] as const;
+export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y', 'of', 'phase', 't'] as const;
 
 /** keys whose value is a word (`of=charge`, `phase=rt`), not a number: a bare name there is that word */
 export const WORD_KEYS: Record<string, readonly string[]> = {

@@ -7,6 +7,7 @@ import { makeDpBulk } from './dp';
 import { makeSolitonBulk } from './soliton';
 import { makeMetric } from './metric';
 import { makeVacuum } from './vacuum';
+import { makeVaidya } from './vaidya';
 import { makeWave } from './wave';
 
 type Factory = (params: Record<string, number | string>) => Bulk;
@@ -19,10 +20,11 @@ const factories = new Map<string, Factory>([
 	['charged', makeCharged],
 	['metric', makeMetric],
 	['soliton', makeSolitonBulk],
-	['dp', makeDpBulk]
+	['dp', makeDpBulk],
+	['vaidya', makeVaidya]
 ]);
 
-export const BULK_NAMES: readonly BulkName[] = ['vacuum', 'brane', 'boosted', 'wave', 'charged', 'soliton', 'dp', 'metric'];
+export const BULK_NAMES: readonly BulkName[] = ['vacuum', 'brane', 'boosted', 'wave', 'charged', 'soliton', 'dp', 'metric', 'vaidya'];
 
 /**
  * Adds a bulk kind defined outside this folder (soliton, dp): its factory returns a `Bulk` whose `slice`

@@ -1,4 +1,4 @@
-import { ballDeltaArea, stripDeltaArea, valueAt, withSolitonPhase } from './point';
+import { ballDeltaArea, quenchAt, quenchFields, stripDeltaArea, valueAt, withSolitonPhase } from './point';
 import { defineVerb } from './types';
 
 export const dentropy = defineVerb({
@@ -6,7 +6,7 @@ export const dentropy = defineVerb({
 	kind: 'scalar',
 	series: true,
 	usesG: true,
-	forms: { strip: { keys: ['l', 'o', 'G', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
+	forms: { strip: { keys: ['l', 'o', 'G', 'phase', 't'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
 	symbol: { text: 'ΔS', tex: '\\Delta S' },
 	help: {
 		summary: 'ΔS = ΔA/(4G): cutoff-independent, no scheme',
@@ -17,6 +17,8 @@ export const dentropy = defineVerb({
 	},
 	at: (p) => {
 		if (p.shape === 'ball') return { value: p.holo.entropy(ballDeltaArea(p, 'dentropy'), p.G) };
+		const quench = quenchAt(p);
+		if (quench) return { value: p.holo.entropy(quench.dA, p.G), ...quenchFields(quench) };
 		return withSolitonPhase(p, valueAt(p, p.holo.entropy(stripDeltaArea(p), p.G)));
 	}
 });

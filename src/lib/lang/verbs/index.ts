@@ -10,6 +10,7 @@ import { dentropy } from './dentropy';
 import { energy } from './energy';
 import { entropy } from './entropy';
 import { firstlaw } from './firstlaw';
+import { growth } from './growth';
 import { mi } from './mi';
 import { mu } from './mu';
 import { phases } from './phases';
@@ -43,7 +44,8 @@ const BUILT_IN: readonly VerbSpec[] = [
 	validity,
 	mi,
 	resum,
-	phases
+	phases,
+	growth
 ];
 
 const registry = new Map<string, VerbSpec>(BUILT_IN.map((v) => [v.name, v]));

@@ -3,7 +3,7 @@
  * soliton's surface in the line's phase, the warning a series value carries. The engine comes with the point
  * (`p.holo`), as everywhere in the registry.
  */
-import type { SolitonPhaseChoice, SolitonSurface } from '../../holo/index';
+import type { HrtAnswer, SolitonPhaseChoice, SolitonSurface } from '../../holo/index';
 import type { Point, ScalarAt } from './types';
 import { shortNumber } from '../format';
 
@@ -14,8 +14,51 @@ export function requireSeries(p: Point): number {
 	return p.order;
 }
 
+/**
+ * The quench answer at this point (the vaidya bulk: PHYSICS.md, "Quench"), or undefined for a static bulk.
+ * The key t belongs to time-dependent bulks only; in vaidya it is required and the answer is exact only.
+ */
+export function quenchAt(p: Point): HrtAnswer | undefined {
+	const t = p.q.t;
+	if (p.bulk.name !== 'vaidya') {
+		if (t !== undefined) {
+			throw new p.holo.HoloError(`t is the time since a quench: the ${p.bulk.name} bulk is static`, 't', 'use vaidya d=… zh=… first');
+		}
+		return undefined;
+	}
+	if (t === undefined) throw new p.holo.HoloError('vaidya needs t= (the boundary time since the quench)', 't', 'e.g. darea l=2 t=1');
+	if (p.order !== 'exact') throw new p.holo.HoloError('orders do not apply to the quench: it is exact only', 'o', 'leave o= out');
+	return p.holo.hrtDeltaArea(p.bulk.d, p.bulk.horizon!, p.q.l!, t);
+}
+
+/** What a quench answer carries beside its value: the winning surface's data and how it won. */
+export function quenchFields(a: HrtAnswer): Pick<ScalarAt, 'fields' | 'note'> {
+	const w = a.winner;
+	const fields: Record<string, number> = {
+		t: a.t,
+		zstar: w.zstar,
+		surfaces: a.surfaces.length,
+		behind_horizon: w.behindHorizon ? 1 : 0,
+		saturated: a.regime === 'saturated' ? 1 : 0,
+		t_c: a.tsat
+	};
+	if (Number.isFinite(w.zc)) fields.zc = w.zc;
+	if (w.kind === 'shell') fields.zturn = w.zturn;
+	if (Number.isFinite(a.gap)) fields.gap = a.gap;
+	const which =
+		w.kind === 'vacuum'
+			? 'before the quench: the vacuum surface'
+			: w.kind === 'static'
+				? 'saturated: the static brane surface'
+				: `the surface crossing the shell at z_c${w.behindHorizon ? ' (partly behind the horizon)' : ''}`;
+	const of = a.surfaces.length > 1 ? `; smallest of ${a.surfaces.length} extremal surfaces, next by ${Number(a.gap.toPrecision(4))}` : '';
+	return { fields, note: `HRT surface: ${which}${of}` };
+}
+
 export function stripDeltaArea(p: Point): number {
 	const l = p.q.l!;
+	const quench = quenchAt(p);
+	if (quench) return quench.dA;
 	if (p.bulk.name === 'soliton' && p.order === 'exact') return solitonSurfaceAt(p).areaFinite - p.holo.vacuumAreaFinite(p.bulk.d, l);
 	if (p.order === 'exact') return p.holo.deltaArea(p.bulk, l);
 	return p.holo.deltaAreaSeries(p.bulk, l, requireSeries(p));

@@ -1,10 +1,10 @@
-import { solitonSurfaceAt, withSolitonPhase } from './point';
+import { quenchAt, quenchFields, solitonSurfaceAt, withSolitonPhase } from './point';
 import { defineVerb } from './types';
 
 export const zstar = defineVerb({
 	name: 'zstar',
 	kind: 'scalar',
-	forms: { strip: { keys: ['l', 'phase'], required: ['l'] } },
+	forms: { strip: { keys: ['l', 'phase', 't'], required: ['l'] } },
 	symbol: { text: 'z*', tex: 'z_*' },
 	help: {
 		summary: 'turning point z* of the RT surface for width l',
@@ -13,5 +13,9 @@ export const zstar = defineVerb({
 		source: 'Ryu & Takayanagi, PRL 96 (2006) 181602; the strip integrals as in PHYSICS.md, "Strip"',
 		examples: ['zstar l=0.8', 'sweep zstar l=0.1..3:40']
 	},
-	at: (p) => withSolitonPhase(p, { value: p.bulk.name === 'soliton' ? solitonSurfaceAt(p).zstar : p.holo.zstarOf(p.bulk, p.q.l!) })
+	at: (p) => {
+		const quench = quenchAt(p);
+		if (quench) return { value: quench.winner.zstar, ...quenchFields(quench) };
+		return withSolitonPhase(p, { value: p.bulk.name === 'soliton' ? solitonSurfaceAt(p).zstar : p.holo.zstarOf(p.bulk, p.q.l!) });
+	}
 });

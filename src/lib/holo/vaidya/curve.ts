@@ -1,0 +1,151 @@
+import { makeBrane } from '../bulks/brane';
+import { findRootBrent } from '../numeric/brent';
+import { solveStrip, vacuumWidthFactor } from '../strip';
+import type { Surface } from './family';
+import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
+
+/**
+ * All extremal surfaces of one strip width l (units zh = 1) as a curve ζ ↦ (z*, t, ΔA), ζ = z_c/z* from 0 (the
+ * vacuum surface at t = 0) to 1 (the static brane surface, reached at t_sat = ∫₀^{z*} dz/f). At fixed l the
+ * boundary time is not monotonic in ζ for d ≥ 3 (Liu & Suh 2014): near saturation it overshoots t_sat and comes
+ * back, so a time can have up to three surfaces (two of the family and the static one); the linear-growth part
+ * of a wide strip is steep in ζ. The curve is sampled on a grid clustered at ζ = 1, refined by bisection where
+ * t or ΔA jumps, and its interior extrema of t are located (golden section to 1e−6 in ζ, so t_max to ~1e−12), so
+ * every solution of t(ζ) = t lies in
+ * a bracket of the grid and is then refined by Brent's method in ζ — never by continuation in t.
+ */
+export interface Curve {
+	d: number;
+	l: number;
+	points: CurvePoint[];
+	static: { zstar: number; eta: number; dA: number; tsat: number };
+}
+
+const GRID = 24;
+const MAX_POINTS = 400;
+
+function pointAt(d: number, l: number, zeta: number, guess?: number): CurvePoint | null {
+	const s = surfaceForWidth(d, l, zeta, guess);
+	return s ? { zeta, t: s.t, dA: s.dA, surface: s } : null;
+}
+
+export function buildCurve(d: number, l: number): Curve {
+	const st = solveStrip(makeBrane({ d, zh: 1 }).slice, l);
+	const tsat = saturationTime(d, st.zstar, st.point.eta);
+	const stat = { zstar: st.zstar, eta: st.point.eta, dA: st.deltaArea, tsat };
+	const pts: CurvePoint[] = [{ zeta: 0, t: 0, dA: 0, surface: null }];
+	let guess = l / vacuumWidthFactor(d);
+	for (let k = 1; k < GRID; k++) {
+		const p = k / GRID;
+		const zeta = 1 - (1 - p) * (1 - p);
+		const c = pointAt(d, l, zeta, guess);
+		if (!c) continue;
+		guess = c.surface!.zstar;
+		pts.push(c);
+	}
+	pts.push({ zeta: 1, t: tsat, dA: stat.dA, surface: null });
+	refine(d, l, pts);
+	addExtrema(d, l, pts);
+	return { d, l, points: pts, static: stat };
+}
+
+/** Bisects grid intervals where t or ΔA moves by more than 1/16 of its range (the steep linear-growth part). */
+function refine(d: number, l: number, pts: CurvePoint[]): void {
+	const tr = Math.max(...pts.map((p) => p.t));
+	const ar = Math.max(...pts.map((p) => p.dA));
+	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS;) {
+		const A = pts[i];
+		const B = pts[i + 1];
+		const jump = Math.abs(B.t - A.t) > tr / 16 || Math.abs(B.dA - A.dA) > ar / 16;
+		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1) {
+			const c = pointAt(d, l, 0.5 * (A.zeta + B.zeta), A.surface?.zstar ?? B.surface?.zstar);
+			if (c) {
+				pts.splice(i + 1, 0, c);
+				continue;
+			}
+		}
+		i++;
+	}
+}
+
+/** Inserts each interior local extremum of t (golden-section search on the three grid points around it). */
+function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
+	const found: CurvePoint[] = [];
+	// the family has one fold near saturation (and its partner minimum when t overshoots): refine the two most
+	// prominent extrema; rounding wiggles in the steep part of a wide strip's curve are not folds
+	const cand: { i: number; sgn: number; prom: number }[] = [];
+	for (let i = 1; i + 1 < pts.length; i++) {
+		const a = pts[i - 1];
+		const b = pts[i];
+		const c = pts[i + 1];
+		const sgn = b.t > a.t && b.t >= c.t ? 1 : b.t < a.t && b.t <= c.t ? -1 : 0;
+		if (!sgn || c.zeta >= 1 || a.zeta <= 0) continue;
+		cand.push({ i, sgn, prom: Math.abs(b.t - 0.5 * (a.t + c.t)) });
+	}
+	cand.sort((x, y) => y.prom - x.prom);
+	for (const { i, sgn } of cand.slice(0, 2)) {
+		const a = pts[i - 1];
+		const b = pts[i];
+		const c = pts[i + 1];
+		let lo = a.zeta;
+		let hi = c.zeta;
+		const gr = (Math.sqrt(5) - 1) / 2;
+		let x1 = hi - gr * (hi - lo);
+		let x2 = lo + gr * (hi - lo);
+		let p1 = pointAt(d, l, x1, b.surface?.zstar);
+		let p2 = pointAt(d, l, x2, b.surface?.zstar);
+		if (!p1 || !p2) continue;
+		for (let k = 0; k < 40 && hi - lo > 1e-6 * hi; k++) {
+			if (sgn * p1.t > sgn * p2.t) {
+				hi = x2;
+				x2 = x1;
+				p2 = p1;
+				x1 = hi - gr * (hi - lo);
+				const q = pointAt(d, l, x1, p2.surface?.zstar);
+				if (!q) break;
+				p1 = q;
+			} else {
+				lo = x1;
+				x1 = x2;
+				p1 = p2;
+				x2 = lo + gr * (hi - lo);
+				const q = pointAt(d, l, x2, p1.surface?.zstar);
+				if (!q) break;
+				p2 = q;
+			}
+		}
+		found.push(sgn * p1.t > sgn * p2.t ? p1 : p2);
+	}
+	for (const f of found) {
+		const j = pts.findIndex((p) => p.zeta > f.zeta);
+		pts.splice(j, 0, f);
+	}
+}
+
+/** Every surface of the family at time t (ζ < 1), each refined by Brent's method in ζ inside its grid bracket. */
+export function surfacesAt(curve: Curve, t: number): Surface[] {
+	const { d, l, points } = curve;
+	const out: Surface[] = [];
+	for (let i = 0; i + 1 < points.length; i++) {
+		const A = points[i];
+		const B = points[i + 1];
+		const ga = A.t - t;
+		const gb = B.t - t;
+		if (ga * gb > 0 || (gb === 0 && i + 2 < points.length)) continue;
+		if (B.zeta >= 1 && gb === 0) continue; // the static end itself is added by the caller
+		let last = null as Surface | null;
+		const g = (zeta: number): number => {
+			if (zeta <= 0) return -t;
+			if (zeta >= 1) return curve.static.tsat - t;
+			const s = surfaceForWidth(d, l, zeta, last?.zstar ?? A.surface?.zstar ?? B.surface?.zstar);
+			if (!s) return NaN;
+			last = s;
+			return s.t - t;
+		};
+		const r = findRootBrent(g, A.zeta, B.zeta, 1e-16, 100, ga, gb);
+		if (!(r.x > 0 && r.x < 1)) continue;
+		const s = surfaceForWidth(d, l, r.x, last?.zstar ?? A.surface?.zstar);
+		if (s) out.push(s);
+	}
+	return out;
+}

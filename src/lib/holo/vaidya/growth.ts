@@ -1,0 +1,157 @@
+import { HoloError } from '../errors';
+import { findRootBrent } from '../numeric/brent';
+import { surfacesAt } from './curve';
+import { curveFor, hrtDeltaArea } from './hrt';
+import { surfaceForWidth } from './solve';
+
+/**
+ * The growth of ΔA(t) for one strip after the quench, each number with how it was found (PHYSICS.md, "Quench";
+ * Liu & Suh, Phys. Rev. D 89 (2014) 066012 for the early law, the tsunami velocity and the saturation pattern).
+ */
+export interface Growth {
+	d: number;
+	zh: number;
+	l: number;
+	/** ΔA/t² as t → 0, against m/2 = 1/(2 zh^d) */
+	early: { coefficient: number; predicted: number; how: string };
+	/** largest dΔA/dt before saturation, against 2 v_E/zh^{d−1} */
+	linear: { slope: number; predicted: number; vE: number; atTime: number; how: string };
+	/** the static surface's first time ∫₀^{z*} dz/f: its tip leaves the shell region */
+	tc: { value: number; how: string };
+	/** the time the static surface becomes the smallest */
+	saturation: { time: number; dA: number; how: string };
+	/** continuous (d = 2) or a kink (d ≥ 3): the slope just before saturation */
+	kind: { continuous: boolean; slopeBefore: number; how: string };
+}
+
+/** Tsunami velocity v_E = (η−1)^{(η−1)/2}/η^{η/2}, η = 2(d−1)/d (Liu & Suh 2014); 1 in d = 2. */
+export function tsunamiVelocity(d: number): number {
+	const eta = (2 * (d - 1)) / d;
+	return Math.pow(eta - 1, (eta - 1) / 2) / Math.pow(eta, eta / 2);
+}
+
+/** dΔA/dt from the slope identity 2|E|/z*^{d−1} (units zh = 1). */
+function slopeOf(s: { E: number; zstar: number }, d: number): number {
+	return (2 * Math.abs(s.E)) / Math.pow(s.zstar, d - 1);
+}
+
+export function analyseGrowth(d: number, zh: number, l: number): Growth {
+	hrtDeltaArea(d, zh, l, zh); // validates the inputs
+	const L = l / zh;
+	const curve = curveFor(d, L);
+	const scaleA = Math.pow(zh, 2 - d);
+	const scaleS = Math.pow(zh, 1 - d);
+
+	// early: c(t) = ΔA/t² at t = h, h/2, h/4, extrapolated assuming c(t) = c₀ + c₁ t + … (Richardson)
+	const h = Math.min(0.01, L / 50);
+	const c = [h, h / 2, h / 4].map((t) => hrtDeltaArea(d, 1, L, t).dA / (t * t));
+	const r1 = 2 * c[1] - c[0];
+	const r2 = 2 * c[2] - c[1];
+	const early = (4 * r2 - r1) / 3;
+
+	// the dominant branch before saturation: the rising part of t(ζ) from ζ = 0 to the first maximum of t
+	const pts = curve.points;
+	let iMax = pts.length - 1;
+	for (let i = 1; i + 1 < pts.length; i++) {
+		if (pts[i].t >= pts[i + 1].t && pts[i].t >= pts[i - 1].t) {
+			iMax = i;
+			break;
+		}
+	}
+	const st = curve.static;
+	// saturation: where the rising branch's ΔA meets the static one (Brent in ζ); d = 2 reaches it at ζ → 1
+	let tSat = st.tsat;
+	let zetaSat = 1;
+	const gA = (zeta: number) => {
+		if (zeta >= 1) return 0;
+		const s = surfaceForWidth(d, L, zeta);
+		return s ? s.dA - st.dA : NaN;
+	};
+	const crossing = pts.slice(0, iMax + 1).findIndex((p, i) => i > 0 && p.dA >= st.dA && p.t >= st.tsat);
+	if (crossing > 0 && pts[crossing].zeta < 1) {
+		const a = pts[crossing - 1];
+		const b = pts[crossing];
+		const r = findRootBrent(gA, a.zeta, b.zeta, 1e-16, 100, a.dA - st.dA, b.dA - st.dA);
+		zetaSat = r.x;
+		const s = surfaceForWidth(d, L, r.x);
+		if (!s) throw new HoloError(`the saturation point of l=${l} was not resolved`, 'l');
+		tSat = s.t;
+	}
+	// linear slope: the largest 2|E|/z*^{d−1} on the rising branch before saturation, refined by golden section
+	let best = { slope: 0, t: 0, zeta: 0 };
+	for (let i = 1; i <= iMax && pts[i].zeta < zetaSat; i++) {
+		const s = pts[i].surface;
+		if (s && slopeOf(s, d) > best.slope) best = { slope: slopeOf(s, d), t: s.t, zeta: s.zeta };
+	}
+	const idx = pts.findIndex((p) => p.zeta === best.zeta);
+	if (idx > 0 && idx + 1 < pts.length && pts[idx + 1].zeta < zetaSat) {
+		let lo = pts[idx - 1].zeta;
+		let hi = pts[idx + 1].zeta;
+		const gr = (Math.sqrt(5) - 1) / 2;
+		const f = (z: number) => {
+			const s = surfaceForWidth(d, L, z);
+			return s ? { v: slopeOf(s, d), t: s.t } : { v: 0, t: 0 };
+		};
+		let x1 = hi - gr * (hi - lo);
+		let x2 = lo + gr * (hi - lo);
+		let f1 = f(x1);
+		let f2 = f(x2);
+		for (let k = 0; k < 60 && hi - lo > 1e-12 * hi; k++) {
+			if (f1.v > f2.v) {
+				hi = x2;
+				x2 = x1;
+				f2 = f1;
+				x1 = hi - gr * (hi - lo);
+				f1 = f(x1);
+			} else {
+				lo = x1;
+				x1 = x2;
+				f1 = f2;
+				x2 = lo + gr * (hi - lo);
+				f2 = f(x2);
+			}
+		}
+		const top = f1.v > f2.v ? f1 : f2;
+		if (top.v > best.slope) best = { slope: top.v, t: top.t, zeta: 0.5 * (lo + hi) };
+	}
+	// the slope just before saturation: 0 when the rising branch ends on the static surface (E → 0)
+	let slopeBefore = 0;
+	if (zetaSat < 1) {
+		const before = surfacesAt(curve, tSat * (1 - 1e-9)).filter((s) => s.zeta <= zetaSat * (1 + 1e-6));
+		const s = before.sort((a, b) => b.zeta - a.zeta)[0];
+		if (s) slopeBefore = slopeOf(s, d);
+	}
+	const vE = tsunamiVelocity(d);
+	const continuous = slopeBefore <= 1e-6 * Math.max(best.slope, 1e-300);
+	return {
+		d,
+		zh,
+		l,
+		early: {
+			coefficient: early * Math.pow(zh, -d),
+			predicted: 0.5 * Math.pow(zh, -d),
+			how: `ΔA/t² at t = ${h * zh}, ${(h * zh) / 2}, ${(h * zh) / 4}, Richardson-extrapolated to t → 0`
+		},
+		linear: {
+			slope: best.slope * scaleS,
+			predicted: 2 * vE * scaleS,
+			vE,
+			atTime: best.t * zh,
+			how: 'largest dΔA/dt = 2|E|/z*^{d−1} (slope identity) on the dominant surface before saturation'
+		},
+		tc: { value: st.tsat * zh, how: 't_c = ∫₀^{z*} dz/f on the static surface of this width (its tip reaches the shell)' },
+		saturation: {
+			time: tSat * zh,
+			dA: st.dA * scaleA,
+			how:
+				zetaSat < 1
+					? 'the rising surface’s ΔA equals the static one (Brent in z_c/z*), after t_c'
+					: 'the rising surface reaches the static one as z_c → z* (at t_c)'
+		},
+		kind: {
+			continuous,
+			slopeBefore: slopeBefore * scaleS,
+			how: continuous ? 'dΔA/dt → 0 at saturation: continuous' : 'dΔA/dt jumps from the value before saturation to 0: a kink'
+		}
+	};
+}

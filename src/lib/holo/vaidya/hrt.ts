@@ -1,0 +1,124 @@
+import { makeBrane } from '../bulks/brane';
+import { HoloError } from '../errors';
+import { solveStrip, vacuumWidthFactor } from '../strip';
+import { buildCurve, surfacesAt, type Curve } from './curve';
+import type { Surface } from './family';
+
+/** One candidate extremal surface at (l, t), in the user's units. */
+export interface HrtSurface {
+	kind: 'vacuum' | 'shell' | 'static';
+	dA: number;
+	zstar: number;
+	/** shell crossing z_c (NaN for the static and vacuum surfaces) */
+	zc: number;
+	/** deepest point reached outside the shell (z_t > z_c when the refracted surface climbs) */
+	zturn: number;
+	/** some of the surface lies at z > zh after the shell */
+	behindHorizon: boolean;
+	/** conserved E (units zh^{d−1}·… as in PHYSICS.md) — dΔA/dt = 2|E|/z*^{d−1} */
+	E: number;
+}
+
+export interface HrtAnswer {
+	d: number;
+	zh: number;
+	l: number;
+	t: number;
+	/** ΔA(t) of the smallest extremal surface */
+	dA: number;
+	regime: 'before' | 'growing' | 'saturated';
+	winner: HrtSurface;
+	/** all extremal surfaces found, smallest area first */
+	surfaces: HrtSurface[];
+	/** ΔA(runner-up) − ΔA(winner), NaN when there is one surface */
+	gap: number;
+	/** the static surface's first time t_sat = ∫₀^{z*} dz/f (it is a solution for t ≥ t_sat) */
+	tsat: number;
+}
+
+const CACHE = new Map<string, Curve>();
+const CACHE_MAX = 16;
+
+/** Forgets the cached family curves (benchmarks time cold points with it). */
+export function clearQuenchCache(): void {
+	CACHE.clear();
+}
+
+/** The family curve of width l/zh (cached: a growth sweep at one width reuses it for every time). */
+export function curveFor(d: number, L: number): Curve {
+	const key = `${d}:${L}`;
+	let c = CACHE.get(key);
+	if (!c) {
+		c = buildCurve(d, L);
+		if (CACHE.size >= CACHE_MAX) CACHE.delete(CACHE.keys().next().value as string);
+		CACHE.set(key, c);
+	}
+	return c;
+}
+
+function checkInputs(d: number, zh: number, l: number, t: number): void {
+	if (!Number.isInteger(d) || d < 2 || d > 6) throw new HoloError('vaidya needs an integer d from 2 to 6', 'd');
+	if (!(zh > 0) || !Number.isFinite(zh)) throw new HoloError('zh must be a positive number', 'zh');
+	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	if (!Number.isFinite(t)) throw new HoloError('t must be a finite number', 't');
+}
+
+function fromFamily(s: Surface, zh: number, d: number): HrtSurface {
+	return {
+		kind: 'shell',
+		dA: s.dA * Math.pow(zh, 2 - d),
+		zstar: s.zstar * zh,
+		zc: s.zstar * s.zeta * zh,
+		zturn: s.zturn * zh,
+		behindHorizon: s.behindHorizon,
+		E: s.E
+	};
+}
+
+/**
+ * The HRT ΔA of a strip of width l at boundary time t after a thin-shell quench into the brane of horizon zh
+ * (PHYSICS.md, "Quench"). Units: everything is computed at zh = 1 and scaled (ΔA ∝ zh^{2−d}, lengths ∝ zh).
+ * t ≤ 0: the vacuum surface, ΔA = 0 exactly. Otherwise every extremal surface of the family (curve.ts) and, for
+ * t ≥ t_sat, the static brane surface are candidates; the smallest area wins. The static candidate's ΔA is the
+ * brane strip's own number (solveStrip on the brane slice at this zh), so a saturated answer equals `use brane`.
+ */
+export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAnswer {
+	checkInputs(d, zh, l, t);
+	if (t <= 0) {
+		const v: HrtSurface = {
+			kind: 'vacuum',
+			dA: 0,
+			zstar: l / vacuumWidthFactor(d),
+			zc: NaN,
+			zturn: l / vacuumWidthFactor(d),
+			behindHorizon: false,
+			E: 0
+		};
+		return { d, zh, l, t, dA: 0, regime: 'before', winner: v, surfaces: [v], gap: NaN, tsat: NaN };
+	}
+	const curve = curveFor(d, l / zh);
+	const T = t / zh;
+	const cands = surfacesAt(curve, T).map((s) => fromFamily(s, zh, d));
+	const tsat = curve.static.tsat * zh;
+	if (T >= curve.static.tsat) {
+		const st = solveStrip(makeBrane({ d, zh }).slice, l);
+		cands.push({ kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 });
+	}
+	if (cands.length === 0) {
+		throw new HoloError(`no extremal surface found for l=${l} at t=${t}`, 'l', 'the width may be too large for the quench solver');
+	}
+	cands.sort((a, b) => a.dA - b.dA);
+	const winner = cands[0];
+	return {
+		d,
+		zh,
+		l,
+		t,
+		dA: winner.dA,
+		regime: winner.kind === 'static' ? 'saturated' : 'growing',
+		winner,
+		surfaces: cands,
+		gap: cands.length > 1 ? cands[1].dA - winner.dA : NaN,
+		tsat
+	};
+}

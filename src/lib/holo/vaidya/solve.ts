@@ -1,0 +1,99 @@
+import { vacuumWidthFactor } from '../strip';
+import { surfaceAt, type Surface } from './family';
+import { integrateAdaptive } from './quad';
+
+/** ln(l(z*)/l) past the edge of the family (no surface): l grows without bound towards that edge (the surface
+ * then hugs a critical surface z_m and its width diverges like −ln of the distance), so "too wide" is the
+ * right side to put it on. */
+const PAST_EDGE = 40;
+
+/**
+ * The surface of width l (units zh = 1) that crosses the shell at fraction ζ: a safeguarded secant in x = ln z*
+ * on ln(l(x)/l), from `guess` (the previous ζ's tip in a scan, else the vacuum tip l/W₀). At fixed ζ the width
+ * grows monotonically with the tip up to the family's edge (seen in every scan of the tests).
+ */
+export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
+	const lnl = Math.log(l);
+	const g = (x: number): { v: number; s: Surface | null } => {
+		const s = surfaceAt(d, Math.exp(x), zeta);
+		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
+	};
+	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
+	let xa = Math.log(guess ?? l / vacuumWidthFactor(d));
+	let a = g(xa);
+	for (let k = 0; !a.s; k++) {
+		if (k > 60) return null;
+		xa -= 0.05 * Math.pow(1.5, k);
+		a = g(xa);
+	}
+	// safeguarded secant on ln(l(x)/l), x = ln z* (ln l is close to linear in x, slope ≈ 1 far from the edge): the
+	// bracket [lo, hi] (hi = wider than l, or past the edge) takes a bisection whenever the secant leaves it
+	let lo = a.v < 0 ? xa : -Infinity;
+	let hi = a.v > 0 ? xa : Infinity;
+	let xb = xa - Math.min(Math.max(a.v, -0.5), 0.5);
+	for (let k = 0; k < 200; k++) {
+		if (Math.abs(a.v) < 1e-15) return a.s;
+		const b = g(xb);
+		if (!b.s) {
+			hi = Math.min(hi, xb);
+			xb = 0.5 * (xa + xb);
+			continue;
+		}
+		if (b.v < 0) lo = Math.max(lo, xb);
+		else hi = Math.min(hi, xb);
+		if (Math.abs(b.v) < 1e-15) return b.s;
+		let xn = b.v === a.v ? NaN : xb - (b.v * (xb - xa)) / (b.v - a.v);
+		if (!(xn > lo && xn < hi)) {
+			if (Number.isFinite(lo) && Number.isFinite(hi)) xn = 0.5 * (lo + hi);
+			else xn = xb + (b.v < 0 ? 0.5 : -0.5);
+		}
+		const done = Math.abs(xn - xb) < 1e-14 * Math.max(1, Math.abs(xb));
+		xa = xb;
+		a = b;
+		xb = xn;
+		if (done) {
+			const last = g(xb);
+			return last.s && Math.abs(last.v) <= Math.abs(b.v) ? last.s : b.s;
+		}
+	}
+	return a.s;
+}
+
+/** One point of the family at fixed width: ζ = 1 is the static brane surface (reached at t = t_sat). */
+export interface CurvePoint {
+	zeta: number;
+	t: number;
+	dA: number;
+	surface: Surface | null;
+}
+
+/**
+ * ∫₀^{z*} dz/f for the brane (units zh = 1): the boundary time at which the static surface of tip z* first lies
+ * wholly after the shell (v ≥ 0 at its tip). With 1 − u^d = (1 − u) q(u), q = Σ_{j<d} u^j:
+ *   ∫₀^x du/(1 − u^d) = −ln(1 − x)/d + ∫₀^x (d − q)/(d q (1 − u)) du,
+ * and (d − q)/(1 − u) = Σ_{j=1}^{d−1} Σ_{i<j} u^i is a polynomial, so the rest is smooth; −ln(1 − x) comes from
+ * η = 1 − x kept exact by the strip solver. d = 2: artanh(x) = l/2.
+ */
+export function saturationTime(d: number, zstar: number, eta: number): number {
+	const lead = -Math.log(eta) / d;
+	const out = new Float64Array(1);
+	integrateAdaptive(
+		(u, o) => {
+			let q = 0;
+			let num = 0;
+			let pw = 1;
+			for (let j = 0; j < d; j++) {
+				q += pw;
+				num += (d - 1 - j) * pw; // coefficient of u^i in Σ_{j=1}^{d−1} Σ_{i<j} u^i is d − 1 − i
+				pw *= u;
+			}
+			o[0] = num / (d * q);
+			return true;
+		},
+		0,
+		zstar,
+		1,
+		out
+	);
+	return lead + out[0];
+}

@@ -1,0 +1,45 @@
+import { defineVerb } from './types';
+
+export const growth = defineVerb({
+	name: 'growth',
+	kind: 'record',
+	forms: { strip: { keys: ['l'], required: ['l'] } },
+	symbol: { text: 'growth', tex: '' },
+	help: {
+		summary: 'vaidya: how ΔA(t) of a strip grows after the quench — early law, linear slope, t_c, saturation, kink',
+		method:
+			'the family of HRT surfaces at this width (holo/vaidya): early ΔA/t² Richardson-extrapolated to t → 0; the largest dΔA/dt = 2|E|/z*^{d−1} before saturation; t_c = ∫dz/f on the static surface; saturation where the rising surface’s ΔA meets the static one',
+		accuracy:
+			'early coefficient ≤ 1e-6 relative of m/2; t_c and the d = 2 saturation time ≤ 1e-12 relative (tests/unit/holo/vaidya.test.ts); widths ≲ 8 zh (wider strips are ill-conditioned in the solver)',
+		source: 'Liu & Suh, PRD 89 (2014) 066012; Balasubramanian et al., PRD 84 (2011) 026010',
+		examples: ['use vaidya d=3; growth l=2', 'use vaidya d=2 zh=1; growth l=4']
+	},
+	at: (p) => {
+		if (p.bulk.name !== 'vaidya') {
+			throw new p.holo.HoloError(`growth is for the quench bulk vaidya (got ${p.bulk.name})`, 'bulk', 'use vaidya d=3 zh=1');
+		}
+		const g = p.holo.analyseGrowth(p.bulk.d, p.bulk.horizon!, p.q.l!);
+		return {
+			fields: {
+				early: g.early.coefficient,
+				early_expected: g.early.predicted,
+				slope: g.linear.slope,
+				slope_expected: g.linear.predicted,
+				v_E: g.linear.vE,
+				t_slope: g.linear.atTime,
+				t_c: g.tc.value,
+				t_sat: g.saturation.time,
+				dA_sat: g.saturation.dA,
+				continuous: g.kind.continuous ? 1 : 0,
+				slope_before_sat: g.kind.slopeBefore
+			},
+			note: [
+				`early = ${g.early.how}; expected m/2`,
+				`slope: ${g.linear.how}; expected 2 v_E/zh^{d−1}`,
+				g.tc.how,
+				`t_sat: ${g.saturation.how}`,
+				g.kind.how
+			].join('. ')
+		};
+	}
+});

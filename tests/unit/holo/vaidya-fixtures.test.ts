@@ -1,0 +1,31 @@
+import { describe, expect, it } from 'vitest';
+import { hrtDeltaArea } from '../../../src/lib/holo/index';
+import fx from '../../fixtures/holo/vaidya.json';
+import { expectRel } from './check';
+
+/**
+ * The quench engine against its independent reference: tests/fixtures/holo/vaidya_runner.py (mpmath at 32
+ * digits, tanh-sinh in z, every extremal surface found from scratch). Through the public API: ΔA of the winner to
+ * ≤ 1e-8 relative, and every competing surface the runner found is found here too.
+ */
+describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py)', () => {
+	for (const r of fx.rows) {
+		it(`d=${r.d} l=${r.l} t=${r.t} (${r.count} surface${r.count > 1 ? 's' : ''})`, () => {
+			const a = hrtDeltaArea(r.d, 1, r.l, Number(r.t));
+			expectRel(`ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), a.dA, 1e-8, 'mpmath runner');
+			expect(a.surfaces.length).toBe(r.count);
+			const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
+			const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));
+			expect(shells.length).toBe(ref.length);
+			shells.forEach((s, i) => {
+				expectRel(`surface ${i} ΔA`, Number(ref[i].dA), s.dA, 1e-8, 'mpmath runner');
+				expectRel(`surface ${i} z*`, Number(ref[i].zstar), s.zstar, 1e-8, 'mpmath runner');
+			});
+			if (Number(r.t) >= Number(r.tsat)) {
+				const st = a.surfaces.find((s) => s.kind === 'static');
+				expect(st).toBeDefined();
+				expectRel('static ΔA', Number(r.static), st!.dA, 1e-10, 'mpmath runner');
+			}
+		});
+	}
+});
