@@ -68,6 +68,8 @@ export interface CheckResult {
 export interface NoteResult {
 	kind: 'note';
 	text: string;
+	/** a line that does what the note suggests (the console offers to put it in the input) */
+	fix?: string;
 }
 export type Result = ScalarResult | RecordResult | TableResult | SeriesResult | CheckResult | NoteResult;
 
@@ -96,6 +98,8 @@ export interface PadContext {
 	bulk: BulkState;
 	units: UnitsState;
 	refs: Record<number, StepRef>;
+	/** step names (`#btz`) → step numbers; a name follows its step, so it survives renumbering */
+	names?: Record<string, number>;
 	lets: Record<string, LetValue>;
 	/** approved macros by name: parameter defaults and body lines with `{param}` placeholders */
 	macros?: Record<string, { params: Record<string, string>; body: string[] }>;
