@@ -14,7 +14,9 @@ export interface EvalError {
 
 export interface EvalBody {
 	ok: boolean;
-	step?: { id: string; n: number };
+	step?: { id: string; n: number; version?: number };
+	/** a failed line in a pad: kept as an attempt (no step number) */
+	attempt?: { id: string };
 	bulk?: BulkState;
 	units?: UnitsState;
 	ms?: number;
