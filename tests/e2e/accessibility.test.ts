@@ -39,7 +39,13 @@ async function expectAccessible(page: Page, what: string) {
 		if (minor.length) console.log(`${what} (${theme}): ${minor.map((v) => `${v.id} (${v.impact})`).join(', ')}`);
 		const bad = violations
 			.filter((v) => v.impact === 'serious' || v.impact === 'critical')
-			.map((v) => `${v.id} (${v.impact}): ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 5).join(' | ')}`);
+			.map(
+				(v) =>
+					`${v.id} (${v.impact}): ${v.help} — ${v.nodes
+						.map((n) => n.target.join(' '))
+						.slice(0, 5)
+						.join(' | ')}`
+			);
 		expect(bad, `${what} in the ${theme} theme`).toEqual([]);
 	}
 }

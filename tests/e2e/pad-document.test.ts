@@ -113,7 +113,10 @@ describe('steps and attempts', () => {
 			{ version: 1, input: 'darea l=0.4' },
 			{ version: 2, input: 'darea l=0.5' }
 		]);
-		const now = sql<{ n: number; input: string; version: number; name: string }>('SELECT n, input, version, name FROM steps WHERE pad_id = ? AND n = 1', padId);
+		const now = sql<{ n: number; input: string; version: number; name: string }>(
+			'SELECT n, input, version, name FROM steps WHERE pad_id = ? AND n = 1',
+			padId
+		);
 		expect(now).toEqual([{ n: 1, input: 'darea l=0.6', version: 3, name: 'btz' }]);
 	});
 
@@ -192,9 +195,7 @@ describe('units, history and completion', () => {
 	it('lists pads grouped by their bulk, with parameter chips', async () => {
 		const group = page.locator('.bulk-group[data-bulk="boosted"]');
 		await expect.poll(() => group.locator(`li[data-pad="${padId}"]`).count()).toBe(1);
-		expect(await group.locator(`li[data-pad="${padId}"] .param-chip`).allTextContents()).toEqual(
-			expect.arrayContaining(['d=4', 'v=0.3'])
-		);
+		expect(await group.locator(`li[data-pad="${padId}"] .param-chip`).allTextContents()).toEqual(expect.arrayContaining(['d=4', 'v=0.3']));
 		// no recency stamps like "· 4 min"
 		expect(await page.locator('.pad-list').textContent()).not.toMatch(/·\s*\d+\s*(min|h|d)\b|\bnow\b/);
 		await shot('pad-list');

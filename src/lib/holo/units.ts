@@ -16,7 +16,11 @@ export function newtonG(units: Units, d: number): number {
 			return units.G;
 		case 'cft':
 			if (d !== 2)
-				throw new HoloError('units cft needs d = 2', 'd', `c = 3/(2G) is the d = 2 (BTZ) relation; for this bulk: units geo G=${3 / (2 * units.c)}`);
+				throw new HoloError(
+					'units cft needs d = 2',
+					'd',
+					`c = 3/(2G) is the d = 2 (BTZ) relation; for this bulk: units geo G=${3 / (2 * units.c)}`
+				);
 			if (!(units.c > 0) || !Number.isFinite(units.c)) throw new HoloError('c must be positive', 'c');
 			return 3 / (2 * units.c);
 		case 'sym':

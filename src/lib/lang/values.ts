@@ -89,8 +89,7 @@ export function orderOfNames(expr: A.Expr, scope: Scope): Order {
 		if (e.type === 'ref') {
 			const n = refStep(scope.ctx, e);
 			o = n === undefined ? undefined : getOwn(scope.ctx.refs, n)?.order;
-		}
-		else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
+		} else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
 		else if (e.type === 'unary') visit(e.arg);
 		else if (e.type === 'paren') visit(e.inner);
 		else if (e.type === 'binary') {

@@ -51,10 +51,28 @@ export function stepView(s: StepRow) {
 
 /** An earlier version of a step (the step itself holds the newest). */
 export function versionView(v: StepVersionRow) {
-	return { version: v.version, input: v.input, status: v.status, results: v.results, error: v.error, ms: v.ms, createdAt: v.createdAt, replacedAt: v.replacedAt };
+	return {
+		version: v.version,
+		input: v.input,
+		status: v.status,
+		results: v.results,
+		error: v.error,
+		ms: v.ms,
+		createdAt: v.createdAt,
+		replacedAt: v.replacedAt
+	};
 }
 
 /** A failed line: no number, never exported or shared; `afterN` places it in the pad, `forN` when it re-ran a step. */
 export function attemptView(a: AttemptRow) {
-	return { id: a.id, input: a.input, status: a.status, error: a.error, afterN: a.afterN, forN: a.forN, dismissed: a.dismissedAt !== null, createdAt: a.createdAt };
+	return {
+		id: a.id,
+		input: a.input,
+		status: a.status,
+		error: a.error,
+		afterN: a.afterN,
+		forN: a.forN,
+		dismissed: a.dismissedAt !== null,
+		createdAt: a.createdAt
+	};
 }

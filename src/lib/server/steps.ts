@@ -26,7 +26,13 @@ export type LineAnswer =
 type Tx = Parameters<Parameters<ReturnType<typeof getDb>['transaction']>[0]>[0];
 
 function lastStepNumber(tx: Tx, padId: string): number {
-	return tx.select({ n: max(schema.steps.n) }).from(schema.steps).where(eq(schema.steps.padId, padId)).get()?.n ?? 0;
+	return (
+		tx
+			.select({ n: max(schema.steps.n) })
+			.from(schema.steps)
+			.where(eq(schema.steps.padId, padId))
+			.get()?.n ?? 0
+	);
 }
 
 /** Stores the typed line (a pending attempt) and the pad's history before anything runs: nothing typed is lost. */
@@ -35,7 +41,9 @@ export function startStep(pad: PadRow, input: string, forN?: number): { id: stri
 	return db.transaction((tx) => {
 		const id = newId();
 		const afterN = forN ?? lastStepNumber(tx, pad.id);
-		tx.insert(schema.attempts).values({ id, padId: pad.id, input, status: 'pending', afterN, forN: forN ?? null }).run();
+		tx.insert(schema.attempts)
+			.values({ id, padId: pad.id, input, status: 'pending', afterN, forN: forN ?? null })
+			.run();
 		const history = [...((pad.history as string[]) ?? []), input].slice(-HISTORY_MAX);
 		tx.update(schema.pads).set({ history, updatedAt: new Date() }).where(eq(schema.pads.id, pad.id)).run();
 		return { id };
@@ -197,7 +205,12 @@ export function reviseStep(
 
 /** Every earlier version of a step, newest first. */
 export function stepVersions(stepId: string): StepVersionRow[] {
-	return getDb().select().from(schema.stepVersions).where(eq(schema.stepVersions.stepId, stepId)).orderBy(desc(schema.stepVersions.version)).all();
+	return getDb()
+		.select()
+		.from(schema.stepVersions)
+		.where(eq(schema.stepVersions.stepId, stepId))
+		.orderBy(desc(schema.stepVersions.version))
+		.all();
 }
 
 /** Earlier versions of every step of a pad, by step id (one query for the pad page). */

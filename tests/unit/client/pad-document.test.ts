@@ -38,7 +38,9 @@ describe('announcements', () => {
 	it('counts what it does not read out, and says why a line failed', () => {
 		const notes = Array.from({ length: 5 }, (_, i) => ({ kind: 'note' as const, text: `n${i}` }));
 		expect(announceStep(1, null, notes)).toBe('Step 1: n0; n1; n2 and 2 more results.');
-		expect(describeResult({ kind: 'table', label: 'ΔA', columns: ['l', 'o1'], rows: [[1, 2]] })).toBe('ΔA: a table of 1 rows, columns l, o1');
+		expect(describeResult({ kind: 'table', label: 'ΔA', columns: ['l', 'o1'], rows: [[1, 2]] })).toBe(
+			'ΔA: a table of 1 rows, columns l, o1'
+		);
 		expect(announceFailure("unknown verb 'dara'")).toMatch(/^Not evaluated, kept as an attempt: unknown verb 'dara'\./);
 	});
 });
