@@ -11,12 +11,13 @@ export default {
 		extend: {
 			colors: {
 				paper: { DEFAULT: '#f5f1e8', deep: '#ebe5d6', edge: '#d8d0bd' },
-				ink: { DEFAULT: '#1c2230', soft: '#4a5266', faint: '#7d8496' },
+				// faint, drift and steady are dark enough for 4.5:1 on paper and paper-deep (WCAG AA; checked by axe in tests/e2e)
+				ink: { DEFAULT: '#1c2230', soft: '#4a5266', faint: '#5f6678' },
 				night: { DEFAULT: '#121715', deep: '#0b0f0e', edge: '#26302d', text: '#dbe4df', soft: '#9aa8a2' },
 				horizon: { DEFAULT: '#c9731f', light: '#f0b46a', dark: '#94500f' },
 				bulk: { DEFAULT: '#1e7470', light: '#5fb3ad', dark: '#134d4a' },
-				drift: { DEFAULT: '#c2411c', light: '#f08a6c' },
-				steady: { DEFAULT: '#3f7d3a', light: '#8cc487' }
+				drift: { DEFAULT: '#9a3011', light: '#f08a6c' },
+				steady: { DEFAULT: '#2f632c', light: '#8cc487' }
 			},
 			fontFamily: {
 				mono: ['"IBM Plex Mono"', 'ui-monospace', 'monospace']

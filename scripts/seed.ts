@@ -9,7 +9,8 @@ import { openDb, schema } from '../src/lib/server/db/index';
 import { createUser, newId } from '../src/lib/server/auth/accounts';
 import { setSignupPolicy } from '../src/lib/server/auth/policy';
 import { hashToken, newToken } from '../src/lib/server/auth/tokens';
-import { createPad, finishStep, startStep, type PadRow } from '../src/lib/server/pads';
+import { createPad, type PadRow } from '../src/lib/server/pads';
+import { finishStep, startStep } from '../src/lib/server/steps';
 import { runLine } from '../src/lib/lang/index';
 import type { PadContext, StepRef } from '../src/lib/lang/result';
 
@@ -90,8 +91,8 @@ function runPadLines(pad: PadRow, lines: string[]) {
 		const t0 = performance.now();
 		try {
 			const out = runLine(input, ctx);
-			finishStep(fresh, step.id, performance.now() - t0, { ok: true, ...out });
-			const refs: Record<number, StepRef> = { ...ctx.refs, [step.n]: out.ref };
+			const stored = finishStep(fresh, step.id, performance.now() - t0, { ok: true, ...out });
+			const refs: Record<number, StepRef> = { ...ctx.refs, [stored.step!.n]: out.ref };
 			ctx = { bulk: out.bulk, units: out.units, lets: out.lets, refs };
 		} catch (e) {
 			const err = e as { message: string; start?: number; end?: number };

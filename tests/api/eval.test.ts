@@ -83,18 +83,23 @@ describe('POST /api/eval', () => {
 		expect(ratio.body.results[0].value).toBeCloseTo(1, 14);
 	});
 
-	it('keeps a failing line as a step with its error', async () => {
+	it('keeps a failing line as an attempt with its error, taking no step number', async () => {
 		const c = await freshMember('failer');
 		const id = (await c.post('/api/pads', { title: 'errors' })).body.pad.id;
 		const r = await c.post('/api/eval', { input: 'use boosted d=4 v=2', pad: id });
 		expect(r.status).toBe(400);
 		expect(r.body.error.message).toMatch(/\|v\| < 1/);
-		expect(r.body.step.n).toBe(1);
+		expect(r.body.step).toBeUndefined();
+		expect(typeof r.body.attempt.id).toBe('string');
 		const pad = await c.get(`/api/pads/${id}`);
-		expect(pad.body.steps[0]).toMatchObject({ n: 1, input: 'use boosted d=4 v=2', status: 'error' });
+		expect(pad.body.steps).toEqual([]);
+		expect(pad.body.attempts).toEqual([
+			expect.objectContaining({ id: r.body.attempt.id, input: 'use boosted d=4 v=2', status: 'error', afterN: 0, dismissed: false })
+		]);
 		expect(pad.body.pad.history).toContain('use boosted d=4 v=2');
-		// the failed line changed nothing: the pad is still in its default bulk
+		// the failed line changed nothing: the pad is still in its default bulk, and the next good line is #1
 		expect(pad.body.pad.bulk.name).toBe('brane');
+		expect((await c.post('/api/eval', { input: 'darea l=0.3', pad: id })).body.step.n).toBe(1);
 	});
 
 	it("answers 404 for another member's pad", async () => {

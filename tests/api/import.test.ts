@@ -91,14 +91,15 @@ describe('a pad whose stored bulk is unknown', () => {
 		sql('UPDATE pads SET bulk = ? WHERE id = ?', JSON.stringify({ name: 'wormhole', params: { d: 4 } }), padId);
 	});
 
-	it('answers a verb with a 400 naming the bulk and pointing at use, and records the step', async () => {
+	it('answers a verb with a 400 naming the bulk and pointing at use, and keeps the line as an attempt', async () => {
 		const r = await member.post('/api/eval', { input: 'zstar l=0.5', pad: padId });
 		expect(r.status, JSON.stringify(r.body)).toBe(400);
 		expect(r.body.error).toMatchObject({ message: "this pad's bulk 'wormhole' is not one Bulkpad knows", start: 0, end: 11 });
 		expect(r.body.error.hint).toMatch(/use <bulk>/);
-		const steps = (await member.get(`/api/pads/${padId}`)).body.steps;
-		expect(steps.at(-1)).toMatchObject({
-			n: 2,
+		const attempts = (await member.get(`/api/pads/${padId}`)).body.attempts;
+		expect(attempts.at(-1)).toMatchObject({
+			id: r.body.attempt.id,
+			input: 'zstar l=0.5',
 			status: 'error',
 			error: { message: "this pad's bulk 'wormhole' is not one Bulkpad knows" }
 		});

@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { Client, freshMember, inviteAndAccept } from '../helpers/client';
 import { expectFailure, freshWithRole, signInPatiently } from '../helpers/roles';
-import { padWithSteps } from './support/pads';
+import { padWithSteps, sql } from './support/pads';
 
 const LINES = ['use brane d=3 zh=1', 'darea l=0.3 o=2', 'sweep darea l=0.1..0.5:5 o=1,exact', 'coeffs darea o=3 | tex', '#2 * 2', 'thermo'];
 
@@ -22,9 +22,20 @@ beforeAll(async () => {
 	other = await freshMember('pad-other');
 	reader = await freshWithRole(admin, 'pad-reader', 'reader');
 	padId = await padWithSteps(owner, 'Strip checks', LINES);
-	// one step that fails, so error steps travel through export and import too
+	// a line that fails is an attempt now (no number)...
 	const bad = await owner.post('/api/eval', { input: 'darea l=', pad: padId });
 	expect(bad.status).toBe(400);
+	expect(bad.body.step).toBeUndefined();
+	// ...but pads from before attempts existed hold numbered error steps, which must still travel through export
+	// and import: one is written here as the old code wrote it
+	sql(
+		"INSERT INTO steps (id, pad_id, n, input, status, error, bulk_before, created_at) VALUES (?, ?, 7, 'darea l=', 'error', ?, ?, ?)",
+		`legacy-${padId}`,
+		padId,
+		JSON.stringify(bad.body.error),
+		JSON.stringify({ name: 'brane', params: { d: 3, zh: 1 } }),
+		Date.now()
+	);
 });
 
 describe('CRUD', () => {
@@ -67,7 +78,10 @@ describe('CRUD', () => {
 		const steps = r.body.steps;
 		expect(steps.map((s: { n: number }) => s.n)).toEqual([1, 2, 3, 4, 5, 6, 7]);
 		expect(steps.map((s: { input: string }) => s.input)).toEqual([...LINES, 'darea l=']);
-		for (const s of steps) expect(Object.keys(s).sort()).toEqual(['error', 'id', 'input', 'ms', 'n', 'results', 'status']);
+		for (const s of steps)
+			expect(Object.keys(s).sort()).toEqual(['error', 'hidden', 'id', 'input', 'ms', 'n', 'name', 'results', 'status', 'version']);
+		// the owner also sees the failed line, as an attempt after the last step
+		expect(r.body.attempts).toEqual([expect.objectContaining({ input: 'darea l=', status: 'error', afterN: 6, dismissed: false })]);
 		expect(steps[6]).toMatchObject({ status: 'error', results: null });
 		expect(typeof steps[6].error.message).toBe('string');
 		// #5 is twice #2, so the stored steps are the engine's, in order

@@ -151,6 +151,10 @@ describe('the console', () => {
 		expect(await err.locator('mark.bad').textContent()).toBe('dara');
 		expect(await err.textContent()).toMatch(/darea/);
 		expect(await input().inputValue()).toBe('dara l=0.4');
+		// the typo is an attempt: it took no step number
+		expect(await page.locator('article.step[data-step]').evaluateAll((els) => els.map((e) => e.textContent ?? ''))).not.toContainEqual(
+			expect.stringContaining('dara l=0.4')
+		);
 		await screenshot(page, 'console-error');
 		await input().fill('');
 		await page.keyboard.press('ArrowUp');
@@ -185,8 +189,11 @@ describe('the console', () => {
 		await expect.poll(() => page.locator('.status-running').count(), { timeout: 60_000 }).toBe(0);
 		await expect.poll(() => page.locator('.notice').textContent()).toMatch(/Cancelled/);
 		expect(await input().inputValue()).toBe(line);
-		// the server's own record of the step replaces the local mark once the page data reloads
-		await expect.poll(() => lastStep().getAttribute('data-status'), { timeout: 60_000 }).toMatch(/error|pending/);
+		// a cancelled line is kept as an attempt, not a numbered step: the server's record replaces the local mark
+		// once the page data reloads
+		const attempt = page.locator('article.attempt').last();
+		await expect.poll(() => attempt.getAttribute('data-attempt'), { timeout: 60_000 }).toMatch(/\w+/);
+		expect(await attempt.textContent()).toContain('sweep darea ball R=0.1..2:2000');
 		await screenshot(page, 'console-cancelled');
 
 		// one left to finish: a short sweep in a custom metric (milliseconds of work), so only its final state is

@@ -48,7 +48,7 @@ describe('datasets and the macro library in the browser', () => {
 		await page.goto(`${baseUrl}/pads`);
 		await page.waitForURL(/\/pads\/[0-9a-f]+$/);
 		const before = page.url();
-		await page.click('button:has-text("+ new")');
+		await page.click('button.new-pad');
 		await page.waitForURL((u) => u.href !== before && /\/pads\//.test(u.pathname));
 		await typeLine(page, 'compare ines_run darea', 1);
 		const text = await page.locator('body').innerText();
@@ -77,7 +77,7 @@ describe('datasets and the macro library in the browser', () => {
 		await pad.goto(`${baseUrl}/pads`);
 		await pad.waitForURL(/\/pads\//);
 		const before = pad.url();
-		await pad.click('button:has-text("+ new")');
+		await pad.click('button.new-pad');
 		await pad.waitForURL((u) => u.href !== before && /\/pads\//.test(u.pathname));
 		await typeLine(pad, '@charged-scan l=0.4', 1);
 		await expect.poll(() => pad.locator('body').innerText()).toMatch(/charged d=4/);

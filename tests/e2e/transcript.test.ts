@@ -26,7 +26,7 @@ describe('share → transcript → replay', () => {
 		const page = await member.newPage();
 		await signInThroughForm(page, baseUrl, 'tomas@sable.test');
 		const before = page.url();
-		await page.click('button:has-text("+ new")');
+		await page.click('button.new-pad');
 		await page.waitForURL((u) => /\/pads\/[0-9a-f]+$/.test(u.pathname) && u.href !== before);
 		padId = new URL(page.url()).pathname.split('/').pop()!;
 		for (const line of ['use brane d=2 zh=1', 'dentropy l=3', 'mi pair l=1 gap=0.3 d=2']) {

@@ -17,6 +17,35 @@ export interface StepData {
 	results: Result[];
 	error: StepError | null;
 	ms: number | null;
+	/** `#btz`: the name later lines may use instead of the number */
+	name?: string | null;
+	/** folded away in the pad, still numbered and referable */
+	hidden?: boolean;
+	/** 1, +1 per re-run with an edited line */
+	version?: number;
+	/** earlier versions, newest first */
+	versions?: StepVersionData[];
+}
+
+export interface StepVersionData {
+	version: number;
+	input: string;
+	status: string;
+	results: Result[];
+	error: StepError | null;
+}
+
+/** A failed line: dimmed, dismissable, no step number; shown after step `afterN`. */
+export interface AttemptData {
+	/** null until the server answered (a line cancelled on the way) */
+	id: string | null;
+	input: string;
+	status: 'pending' | 'error' | 'cancelled';
+	error: StepError | null;
+	afterN: number;
+	/** set when the line was a re-run of that step */
+	forN: number | null;
+	dismissed: boolean;
 }
 
 export interface PadSummary {

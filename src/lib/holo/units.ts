@@ -15,11 +15,21 @@ export function newtonG(units: Units, d: number): number {
 			if (!(units.G > 0) || !Number.isFinite(units.G)) throw new HoloError('G must be positive', 'G');
 			return units.G;
 		case 'cft':
-			if (d !== 2) throw new HoloError('units cft needs d = 2', 'd', 'c = 3/(2G) is the d = 2 (BTZ) relation');
+			if (d !== 2)
+				throw new HoloError(
+					'units cft needs d = 2',
+					'd',
+					`c = 3/(2G) is the d = 2 (BTZ) relation; for this bulk: units geo G=${3 / (2 * units.c)}`
+				);
 			if (!(units.c > 0) || !Number.isFinite(units.c)) throw new HoloError('c must be positive', 'c');
 			return 3 / (2 * units.c);
 		case 'sym':
-			if (d !== 4) throw new HoloError('units sym needs d = 4', 'd', 'L³/G₅ = 2N²/π is for N = 4 SYM (d = 4)');
+			if (d !== 4)
+				throw new HoloError(
+					'units sym needs d = 4',
+					'd',
+					`L³/G₅ = 2N²/π is for N = 4 SYM (d = 4); for this bulk: units geo G=${Math.PI / (2 * units.N * units.N)}`
+				);
 			if (!(units.N > 0) || !Number.isFinite(units.N)) throw new HoloError('N must be positive', 'N');
 			return Math.PI / (2 * units.N * units.N);
 		default:

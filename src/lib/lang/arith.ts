@@ -61,7 +61,7 @@ function bind(e: A.Expr, resolve: Resolver, scope: Map<string, number>): void {
 			return;
 		}
 		case 'ref':
-			scope.set(refIdentifier(e.step, e.field), resolve(e));
+			scope.set(refIdentifier(e.step, e.field, e.name), resolve(e));
 			return;
 		case 'unary':
 			return bind(e.arg, resolve, scope);

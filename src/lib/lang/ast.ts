@@ -18,10 +18,11 @@ export interface NameExpr extends Span {
 	type: 'name';
 	name: string;
 }
-/** `#4` or `#4.T` */
+/** `#4` or `#4.T`, or by the step's name: `#btz`, `#btz.T` (then `step` is 0, which no step has) */
 export interface RefExpr extends Span {
 	type: 'ref';
 	step: number;
+	name?: string;
 	field?: string;
 }
 export interface UnaryExpr extends Span {

@@ -18,6 +18,7 @@ import type { BulkState, LineOutcome, PadContext, Result, StepRef, UnitsState } 
 import { runVerb } from './run-verb';
 import { type Checked, checkBulk, checkUnits, UNITS_SCHEMAS } from './schema';
 import { applySinks } from './sinks';
+import { unitsAfterUse } from './units-note';
 import { orderOfNames, resolverFor, resolveValue } from './values';
 import { engine } from './engine';
 import { BULKS, type BulkName, isBulk } from './vocab';
@@ -143,9 +144,10 @@ function runUse(s: A.UseStmt, env: LineEnv): StatementOut {
 	const name = s.bulk.text as BulkName;
 	const given = singleValues(s.keys, { ctx: env.ctx, lets: env.lets, bulk: env.bulk.params }, env, 'use');
 	const params = checkedOrThrow(checkBulk(name, given), s.keys, s.bulk);
-	withEngine(s.keys, s.bulk, '', () => engine.makeBulk(name, params));
+	const made = withEngine(s.keys, s.bulk, '', () => engine.makeBulk(name, params));
 	env.bulk = { name, params };
-	return { results: [{ kind: 'note', text: `bulk: ${describeBulk(env.bulk)}` }] };
+	const units = unitsAfterUse(env.units, made.d);
+	return { results: [{ kind: 'note', text: `bulk: ${describeBulk(env.bulk)}` }, ...(units ? [units] : [])] };
 }
 
 function runUnits(s: A.UnitsStmt, env: LineEnv): StatementOut {

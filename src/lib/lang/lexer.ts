@@ -151,15 +151,27 @@ function scanString(input: string, i: number): { value: string; end: number } {
 	return { value, end: i + 1 };
 }
 
-/** '#' digits ['.' name] */
+/** '#' (digits | name) ['.' name] */
 function scanRef(input: string, start: number): Token {
 	let i = start + 1;
-	if (!isDigit(input[i])) {
-		throw expected("a step number after '#'", describeChar(input[i]), start, Math.min(i + 1, input.length), 'write #4 or #4.T');
+	let step = 0;
+	let name: string | undefined;
+	if (isNameStart(input[i])) {
+		while (isNameChar(input[i])) i++;
+		name = input.slice(start + 1, i);
+	} else if (!isDigit(input[i])) {
+		throw expected(
+			"a step number or name after '#'",
+			describeChar(input[i]),
+			start,
+			Math.min(i + 1, input.length),
+			'write #4, #4.T or a step name like #btz'
+		);
+	} else {
+		while (isDigit(input[i])) i++;
+		step = Number(input.slice(start + 1, i));
+		if (!Number.isSafeInteger(step)) throw new LangError(`step number ${input.slice(start, i)} is out of range`, start, i);
 	}
-	while (isDigit(input[i])) i++;
-	const step = Number(input.slice(start + 1, i));
-	if (!Number.isSafeInteger(step)) throw new LangError(`step number ${input.slice(start, i)} is out of range`, start, i);
 	let field: string | undefined;
 	if (input[i] === '.' && isNameStart(input[i + 1])) {
 		const fs = i + 1;
@@ -168,6 +180,7 @@ function scanRef(input: string, start: number): Token {
 		field = input.slice(fs, i);
 	}
 	const tok: Token = { kind: Tok.Ref, text: input.slice(start, i), start, end: i, step };
+	if (name !== undefined) tok.name = name;
 	if (field !== undefined) tok.field = field;
 	return tok;
 }

@@ -447,6 +447,7 @@ class Parser {
 			case Tok.Ref: {
 				this.next();
 				const r: A.RefExpr = { type: 'ref', step: t.step!, start: t.start, end: t.end };
+				if (t.name !== undefined) r.name = t.name;
 				if (t.field !== undefined) r.field = t.field;
 				return r;
 			}

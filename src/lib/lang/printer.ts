@@ -7,20 +7,30 @@ import type * as A from './ast';
 
 const PREC: Record<A.BinaryExpr['op'], number> = { '+': 1, '-': 1, '*': 2, '/': 2, '^': 4 };
 
-/** `#4` → `$ref4`, `#4.T` → `$ref4_T`; '$' never reaches the lexer as part of a name. */
-export function refIdentifier(step: number, field?: string): string {
+/**
+ * `#4` → `$ref4`, `#4.T` → `$ref4_T`, `#btz` → `$name$btz`, `#btz.T` → `$name$btz$T` ('$' separates a name
+ * from its field, since names may contain '_'); '$' never reaches the lexer as part of a name.
+ */
+export function refIdentifier(step: number, field?: string, name?: string): string {
+	if (name !== undefined) return field === undefined ? `$name$${name}` : `$name$${name}$${field}`;
 	return field === undefined ? `$ref${step}` : `$ref${step}_${field}`;
+}
+
+/** `#4`, `#btz`, `#4.T` as typed. */
+export function refText(r: Pick<A.RefExpr, 'step' | 'name' | 'field'>): string {
+	const head = `#${r.name ?? r.step}`;
+	return r.field === undefined ? head : `${head}.${r.field}`;
 }
 
 /** Arithmetic as the user would write it (refs as `#n`). */
 export function printExpr(e: A.Expr): string {
-	return printWith(e, (r) => (r.field === undefined ? `#${r.step}` : `#${r.step}.${r.field}`));
+	return printWith(e, refText);
 }
 
 /** Arithmetic as mathjs text. Every binary operation is parenthesised so mathjs's own precedence rules
  * (e.g. implicit multiplication, unary minus vs '^') can never reinterpret what our parser decided. */
 export function printMathjs(e: A.Expr): string {
-	return printWith(e, (r) => refIdentifier(r.step, r.field), true);
+	return printWith(e, (r) => refIdentifier(r.step, r.field, r.name), true);
 }
 
 function printWith(e: A.Expr, ref: (r: A.RefExpr) => string, strict = false, parent = 0): string {
@@ -111,6 +121,11 @@ export function printLine(line: A.Line): string {
 	return line.statements.map(printStatement).join('; ');
 }
 
+function texRef(e: A.RefExpr): string {
+	const head = e.name === undefined ? `\\#${e.step}` : `\\#\\mathrm{${e.name.replace(/_/g, '\\_')}}`;
+	return e.field === undefined ? head : `${head}.\\mathrm{${e.field.replace(/_/g, '\\_')}}`;
+}
+
 /** Arithmetic as LaTeX for KaTeX: fractions for '/', \cdot for '*', \pi for pi, \#4 for references. */
 export function texExpr(e: A.Expr): string {
 	switch (e.type) {
@@ -119,7 +134,7 @@ export function texExpr(e: A.Expr): string {
 		case 'name':
 			return e.name === 'pi' ? '\\pi' : e.name.length === 1 ? e.name : `\\mathrm{${e.name.replace(/_/g, '\\_')}}`;
 		case 'ref':
-			return e.field === undefined ? `\\#${e.step}` : `\\#${e.step}.\\mathrm{${e.field.replace(/_/g, '\\_')}}`;
+			return texRef(e);
 		case 'paren':
 			return `\\left(${texExpr(e.inner)}\\right)`;
 		case 'unary':

@@ -68,6 +68,8 @@ export interface CheckResult {
 export interface NoteResult {
 	kind: 'note';
 	text: string;
+	/** a line that does what the note suggests (the console offers to put it in the input) */
+	fix?: string;
 }
 export type Result = ScalarResult | RecordResult | TableResult | SeriesResult | CheckResult | NoteResult;
 
@@ -96,6 +98,8 @@ export interface PadContext {
 	bulk: BulkState;
 	units: UnitsState;
 	refs: Record<number, StepRef>;
+	/** step names (`#btz`) → step numbers; a name follows its step, so it survives renumbering */
+	names?: Record<string, number>;
 	lets: Record<string, LetValue>;
 	/** approved macros by name: parameter defaults and body lines with `{param}` placeholders */
 	macros?: Record<string, { params: Record<string, string>; body: string[] }>;
@@ -137,8 +141,10 @@ export type StepError = Omit<EvalError, 'code' | 'retryAfter'> & { code?: EvalEr
 /** The JSON body of POST /api/eval, declared once for the server that sends it and the browser that reads it. */
 export interface EvalBody {
 	ok: boolean;
-	/** the step the line became (pad evaluations) */
-	step?: { id: string; n: number };
+	/** the step the line became (pad evaluations; version > 1 when it re-ran an existing step) */
+	step?: { id: string; n: number; version?: number };
+	/** a failed line in a pad: kept as an attempt, with no step number */
+	attempt?: { id: string };
 	/** the pad's bulk and units after the line */
 	bulk?: BulkState;
 	units?: UnitsState;

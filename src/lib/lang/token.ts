@@ -34,8 +34,9 @@ export interface Token {
 	end: number;
 	/** numeric value of a Number token */
 	num?: number;
-	/** for Ref: the step number and the optional field */
+	/** for Ref: the step number (or its name, `#btz`) and the optional field */
 	step?: number;
+	name?: string;
 	field?: string;
 }
 

@@ -45,23 +45,37 @@ export function resolverFor(scope: Scope): Resolver {
 	};
 }
 
+/** The step number a reference reads: its own, or the one its name (`#btz`) is given to in this pad. */
+export function refStep(ctx: PadContext, r: A.RefExpr): number | undefined {
+	if (r.name === undefined) return r.step;
+	return getOwn(ctx.names ?? {}, r.name);
+}
+
 function readRef(ctx: PadContext, r: A.RefExpr): number {
-	const step = getOwn(ctx.refs, r.step);
-	if (!step) throw new LangError(`no step #${r.step} in this pad`, r.start, r.end);
+	const n = refStep(ctx, r);
+	if (n === undefined) {
+		const names = Object.keys(ctx.names ?? {});
+		throw new LangError(`no step named #${r.name} in this pad${didYouMean(r.name!, names)}`, r.start, r.end, {
+			hint: names.length ? `named steps: ${names.map((x) => `#${x}`).join(', ')}` : 'name a step from its menu, or use its number'
+		});
+	}
+	const label = r.name === undefined ? `#${n}` : `#${r.name} (#${n})`;
+	const step = getOwn(ctx.refs, n);
+	if (!step) throw new LangError(`no step ${label} in this pad`, r.start, r.end);
 	if (r.field !== undefined) {
 		const v = getOwn(step.fields, r.field);
 		if (v === undefined) {
 			const names = Object.keys(step.fields);
-			throw new LangError(`step #${r.step} has no field '${r.field}'${didYouMean(r.field, names)}`, r.start, r.end, {
-				hint: names.length ? `fields of #${r.step}: ${names.join(', ')}` : `#${r.step} has no fields`
+			throw new LangError(`step ${label} has no field '${r.field}'${didYouMean(r.field, names)}`, r.start, r.end, {
+				hint: names.length ? `fields of #${r.name ?? n}: ${names.join(', ')}` : `#${r.name ?? n} has no fields`
 			});
 		}
 		return v;
 	}
 	if (step.value === undefined) {
 		const names = Object.keys(step.fields);
-		throw new LangError(`step #${r.step} has no single value`, r.start, r.end, {
-			hint: names.length ? `use a field: ${names.map((n) => `#${r.step}.${n}`).join(', ')}` : 'it gave no number'
+		throw new LangError(`step ${label} has no single value`, r.start, r.end, {
+			hint: names.length ? `use a field: ${names.map((f) => `#${r.name ?? n}.${f}`).join(', ')}` : 'it gave no number'
 		});
 	}
 	return step.value;
@@ -72,8 +86,10 @@ export function orderOfNames(expr: A.Expr, scope: Scope): Order {
 	let lowest: Order = 'exact';
 	const visit = (e: A.Expr): void => {
 		let o: Order | undefined;
-		if (e.type === 'ref') o = getOwn(scope.ctx.refs, e.step)?.order;
-		else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
+		if (e.type === 'ref') {
+			const n = refStep(scope.ctx, e);
+			o = n === undefined ? undefined : getOwn(scope.ctx.refs, n)?.order;
+		} else if (e.type === 'name' && typeof getOwn(scope.bulk, e.name) !== 'number') o = getOwn(scope.lets, e.name)?.order;
 		else if (e.type === 'unary') visit(e.arg);
 		else if (e.type === 'paren') visit(e.inner);
 		else if (e.type === 'binary') {

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import type { PadRow, StepRow } from './pads';
+import type { AttemptRow, StepVersionRow } from './steps';
 import { ownerName } from './transcripts';
 
 /**
@@ -34,5 +35,44 @@ export function padView(pad: PadRow, owner = ownerName(pad)) {
 }
 
 export function stepView(s: StepRow) {
-	return { id: s.id, n: s.n, input: s.input, status: s.status, results: s.results, error: s.error, ms: s.ms };
+	return {
+		id: s.id,
+		n: s.n,
+		input: s.input,
+		status: s.status,
+		results: s.results,
+		error: s.error,
+		ms: s.ms,
+		name: s.name,
+		hidden: s.hiddenAt !== null,
+		version: s.version
+	};
+}
+
+/** An earlier version of a step (the step itself holds the newest). */
+export function versionView(v: StepVersionRow) {
+	return {
+		version: v.version,
+		input: v.input,
+		status: v.status,
+		results: v.results,
+		error: v.error,
+		ms: v.ms,
+		createdAt: v.createdAt,
+		replacedAt: v.replacedAt
+	};
+}
+
+/** A failed line: no number, never exported or shared; `afterN` places it in the pad, `forN` when it re-ran a step. */
+export function attemptView(a: AttemptRow) {
+	return {
+		id: a.id,
+		input: a.input,
+		status: a.status,
+		error: a.error,
+		afterN: a.afterN,
+		forN: a.forN,
+		dismissed: a.dismissedAt !== null,
+		createdAt: a.createdAt
+	};
 }

@@ -1,13 +1,12 @@
-import { and, asc, desc, eq, max } from 'drizzle-orm';
+import { and, asc, desc, eq } from 'drizzle-orm';
 import { getDb, schema } from './db';
 import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
-import type { BulkState, LetValue, PadContext, Result, StepError, StepRef, UnitsState } from '../lang/result';
+import type { BulkState, LetValue, PadContext, StepRef, UnitsState } from '../lang/result';
 
 export const DEFAULT_BULK: BulkState = { name: 'brane', params: { d: 4, zh: 1 } };
 export const DEFAULT_UNITS: UnitsState = { system: 'geo', G: 1 };
-const HISTORY_MAX = 200;
 
 export type PadRow = typeof schema.pads.$inferSelect;
 export type StepRow = typeof schema.steps.$inferSelect;
@@ -111,10 +110,17 @@ export function stepRefs(steps: Pick<StepRow, 'n' | 'status' | 'ref'>[]): Record
 	return refs;
 }
 
+/** `#name` → step number, for the names given to steps (a name follows its step wherever it is numbered). */
+export function stepNames(steps: Pick<StepRow, 'n' | 'name'>[]): Record<string, number> {
+	const names: Record<string, number> = {};
+	for (const s of steps) if (s.name) names[s.name] = s.n;
+	return names;
+}
+
 /** What a line evaluated in this pad needs: its state, the `#n` references (not whole results) and library. */
 export function padContext(pad: PadRow, input: string): PadContext {
 	const refRows = getDb()
-		.select({ n: schema.steps.n, status: schema.steps.status, ref: schema.steps.ref })
+		.select({ n: schema.steps.n, status: schema.steps.status, ref: schema.steps.ref, name: schema.steps.name })
 		.from(schema.steps)
 		.where(eq(schema.steps.padId, pad.id))
 		.all();
@@ -123,48 +129,9 @@ export function padContext(pad: PadRow, input: string): PadContext {
 		units: pad.units as UnitsState,
 		lets: pad.lets as Record<string, LetValue>,
 		refs: stepRefs(refRows),
+		names: stepNames(refRows),
 		...lineLibrary(input)
 	};
-}
-
-/** Stores the typed line before anything runs, so nothing typed is lost even if evaluation fails. */
-export function startStep(pad: PadRow, input: string): { id: string; n: number } {
-	const db = getDb();
-	return db.transaction((tx) => {
-		const last = tx
-			.select({ n: max(schema.steps.n) })
-			.from(schema.steps)
-			.where(eq(schema.steps.padId, pad.id))
-			.get();
-		const n = (last?.n ?? 0) + 1;
-		const id = newId();
-		tx.insert(schema.steps).values({ id, padId: pad.id, n, input, status: 'pending', bulkBefore: pad.bulk }).run();
-		const history = [...((pad.history as string[]) ?? []), input].slice(-HISTORY_MAX);
-		tx.update(schema.pads).set({ history, updatedAt: new Date() }).where(eq(schema.pads.id, pad.id)).run();
-		return { id, n };
-	});
-}
-
-export function finishStep(
-	pad: PadRow,
-	stepId: string,
-	ms: number,
-	answer:
-		| { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> }
-		| { ok: false; error: StepError }
-) {
-	const db = getDb();
-	db.transaction((tx) => {
-		if (answer.ok) {
-			tx.update(schema.steps).set({ status: 'ok', results: answer.results, ref: answer.ref, ms }).where(eq(schema.steps.id, stepId)).run();
-			tx.update(schema.pads)
-				.set({ bulk: answer.bulk, units: answer.units, lets: answer.lets, updatedAt: new Date() })
-				.where(eq(schema.pads.id, pad.id))
-				.run();
-		} else {
-			tx.update(schema.steps).set({ status: 'error', error: answer.error, ms }).where(eq(schema.steps.id, stepId)).run();
-		}
-	});
 }
 
 /** Lines of one pad run one after another: each sees the bulk and references the previous left. */

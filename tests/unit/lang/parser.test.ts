@@ -132,8 +132,9 @@ const BAD: [input: string, message: string | RegExp, covers: string, code?: 'lim
 	['let zh = 3', "'zh' is a word of the language and cannot be a let-name", 'zh'],
 	['let x = use brane', "'use' gives no value to keep", 'use'],
 	['let = 3', "Expected a name to keep the value under, found '='", '='],
-	['#', "Expected a step number after '#', found end of line", '#'],
-	['#x', "Expected a step number after '#', found 'x'", '#x'],
+	['#', "Expected a step number or name after '#', found end of line", '#'],
+	// `#x` is a step name now (`#btz`); a character that starts neither a number nor a name is refused
+	['#.', "Expected a step number or name after '#', found '.'", '#.'],
 	['@', "Expected a macro name after '@', found end of line", ''],
 	['darea l=0.3 $', "Expected a name, number or operator, found '$'", '$'],
 	['darea f="abc', "unterminated string: add the closing '\"'", '"abc'],

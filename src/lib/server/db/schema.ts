@@ -77,9 +77,73 @@ export const steps = sqliteTable(
 		/** the bulk the step was evaluated in, so a replay starts from the same state */
 		bulkBefore: text('bulk_before', { mode: 'json' }).$type<BulkState>(),
 		ms: real('ms'),
+		createdAt: createdAt(),
+		// ── pad document (branch pad): named, hidden and re-run steps ──
+		/** `#btz`: a name a later line may use instead of the number; unique within the pad, survives reordering */
+		name: text('name'),
+		/** hidden, not deleted: the step keeps its number and its references; restoring clears this */
+		hiddenAt: integer('hidden_at', { mode: 'timestamp_ms' }),
+		/** 1, then +1 for each re-run with an edited line; earlier versions live in step_versions */
+		version: integer('version').notNull().default(1)
+	},
+	(t) => [uniqueIndex('steps_pad_n_idx').on(t.padId, t.n), uniqueIndex('steps_pad_name_idx').on(t.padId, t.name)]
+);
+
+// ── pad document (branch pad): attempts and step versions ──
+
+/**
+ * A line that has not (yet) become a step: stored `pending` before it runs, so nothing typed is lost, then
+ * either turned into the next numbered step (this row is removed in the same transaction: it was only the
+ * line's write-ahead record) or kept as an `error` attempt. Attempts take no step number, are never exported
+ * or shared, and are dismissed (dismissedAt), not deleted. Failed steps stored before attempts existed stay
+ * numbered steps (see DEVELOPERS.md › Steps and attempts): renumbering them would change what `#n` meant in
+ * lines already written.
+ */
+export const attempts = sqliteTable(
+	'attempts',
+	{
+		id: text('id').primaryKey(),
+		padId: text('pad_id')
+			.notNull()
+			.references(() => pads.id, { onDelete: 'cascade' }),
+		input: text('input').notNull(),
+		status: text('status', { enum: ['pending', 'error'] }).notNull(),
+		error: text('error', { mode: 'json' }),
+		/** the step number it was typed after (0: before any step), to place it in the pad */
+		afterN: integer('after_n').notNull().default(0),
+		/** a failed re-run of this step number (null for a new line) */
+		forN: integer('for_n'),
+		ms: real('ms'),
+		dismissedAt: integer('dismissed_at', { mode: 'timestamp_ms' }),
 		createdAt: createdAt()
 	},
-	(t) => [uniqueIndex('steps_pad_n_idx').on(t.padId, t.n)]
+	(t) => [index('attempts_pad_idx').on(t.padId, t.createdAt)]
+);
+
+/** Earlier versions of a step, written when it is re-run with an edited line (the step row holds the newest). */
+export const stepVersions = sqliteTable(
+	'step_versions',
+	{
+		id: text('id').primaryKey(),
+		stepId: text('step_id')
+			.notNull()
+			.references(() => steps.id, { onDelete: 'cascade' }),
+		version: integer('version').notNull(),
+		input: text('input').notNull(),
+		status: text('status', { enum: ['pending', 'ok', 'error'] }).notNull(),
+		results: text('results', { mode: 'json' }),
+		error: text('error', { mode: 'json' }),
+		ref: text('ref', { mode: 'json' }),
+		bulkBefore: text('bulk_before', { mode: 'json' }),
+		ms: real('ms'),
+		/** when this version was first recorded (the step's time for version 1) */
+		createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),
+		/** when the next version replaced it */
+		replacedAt: integer('replaced_at', { mode: 'timestamp_ms' })
+			.notNull()
+			.$defaultFn(() => new Date())
+	},
+	(t) => [uniqueIndex('step_versions_idx').on(t.stepId, t.version)]
 );
 
 export const shares = sqliteTable('shares', {

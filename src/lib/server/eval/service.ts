@@ -7,14 +7,14 @@ import {
 	DEFAULT_BULK,
 	DEFAULT_UNITS,
 	approvedMacros,
-	finishStep,
 	lineLibrary,
 	padContext,
 	serialisePad,
-	startStep,
+	stepNames,
 	type PadRow,
 	type StepRow
 } from '../pads';
+import { findStep, finishStep, reviseStep, startStep } from '../steps';
 import { datasetRefs } from '../datasets';
 import type { BulkState, EvalBody, LetValue, Result, StepRef, UnitsState } from '../../lang/result';
 import type { EvalAnswer } from './worker';
@@ -31,7 +31,10 @@ export interface EvalReply {
 
 const STATUS: Record<string, EvalReply['status']> = { language: 400, limit: 422, busy: 503, throttled: 429 };
 
-function reply(q: QueueAnswer, ms: number, step?: { id: string; n: number }, bulkIfError?: BulkState): EvalReply {
+type Stored = { step?: { id: string; n: number; version?: number }; attempt?: { id: string } };
+
+function reply(q: QueueAnswer, ms: number, stored: Stored = {}, bulkIfError?: BulkState): EvalReply {
+	const { step, attempt } = stored;
 	const { answer } = q;
 	// waiting and running are reported apart: a line never pays for the queue in its own budget
 	const timing = { ms, queuedMs: Math.round(q.waitMs), runMs: Math.round(q.runMs) };
@@ -43,7 +46,8 @@ function reply(q: QueueAnswer, ms: number, step?: { id: string; n: number }, bul
 	}
 	const status = STATUS[answer.error.code] ?? 500;
 	const headers = answer.error.retryAfter ? { 'retry-after': String(answer.error.retryAfter) } : undefined;
-	return { status, headers, body: { ok: false, step, bulk: bulkIfError, ...timing, error: answer.error } };
+	// a failed line is an attempt: it has an id (to dismiss it) but no step number
+	return { status, headers, body: { ok: false, attempt, bulk: bulkIfError, ...timing, error: answer.error } };
 }
 
 function tooLong(input: string): QueueAnswer | undefined {
@@ -74,20 +78,46 @@ export async function evaluateStateless(input: string, ownerId: string, opts: Ev
 	if (fast) return reply(fast, performance.now() - t0, undefined, DEFAULT_BULK);
 	const ctx = { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, ...lineLibrary(input) };
 	const answer = long ?? (await evaluateLine(input, ctx, ownerId, ownerId, opts));
-	return reply(answer, performance.now() - t0, undefined, DEFAULT_BULK);
+	return reply(answer, performance.now() - t0, {}, DEFAULT_BULK);
 }
 
-/** A line in a pad: stored as the next step first, then evaluated, then its results or error recorded. */
+/** A line in a pad: stored first as a pending attempt, then evaluated, then a numbered step or a kept attempt. */
 export function evaluateInPad(padOf: () => PadRow, input: string, opts: EvalOptions = {}): Promise<EvalReply> {
 	const padId = padOf().id;
 	return serialisePad(padId, async () => {
 		const pad = padOf(); // re-read: the previous line may have changed the bulk
 		const t0 = performance.now();
-		const step = startStep(pad, input);
+		const typed = startStep(pad, input);
 		const q = tooLong(input) ?? (await evaluateLine(input, padContext(pad, input), pad.ownerId, pad.ownerId, opts));
 		const ms = performance.now() - t0;
-		finishStep(pad, step.id, ms, q.answer.ok ? { ok: true, ...q.answer.outcome } : q.answer);
-		return reply(q, ms, step, pad.bulk as BulkState);
+		const stored = finishStep(pad, typed.id, ms, q.answer.ok ? { ok: true, ...q.answer.outcome } : q.answer);
+		return reply(q, ms, stored, pad.bulk as BulkState);
+	});
+}
+
+/**
+ * Step `n` re-run with an edited line, as its next version. The line is evaluated where the step stood: in the
+ * bulk it started from, seeing only the steps before it (and their names), with the pad's units and lets. A
+ * failure changes nothing and is kept as an attempt for that step.
+ */
+export function rerunInPad(padOf: () => PadRow, n: number, input: string, opts: EvalOptions = {}): Promise<EvalReply> {
+	const padId = padOf().id;
+	return serialisePad(padId, async () => {
+		const pad = padOf();
+		const step = findStep(pad, n);
+		const t0 = performance.now();
+		const typed = startStep(pad, input, n);
+		const ctx = padContext(pad, input);
+		const bulkBefore = (step.bulkBefore as BulkState | null) ?? (pad.bulk as BulkState);
+		const before = (m: number) => m < n;
+		ctx.bulk = bulkBefore;
+		ctx.refs = Object.fromEntries(Object.entries(ctx.refs).filter(([k]) => before(Number(k))));
+		ctx.names = Object.fromEntries(Object.entries(ctx.names ?? {}).filter(([, m]) => before(m)));
+		const q = tooLong(input) ?? (await evaluateLine(input, ctx, pad.ownerId, pad.ownerId, opts));
+		const ms = performance.now() - t0;
+		if (!q.answer.ok) return reply(q, ms, finishStep(pad, typed.id, ms, q.answer), bulkBefore);
+		const revised = reviseStep(pad, step, input, ms, { ok: true, ...q.answer.outcome }, bulkBefore, typed.id);
+		return reply(q, ms, { step: { id: revised.id, n: revised.n, version: revised.version } });
 	});
 }
 
@@ -126,6 +156,8 @@ export async function replaySteps(pad: PadRow, steps: StepRow[], opts: ReplayOpt
 	let units: UnitsState = DEFAULT_UNITS;
 	let lets: Record<string, LetValue> = {};
 	const refs: Record<number, StepRef> = {};
+	// names as the steps carry them now: a name follows its step, so a renumbered pad still replays
+	const names = stepNames(steps.filter((s) => s.name));
 	const macros = steps.some((s) => s.input.includes('@')) ? approvedMacros() : {};
 	let datasets: ReturnType<typeof datasetRefs> | undefined;
 	const refsOnce = () => (datasets ??= datasetRefs(pad.ownerId));
@@ -143,7 +175,7 @@ export async function replaySteps(pad: PadRow, steps: StepRow[], opts: ReplayOpt
 		}
 		const q = await evaluateLine(
 			s.input,
-			{ bulk, units, lets, refs, macros },
+			{ bulk, units, lets, refs, names, macros },
 			opts.owner,
 			pad.ownerId,
 			{ priority: 'replay', signal: opts.signal, budgetMs: Math.min(evalSettings.budgetMs, left) },

@@ -4,7 +4,8 @@ import { orPageError } from '$lib/server/http';
 import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad } from '$lib/server/pads';
 import { titleSchema } from '$lib/server/pad-view';
 import type { BulkState, Result, UnitsState } from '$lib/lang/result';
-import type { StepData } from '$lib/client/types';
+import type { AttemptData, StepData } from '$lib/client/types';
+import { padAttempts, padStepVersions } from '$lib/server/steps';
 
 /**
  * The layout redirects a visitor without a session, but SvelteKit runs this load beside the layout's (a
@@ -15,6 +16,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 	const user = locals.user;
 	if (!user) redirect(303, `/signin?next=${encodeURIComponent(url.pathname + url.search)}`);
 	const pad = orPageError(() => findReadablePad(user, params.id));
+	const versions = padStepVersions(pad.id);
 	const steps: StepData[] = padSteps(pad.id).map((s) => ({
 		id: s.id,
 		n: s.n,
@@ -22,9 +24,31 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		status: s.status,
 		results: (s.results as Result[] | null) ?? [],
 		error: (s.error as StepData['error']) ?? null,
-		ms: s.ms
+		ms: s.ms,
+		name: s.name,
+		hidden: s.hiddenAt !== null,
+		version: s.version,
+		versions: (versions.get(s.id) ?? []).map((v) => ({
+			version: v.version,
+			input: v.input,
+			status: v.status,
+			results: (v.results as Result[] | null) ?? [],
+			error: (v.error as StepData['error']) ?? null
+		}))
 	}));
 	const own = pad.ownerId === user.id && user.role !== 'reader';
+	// failed lines are the owner's working notes: an invited reader never sees them
+	const attempts: AttemptData[] = own
+		? padAttempts(pad.id).map((a) => ({
+				id: a.id,
+				input: a.input,
+				status: a.status,
+				error: (a.error as StepData['error']) ?? null,
+				afterN: a.afterN,
+				forN: a.forN,
+				dismissed: a.dismissedAt !== null
+			}))
+		: [];
 	return {
 		pad: {
 			id: pad.id,
@@ -34,7 +58,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			history: own ? ((pad.history as string[]) ?? []) : [],
 			own
 		},
-		steps
+		steps,
+		attempts
 	};
 };
 

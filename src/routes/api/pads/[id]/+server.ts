@@ -2,13 +2,18 @@ import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireUser, requireWriter } from '$lib/server/auth/guards';
 import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad } from '$lib/server/pads';
-import { padView, stepView, titleSchema } from '$lib/server/pad-view';
+import { attemptView, padView, stepView, titleSchema } from '$lib/server/pad-view';
+import { padAttempts } from '$lib/server/steps';
 
-/** GET: the owner, or a reader or member invited by e-mail. Anyone else gets the same 404 as a missing id. */
+/**
+ * GET: the owner, or a reader or member invited by e-mail. Anyone else gets the same 404 as a missing id.
+ * Attempts (failed lines) are the owner's working notes: only the owner sees them.
+ */
 export const GET = api((event) => {
 	const user = requireUser(event);
 	const pad = findReadablePad(user, event.params.id!);
-	return ok({ pad: padView(pad), steps: padSteps(pad.id).map(stepView) });
+	const attempts = pad.ownerId === user.id ? padAttempts(pad.id).map(attemptView) : [];
+	return ok({ pad: padView(pad), steps: padSteps(pad.id).map(stepView), attempts });
 });
 
 /** PATCH {title}: owner only; an invited person gets 404, as if the pad were not there to change. */
