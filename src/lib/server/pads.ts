@@ -3,6 +3,7 @@ import { getDb, schema } from './db';
 import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
+import { effectsOf } from './macros';
 import type { BulkState, LetValue, LineErrorShape, PadContext, Result, StepRef, UnitsState } from '../lang/result';
 
 export const DEFAULT_BULK: BulkState = { name: 'brane', params: { d: 4, zh: 1 } };
@@ -92,7 +93,7 @@ export function deletePad(pad: PadRow) {
 /** Approved macros, as the language expands them. */
 export function approvedMacros(): NonNullable<PadContext['macros']> {
 	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
-	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[] }]));
+	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[], effects: effectsOf(m) }]));
 }
 
 /**

@@ -3,6 +3,7 @@ import type { Actions, PageServerLoad } from './$types';
 import { orPageError } from '$lib/server/http';
 import { forkSnapshot, snapshotTranscript } from '$lib/server/transcripts';
 import { openShare } from '$lib/server/snapshots';
+import { listComments } from '$lib/server/comments';
 import katex from 'katex';
 import { useKatex } from '$lib/client/tex';
 
@@ -10,9 +11,12 @@ import { useKatex } from '$lib/client/tex';
 useKatex(katex);
 
 export const load: PageServerLoad = ({ params, locals }) => {
-	const transcript = snapshotTranscript(orPageError(() => openShare(params.slug)));
+	const opened = orPageError(() => openShare(params.slug));
+	const transcript = snapshotTranscript(opened);
 	const role = locals.user?.role;
-	return { slug: params.slug, transcript, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
+	// comments carry their authors' names: only signed-in readers of the snapshot see them
+	const comments = locals.user ? listComments(opened.share.slug, locals.user) : [];
+	return { slug: params.slug, transcript, comments, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
 };
 
 export const actions: Actions = {
