@@ -19,7 +19,12 @@ beforeAll(async () => {
 
 describe('the library refuses bodies that reach outside the macro', () => {
 	it('refuses #3 in a body with 400 and a message naming the line', async () => {
-		const r = await author.post('/api/macros', { name: unique('leaky'), description: 'Reads the host pad.', params: {}, body: ['darea l=#3'] });
+		const r = await author.post('/api/macros', {
+			name: unique('leaky'),
+			description: 'Reads the host pad.',
+			params: {},
+			body: ['darea l=#3']
+		});
 		expectFailure(r, 400);
 		expect(r.body.error).toMatchObject({ line: 1, start: 8, end: 10 });
 		expect(r.body.error.message).toMatch(/^line 1: #3 points outside this macro/);
@@ -63,7 +68,9 @@ describe('a macro in a pad', () => {
 		expect(r.body.results.at(-1)).toEqual({ kind: 'note', text: `@${name} ran in its own scope: the pad's bulk is as before` });
 
 		// declared in the header: the bulk stays
-		expect((await admin.patch(`/api/macros/${m.body.macro.id}`, { action: 'edit', effects: ['bulk'] })).body.macro.effects).toEqual(['bulk']);
+		expect((await admin.patch(`/api/macros/${m.body.macro.id}`, { action: 'edit', effects: ['bulk'] })).body.macro.effects).toEqual([
+			'bulk'
+		]);
 		const kept = await other.post('/api/eval', { input: `@${name}`, pad });
 		expect(kept.body.bulk).toEqual({ name: 'brane', params: { d: 3, zh: 1 } });
 	});
@@ -100,7 +107,12 @@ describe("the curator's trial run", () => {
 
 	it('reports a macro that fails on its examples as a failed trial, not a server error', async () => {
 		const m = (
-			await author.post('/api/macros', { name: unique('bad'), description: 'A negative width.', params: { l: '-1' }, body: ['darea l={l}'] })
+			await author.post('/api/macros', {
+				name: unique('bad'),
+				description: 'A negative width.',
+				params: { l: '-1' },
+				body: ['darea l={l}']
+			})
 		).body.macro;
 		const r = await admin.post(`/api/macros/${m.id}/trial`, {});
 		expect(r.status).toBe(200);

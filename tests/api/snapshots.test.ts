@@ -13,7 +13,12 @@ let stranger: Client;
 let reader: Client;
 let padId: string;
 
-const strip = (s: { n: number; input: string; status: string; results: unknown }) => ({ n: s.n, input: s.input, status: s.status, results: s.results });
+const strip = (s: { n: number; input: string; status: string; results: unknown }) => ({
+	n: s.n,
+	input: s.input,
+	status: s.status,
+	results: s.results
+});
 
 beforeAll(async () => {
 	const admin = await signInPatiently('curator@sable.test');

@@ -93,7 +93,9 @@ export function deletePad(pad: PadRow) {
 /** Approved macros, as the language expands them. */
 export function approvedMacros(): NonNullable<PadContext['macros']> {
 	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
-	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[], effects: effectsOf(m) }]));
+	return Object.fromEntries(
+		rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[], effects: effectsOf(m) }])
+	);
 }
 
 /**

@@ -169,7 +169,15 @@ export function markDrift(steps: ReplayStep[], fresh: FreshStep[]): ReplayedStep
 		const f = fresh[i];
 		if (!f || f.n !== s.n || f.skipped !== undefined) {
 			const message = f?.skipped ?? 'not replayed';
-			return { n: s.n, input: s.input, drift: false, failed: false, delta: null, skipped: true, error: { message, start: 0, end: s.input.length } };
+			return {
+				n: s.n,
+				input: s.input,
+				drift: false,
+				failed: false,
+				delta: null,
+				skipped: true,
+				error: { message, start: 0, end: s.input.length }
+			};
 		}
 		const answer = f.answer;
 		if (answer.ok) {

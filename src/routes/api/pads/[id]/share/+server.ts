@@ -16,7 +16,13 @@ export const POST = api(async (event) => {
 	const { expiresInDays, note } = event.request.headers.get('content-length') === '0' ? {} : await readBody(event, shareSchema);
 	const share = createShare(pad, user, expiresInDays, note);
 	return ok(
-		{ slug: share.slug, url: shareUrl(share.slug, event.url.origin), expiresAt: share.expiresAt, note: share.note, frozenAt: share.frozenAt },
+		{
+			slug: share.slug,
+			url: shareUrl(share.slug, event.url.origin),
+			expiresAt: share.expiresAt,
+			note: share.note,
+			frozenAt: share.frozenAt
+		},
 		{ status: 201 }
 	);
 });
