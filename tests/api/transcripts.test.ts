@@ -121,8 +121,7 @@ describe("the owner's sharing panel (/shared/[id] form actions)", () => {
 		const fresh = (await owner.get(`/api/pads/${padId}/share`)).body.shares[0];
 		expect(fresh.live).toBe(true);
 		expect((Date.parse(fresh.expiresAt) - Date.now()) / 86_400_000).toBeCloseTo(3, 2);
-		// the page's sharing panel lists links through the JSON API (above); the page itself carries the panel
-		expect((await owner.get(`/shared/${padId}`)).body).toContain('Share the current state as a new snapshot');
+		expect((await owner.get(`/shared/${padId}`)).body).toContain(fresh.url);
 
 		expect((await owner.request('POST', `/shared/${padId}?/revoke`, form({ slug: fresh.slug }), HTML)).status).toBe(200);
 		expectFailure(await anon.get(`/api/t/${fresh.slug}`), 404);

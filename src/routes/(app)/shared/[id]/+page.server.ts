@@ -4,15 +4,15 @@ import { z } from 'zod';
 import { ApiFailure, orPageError } from '$lib/server/http';
 import { emailSchema } from '$lib/server/auth/accounts';
 import { findOwnPad, findReadablePad, padSteps } from '$lib/server/pads';
-import { NOTE_MAX, createShare, revokeShare, transcriptOf } from '$lib/server/transcripts';
-import { invitePerson, revokeInvitation } from '$lib/server/invites';
+import { NOTE_MAX, createShare, listShares, revokeShare, transcriptOf } from '$lib/server/transcripts';
+import { invitePerson, listInvitations, revokeInvitation } from '$lib/server/invites';
 
 /**
  * The read-only view of a pad for the people invited to it; its owner also manages snapshots and invitations
  * here (the SharePanel, through the JSON API). The form actions below do the same for a browser without
  * JavaScript and for scripts, through the same server functions.
  */
-export const load: PageServerLoad = ({ params, locals }) => {
+export const load: PageServerLoad = ({ params, locals, url }) => {
 	if (!locals.user) redirect(303, `/signin?next=/shared/${encodeURIComponent(params.id)}`);
 	const user = locals.user;
 	const pad = orPageError(() => findReadablePad(user, params.id));
@@ -20,7 +20,9 @@ export const load: PageServerLoad = ({ params, locals }) => {
 	return {
 		id: pad.id,
 		transcript: transcriptOf(pad, padSteps(pad.id)),
-		isOwner
+		isOwner,
+		// the sharing panel's first paint; it reads the JSON API after each change
+		sharing: isOwner ? { shares: listShares(pad, url.origin), invitations: listInvitations(pad) } : undefined
 	};
 };
 
