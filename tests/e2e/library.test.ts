@@ -75,6 +75,7 @@ describe('datasets and the macro library in the browser', () => {
 		await expect.poll(() => results.innerText()).toMatch(/charged d=4/);
 		expect(await card.locator('.trial').innerText()).toContain('@charged-scan');
 		expect(await card.locator('.trial [data-kind=scalar]').count()).toBeGreaterThan(0);
+		await card.locator('.trial .katex').first().waitFor(); // the formula typeset, as in a pad
 		await screenshot(page, 'library-trial-run');
 		await approve.click();
 		await expect
