@@ -64,6 +64,8 @@ const library = [
 		description: 'BTZ strip entropy at width l in a CFT of central charge c (Calabrese–Cardy check).',
 		params: { l: '1', c: '12' },
 		body: ['use brane d=2 zh=1', 'units cft c={c}', 'dentropy l={l}'],
+		// a check: it leaves the pad's bulk and units as it found them
+		effects: [],
 		state: 'approved'
 	},
 	{
@@ -71,6 +73,8 @@ const library = [
 		description: 'N=4 SYM units at large N and the brane thermodynamics.',
 		params: { N: '10', zh: '1' },
 		body: ['use brane d=4 zh={zh}', 'units sym N={N}', 'thermo'],
+		// a convention setter: the pad keeps the SYM units and the brane afterwards
+		effects: ['bulk', 'units'],
 		state: 'approved'
 	},
 	{
@@ -78,6 +82,7 @@ const library = [
 		description: 'ΔA of a strip in the charged brane across charges (proposed).',
 		params: { l: '0.5' },
 		body: ['use charged d=4 zh=1 q=0.5', 'darea l={l}'],
+		effects: [],
 		state: 'proposed'
 	}
 ] as const;
@@ -144,6 +149,7 @@ export async function seedDemoIfEmpty(): Promise<boolean> {
 				version: 1,
 				params: m.params,
 				body: [...m.body],
+				effects: [...m.effects],
 				authorId: ids['curator@sable.test']
 			})
 			.run();

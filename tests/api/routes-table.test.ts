@@ -50,6 +50,7 @@ const TABLE: Record<string, string> = {
 	'POST /api/macros':                              '401 403 2xx 2xx 2xx',
 	'GET /api/macros/[id]':                          '401 404 2xx 404 2xx',
 	'PATCH /api/macros/[id]':                        '401 403 2xx 404 2xx',
+	'POST /api/macros/[id]/trial':                   '401 403 2xx 404 2xx',
 	'GET /api/pads':                                 '401 2xx 2xx 2xx 2xx',
 	'POST /api/pads':                                '401 403 2xx 2xx 2xx',
 	'GET /api/pads/[id]':                            '401 404 2xx 404 404',
@@ -61,6 +62,7 @@ const TABLE: Record<string, string> = {
 	'GET /api/pads/[id]/share':                      '401 403 2xx 404 404',
 	'POST /api/pads/[id]/share':                     '401 403 2xx 404 404',
 	'DELETE /api/pads/[id]/share/[slug]':            '401 403 2xx 404 404',
+	'GET /api/pads/[id]/share/[slug]/comments':      '401 403 2xx 404 404',
 	'POST /api/pads/import':                         '401 403 2xx 2xx 2xx',
 	'GET /api/pads/[id]/steps/[n]':                  '401 404 2xx 404 404',
 	'PATCH /api/pads/[id]/steps/[n]':                '401 403 2xx 404 404',
@@ -70,6 +72,9 @@ const TABLE: Record<string, string> = {
 	'GET /api/t/[slug]/export':                      '2xx 2xx 2xx 2xx 2xx',
 	'POST /api/t/[slug]/fork':                       '401 403 2xx 2xx 2xx',
 	'POST /api/t/[slug]/replay':                     '2xx 2xx 2xx 2xx 2xx',
+	// whoever holds a live link and is signed in reads and writes its comments (readers too)
+	'GET /api/t/[slug]/comments':                    '401 2xx 2xx 2xx 2xx',
+	'POST /api/t/[slug]/comments':                   '401 2xx 2xx 2xx 2xx',
 	// pages (GET) and their form actions (POST), as a browser without JavaScript sends them
 	'GET /':                                         '3xx 3xx 3xx 3xx 3xx',
 	'GET /admin/outbox':                             '3xx 403 403 403 2xx',
@@ -153,6 +158,7 @@ const REQUESTS: Record<string, (f: Fixtures) => Req> = {
 	'POST /api/datasets': () => ({ multipart: csv }),
 	'DELETE /api/datasets/[id]': (f) => ({ path: `/api/datasets/${f.datasetId}` }),
 	'POST /api/eval': () => ({ json: { input: 'darea l=0.3 o=2' } }),
+	'POST /api/t/[slug]/comments': () => ({ json: { step: 1, body: 'A comment from the routes table.' } }),
 	'POST /api/keys': () => ({ json: { label: 'routes table' } }),
 	'POST /api/macros': () => ({ json: { name: unique('rt'), description: 'ΔA of a strip.', params: { l: '0.4' }, body: ['darea l={l}'] } }),
 	'PATCH /api/macros/[id]': () => ({ json: { action: 'edit', description: 'edited by the routes table' } }),

@@ -33,7 +33,7 @@ describe('share links', () => {
 	it('shows the transcript to anyone, in the shape of API.md', async () => {
 		const r = await anon.get(`/api/t/${slug}`);
 		expect(r.status).toBe(200);
-		expect(Object.keys(r.body).sort()).toEqual(['bulk', 'ok', 'owner', 'steps', 'title']);
+		expect(Object.keys(r.body).sort()).toEqual(['bulk', 'frozenAt', 'note', 'ok', 'owner', 'steps', 'title']);
 		expect(r.body).toMatchObject({
 			ok: true,
 			title: 'Replay me',
@@ -160,12 +160,18 @@ describe('replay', () => {
 		expect(r.body.steps.filter((s: { drift: boolean }) => s.drift)).toEqual([]);
 	});
 
+	// a link shows its snapshot: tampering means changing the copy in the share's row
+	const snapshotOf = () => sql<{ snapshot: string }>('SELECT snapshot FROM shares WHERE slug = ?', slug)[0].snapshot;
+	const writeSnapshot = (text: string) => sql('UPDATE shares SET snapshot = ? WHERE slug = ?', text, slug);
+
 	it('marks the step whose stored result was tampered with, with its relative delta, and stores nothing', async () => {
-		const [row] = sql<{ id: string; results: string }>('SELECT id, results FROM steps WHERE pad_id = ? AND n = 2', padId);
-		const original = JSON.parse(row.results);
+		const saved = snapshotOf();
+		const snap = JSON.parse(saved);
+		const original = snap.steps[1].results;
 		const tampered = structuredClone(original);
 		tampered[0].value *= 1.01;
-		sql('UPDATE steps SET results = ? WHERE id = ?', JSON.stringify(tampered), row.id);
+		snap.steps[1].results = tampered;
+		writeSnapshot(JSON.stringify(snap));
 		try {
 			const r = await anon.post(`/api/t/${slug}/replay`);
 			expect(r.status).toBe(200);
@@ -179,22 +185,17 @@ describe('replay', () => {
 			// nothing stored: the tampered value is still what the transcript shows
 			expect((await anon.get(`/api/t/${slug}`)).body.steps[1].results[0].value).toBe(tampered[0].value);
 		} finally {
-			sql('UPDATE steps SET results = ? WHERE id = ?', row.results, row.id);
+			writeSnapshot(saved);
 		}
 		expect((await anon.post(`/api/t/${slug}/replay`)).body.drifted).toBe(0);
 	});
 
 	it('marks a changed table cell and a recorded error that no longer happens', async () => {
-		const [table] = sql<{ id: string; results: string }>('SELECT id, results FROM steps WHERE pad_id = ? AND n = 3', padId);
-		const changed = JSON.parse(table.results);
-		changed[0].rows[2][2] += 1e-3;
-		sql('UPDATE steps SET results = ? WHERE id = ?', JSON.stringify(changed), table.id);
-		const [thermo] = sql<{ id: string; results: string }>('SELECT id, results FROM steps WHERE pad_id = ? AND n = 5', padId);
-		sql(
-			"UPDATE steps SET status = 'error', results = NULL, error = ? WHERE id = ?",
-			JSON.stringify({ message: 'recorded failure', start: 0, end: 6 }),
-			thermo.id
-		);
+		const saved = snapshotOf();
+		const snap = JSON.parse(saved);
+		snap.steps[2].results[0].rows[2][2] += 1e-3;
+		Object.assign(snap.steps[4], { status: 'error', results: null, error: { message: 'recorded failure', start: 0, end: 6 } });
+		writeSnapshot(JSON.stringify(snap));
 		try {
 			const r = await anon.post(`/api/t/${slug}/replay`);
 			expect(r.body.drifted).toBe(2);
@@ -202,8 +203,7 @@ describe('replay', () => {
 			expect(r.body.steps[2].delta).toBeGreaterThan(1e-3);
 			expect(r.body.steps[4]).toMatchObject({ n: 5, drift: true, delta: null });
 		} finally {
-			sql('UPDATE steps SET results = ? WHERE id = ?', table.results, table.id);
-			sql("UPDATE steps SET status = 'ok', results = ?, error = NULL WHERE id = ?", thermo.results, thermo.id);
+			writeSnapshot(saved);
 		}
 	});
 

@@ -1,5 +1,5 @@
 // The group's shared pieces in a browser: a member uploads a CSV dataset and compares against it in a pad;
-// the curator approves a proposed macro, which then runs from the console.
+// the curator tries a proposed macro on its example parameters, approves it, and it then runs from the console.
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import type { BrowserContext } from 'playwright-core';
 import { mkdtempSync, writeFileSync } from 'node:fs';
@@ -59,13 +59,25 @@ describe('datasets and the macro library in the browser', () => {
 		await page.close();
 	});
 
-	it('lets the curator approve a proposed macro, which then runs in a pad', async () => {
+	it('shows the curator a trial run before approving a proposed macro, which then runs in a pad', async () => {
 		const page = await curator.newPage();
 		await signInThroughForm(page, baseUrl, 'curator@sable.test');
 		await page.goto(`${baseUrl}/library`);
 		await page.click('button[role=tab]:has-text("proposed")');
 		const card = page.locator('article').filter({ has: page.locator('h3', { hasText: 'charged-scan' }) });
-		await card.locator('button:has-text("approve")').click();
+		const approve = card.locator('button:has-text("approve")');
+		// the approve button waits for the trial run
+		expect(await approve.isDisabled()).toBe(true);
+		await card.locator('button:has-text("trial run")').click();
+		const results = card.locator('.trial-results');
+		await results.waitFor();
+		// the trial ran the body on its example l=0.5 in the charged brane the body sets
+		await expect.poll(() => results.innerText()).toMatch(/charged d=4/);
+		expect(await card.locator('.trial').innerText()).toContain('@charged-scan');
+		expect(await card.locator('.trial [data-kind=scalar]').count()).toBeGreaterThan(0);
+		await card.locator('.trial .katex').first().waitFor(); // the formula typeset, as in a pad
+		await screenshot(page, 'library-trial-run');
+		await approve.click();
 		await expect
 			.poll(async () =>
 				(await (await page.request.get(`${baseUrl}/api/macros?state=approved`)).json()).macros.map((m: { name: string }) => m.name)

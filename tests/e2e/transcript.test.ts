@@ -37,8 +37,10 @@ describe('share → transcript → replay', () => {
 				line === 'use brane d=2 zh=1' ? 1 : line.startsWith('dentropy') ? 2 : 3
 			);
 		}
-		await page.click('button:has-text("share")');
-		const link = page.locator('a.share-url');
+		// share opens the sharing panel in place; a link is a snapshot of the pad as it is now
+		await page.click('button:text-is("share")');
+		await page.click('button:has-text("Share the current state as a new snapshot")');
+		const link = page.locator('.share-panel a.share-url').first();
 		await link.waitFor();
 		url = (await link.getAttribute('href'))!;
 		expect(url).toMatch(/\/t\/[A-Za-z0-9_-]+$/);
@@ -58,11 +60,13 @@ describe('share → transcript → replay', () => {
 	});
 
 	it('marks the one step whose recorded result no longer reproduces', async () => {
+		// the link shows its snapshot, so that is where the recorded result is altered
 		const db = new Database(inject('dbFile'));
-		const row = db.prepare('select id, results from steps where pad_id = ? and n = 2').get(padId) as { id: string; results: string };
-		const results = JSON.parse(row.results);
-		results[0].value *= 1.01; // as if the engine had once answered 1% higher
-		db.prepare('update steps set results = ? where id = ?').run(JSON.stringify(results), row.id);
+		const slug = url.split('/').pop()!;
+		const row = db.prepare('select snapshot from shares where slug = ? and pad_id = ?').get(slug, padId) as { snapshot: string };
+		const snap = JSON.parse(row.snapshot);
+		snap.steps[1].results[0].value *= 1.01; // as if the engine had once answered 1% higher
+		db.prepare('update shares set snapshot = ? where slug = ?').run(JSON.stringify(snap), slug);
 		db.close();
 
 		const page = await visitor.newPage();

@@ -24,7 +24,7 @@ export interface WordAt {
 export interface Vocabulary {
 	verbs: Word[];
 	bulks: Word[];
-	macros: { name: string; description?: string; params?: Record<string, string> }[];
+	macros: { name: string; description?: string; params?: Record<string, string>; effects?: ('bulk' | 'units')[] }[];
 }
 
 export function completeAt(line: string, caret: number, cc: CompletionContext = {}): { at: WordAt; candidates: Candidate[] } {

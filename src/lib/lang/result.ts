@@ -101,11 +101,18 @@ export interface PadContext {
 	/** step names (`#btz`) → step numbers; a name follows its step, so it survives renumbering */
 	names?: Record<string, number>;
 	lets: Record<string, LetValue>;
-	/** approved macros by name: parameter defaults and body lines with `{param}` placeholders */
-	macros?: Record<string, { params: Record<string, string>; body: string[] }>;
+	/**
+	 * approved macros by name: parameter defaults, body lines with `{param}` placeholders, and the header's
+	 * `effects` — what the macro may leave changed in the pad ('bulk', 'units'); anything else is put back
+	 */
+	macros?: Record<string, { params: Record<string, string>; body: string[]; effects?: MacroEffect[] }>;
 	/** datasets by name: numeric columns from an uploaded CSV */
 	datasets?: Record<string, { columns: string[]; rows: number[][] }>;
 }
+
+/** What a macro's header may declare it leaves changed in the pad; everything else is restored after it runs. */
+export type MacroEffect = 'bulk' | 'units';
+export const MACRO_EFFECTS: readonly MacroEffect[] = ['bulk', 'units'];
 
 /** The outcome of one line: results in order, and the pad state after it. */
 export interface LineOutcome {

@@ -3,6 +3,8 @@
  * parser only), so the server's POST/PATCH and the library page's live validation give the same answer.
  */
 import { parse } from '../lang/parser';
+import type { Line } from '../lang/ast';
+import { scopeProblem } from './scope';
 
 /** `@btz-check`: lower case, digits, `_`, and single inner hyphens, as the seeded library names them. */
 export const MACRO_NAME = /^[a-z][a-z0-9_]*(?:-[a-z0-9_]+)*$/;
@@ -61,12 +63,14 @@ export function checkParams(params: Record<string, string>): MacroProblem | null
 }
 
 /**
- * Every body line must name only declared parameters and, with the defaults put in, parse. The first
- * problem wins, numbered from line 1, so the message can point at the line to fix.
+ * Every body line must name only declared parameters, with the defaults put in, parse, and refer only to the
+ * macro's own scope (library/scope.ts: its earlier lines and lets, never the host pad's steps or names). The
+ * first problem wins, numbered from line 1, so the message can point at the line to fix.
  */
 export function checkBody(body: string[], params: Record<string, string>): MacroProblem | null {
 	if (body.length === 0) return { message: 'A macro needs at least one body line.' };
 	if (body.length > BODY_LINES_MAX) return { message: `A macro has at most ${BODY_LINES_MAX} body lines.` };
+	const names = new Set<string>();
 	for (let i = 0; i < body.length; i++) {
 		const line = body[i]!;
 		const n = i + 1;
@@ -82,8 +86,9 @@ export function checkBody(body: string[], params: Record<string, string>): Macro
 			};
 		}
 		const text = substituteDefaults(line, params);
+		let parsed: Line;
 		try {
-			parse(text);
+			parsed = parse(text);
 		} catch (e) {
 			const err = e as { message?: string; start?: number; end?: number; hint?: string };
 			const problem: MacroProblem = { line: n, message: `line ${n}: ${err.message ?? String(e)}` };
@@ -92,6 +97,8 @@ export function checkBody(body: string[], params: Record<string, string>): Macro
 			if (err.hint) problem.hint = err.hint;
 			return problem;
 		}
+		const outside = scopeProblem(parsed, n, names);
+		if (outside) return { line: n, message: `line ${n}: ${outside.message}.`, start: outside.start, end: outside.end };
 	}
 	return null;
 }

@@ -10,11 +10,14 @@ import type { AppUser } from './auth/guards';
 import { failure } from './http';
 import { BODY_LINE_MAX, BODY_LINES_MAX, MACRO_NAME_MAX, checkBody, checkMacroName, checkParams, type MacroProblem } from '../library/check';
 import { MACRO_STATES, type Role } from './db/schema';
+import { MACRO_EFFECTS, type MacroEffect } from '../lang/result';
 
 export type MacroState = (typeof MACRO_STATES)[number];
 type MacroRow = typeof schema.macros.$inferSelect;
 
 const paramsSchema = z.record(z.string(), z.string().max(200)).default({});
+/** the header: what the macro may leave changed in the pad; the rest is put back after it runs */
+const effectsSchema = z.array(z.enum(MACRO_EFFECTS as unknown as ['bulk', 'units'])).max(2);
 const bodySchema = z
 	.array(z.string().max(BODY_LINE_MAX * 2))
 	.min(1, 'A macro needs at least one body line.')
@@ -28,7 +31,8 @@ export const proposeSchema = z.object({
 		.max(MACRO_NAME_MAX * 2),
 	description: z.string().trim().min(1, 'Say what the macro is for.').max(500),
 	params: paramsSchema,
-	body: bodySchema
+	body: bodySchema,
+	effects: effectsSchema.default([])
 });
 
 export const changeSchema = z.discriminatedUnion('action', [
@@ -38,7 +42,8 @@ export const changeSchema = z.discriminatedUnion('action', [
 		action: z.literal('edit'),
 		description: z.string().trim().min(1).max(500).optional(),
 		params: z.record(z.string(), z.string().max(200)).optional(),
-		body: bodySchema.optional()
+		body: bodySchema.optional(),
+		effects: effectsSchema.optional()
 	})
 ]);
 
@@ -59,6 +64,12 @@ function visibleTo(user: AppUser): SQL | undefined {
 	return or(eq(schema.macros.state, 'approved'), eq(schema.macros.authorId, user.id));
 }
 
+/** A header's effects as stored (null for macros from before headers: they declare nothing). */
+export function effectsOf(row: Pick<MacroRow, 'effects'>): MacroEffect[] {
+	const e = row.effects;
+	return Array.isArray(e) ? MACRO_EFFECTS.filter((k) => e.includes(k)) : [];
+}
+
 function present(row: MacroRow, authorName: string | null) {
 	return {
 		id: row.id,
@@ -68,6 +79,7 @@ function present(row: MacroRow, authorName: string | null) {
 		version: row.version,
 		params: row.params as Record<string, string>,
 		body: row.body as string[],
+		effects: effectsOf(row),
 		author: { name: authorName ?? 'unknown' },
 		mine: false,
 		createdAt: row.createdAt,
@@ -142,6 +154,7 @@ export function proposeMacro(user: AppUser, input: z.infer<typeof proposeSchema>
 			version: 1,
 			params: input.params,
 			body: input.body,
+			effects: [...new Set(input.effects)],
 			authorId: user.id,
 			createdAt: now,
 			updatedAt: now
@@ -177,8 +190,8 @@ export function changeMacro(user: AppUser, id: string, change: z.infer<typeof ch
 	if (!admin && !(row.authorId === user.id && row.state === 'proposed')) {
 		failure(403, 'Only an admin may edit this macro; authors may edit their own while it is proposed.');
 	}
-	if (change.description === undefined && change.params === undefined && change.body === undefined) {
-		failure(400, 'Nothing to edit: give a description, params or body.');
+	if (change.description === undefined && change.params === undefined && change.body === undefined && change.effects === undefined) {
+		failure(400, 'Nothing to edit: give a description, params, body or effects.');
 	}
 	const params = change.params ?? (row.params as Record<string, string>);
 	const body = change.body ?? (row.body as string[]);
@@ -187,7 +200,14 @@ export function changeMacro(user: AppUser, id: string, change: z.infer<typeof ch
 	getDb().transaction((tx) => {
 		const version = row.version + 1;
 		tx.update(schema.macros)
-			.set({ description: change.description ?? row.description, params, body, version, updatedAt: new Date() })
+			.set({
+				description: change.description ?? row.description,
+				params,
+				body,
+				effects: change.effects ? [...new Set(change.effects)] : effectsOf(row),
+				version,
+				updatedAt: new Date()
+			})
 			.where(eq(schema.macros.id, row.id))
 			.run();
 		tx.insert(schema.macroVersions).values({ id: newId(), macroId: row.id, version, params, body, editedBy: user.id }).run();

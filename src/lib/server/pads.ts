@@ -3,6 +3,7 @@ import { getDb, schema } from './db';
 import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
+import { effectsOf } from './macros';
 import type { BulkState, LetValue, PadContext, StepRef, UnitsState } from '../lang/result';
 
 export const DEFAULT_BULK: BulkState = { name: 'brane', params: { d: 4, zh: 1 } };
@@ -91,7 +92,9 @@ export function deletePad(pad: PadRow) {
 /** Approved macros, as the language expands them. */
 export function approvedMacros(): NonNullable<PadContext['macros']> {
 	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
-	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[] }]));
+	return Object.fromEntries(
+		rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[], effects: effectsOf(m) }])
+	);
 }
 
 /**
@@ -111,7 +114,7 @@ export function stepRefs(steps: Pick<StepRow, 'n' | 'status' | 'ref'>[]): Record
 }
 
 /** `#name` → step number, for the names given to steps (a name follows its step wherever it is numbered). */
-export function stepNames(steps: Pick<StepRow, 'n' | 'name'>[]): Record<string, number> {
+export function stepNames(steps: { n: number; name?: string | null }[]): Record<string, number> {
 	const names: Record<string, number> = {};
 	for (const s of steps) if (s.name) names[s.name] = s.n;
 	return names;

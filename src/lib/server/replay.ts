@@ -14,9 +14,9 @@
 import { env } from './env';
 import { failure } from './http';
 import { createRateLimiter } from './rate-limit';
-import { markDrift, replaySteps, type FreshStep, type ReplayedStep } from './eval/service';
+import { markDrift, replaySteps, type FreshStep, type ReplayedStep, type ReplayStep } from './eval/service';
 import { evalSettings } from './eval/settings';
-import type { PadRow, StepRow } from './pads';
+import type { PadRow } from './pads';
 
 /** Replays run the whole engine for anyone with a link, so each client address gets env.replayPerMinute. */
 export const replayLimiter = createRateLimiter(env.replayPerMinute, 60_000);
@@ -29,7 +29,7 @@ export function takeReplay(clientAddress: string) {
 	}
 }
 
-type ReplayAnswer = { steps: Omit<ReplayedStep, 'input' | 'recordedError'>[]; drifted: number; skipped: number };
+type ReplayAnswer = { steps: Omit<ReplayedStep, 'input' | 'recordedError'>[]; drifted: number; failed: number; skipped: number };
 
 const CACHE_MAX = 200;
 const lastRun = new Map<string, { key: string; fresh: FreshStep[] }>();
@@ -39,7 +39,7 @@ const flights = new Map<string, { promise: Promise<FreshStep[]>; controller: Abo
  * What a fresh run depends on: the first step's bulk and every input, in order. Steps that reach the library
  * (macros, datasets) can give other answers for the same text, so those transcripts are never reused.
  */
-function fingerprint(pad: PadRow, steps: StepRow[]): { key: string; reusable: boolean } {
+function fingerprint(pad: PadRow, steps: ReplayStep[]): { key: string; reusable: boolean } {
 	const key = JSON.stringify([pad.id, steps[0]?.bulkBefore ?? null, steps.map((s) => [s.n, s.input])]);
 	return { key, reusable: !steps.some((s) => s.input.includes('@') || s.input.includes('compare')) };
 }
@@ -53,25 +53,30 @@ export interface ReplayRequest {
 	limitTranscript: boolean;
 }
 
-function answerOf(steps: StepRow[], fresh: FreshStep[], reused: boolean): ReplayAnswer & { reused?: true } {
+function answerOf(steps: ReplayStep[], fresh: FreshStep[], reused: boolean): ReplayAnswer & { reused?: true } {
 	const replayed = markDrift(steps, fresh);
 	return {
-		steps: replayed.map(({ n, drift, delta, results, error, skipped }) => ({
+		steps: replayed.map(({ n, drift, failed, delta, results, error, skipped }) => ({
 			n,
 			drift,
+			failed,
 			delta,
 			results,
 			error,
 			...(skipped ? { skipped } : {})
 		})),
 		drifted: replayed.filter((s) => s.drift).length,
+		failed: replayed.filter((s) => s.failed).length,
 		skipped: replayed.filter((s) => s.skipped).length,
 		...(reused ? { reused: true as const } : {})
 	};
 }
 
-/** The replay answer of API.md: per step {n, drift, delta, results?, error?}, how many drifted and how many were skipped. */
-export async function replayAnswer(pad: PadRow, steps: StepRow[], req: ReplayRequest): Promise<ReplayAnswer & { reused?: true }> {
+/**
+ * The replay answer of API.md: per step {n, drift, failed, delta, results?, error?}, how many drifted, failed
+ * and were skipped. A step that fails now is `failed` whether or not it failed the same way when recorded.
+ */
+export async function replayAnswer(pad: PadRow, steps: ReplayStep[], req: ReplayRequest): Promise<ReplayAnswer & { reused?: true }> {
 	const { key, reusable } = fingerprint(pad, steps);
 	const last = lastRun.get(pad.id);
 	if (reusable && last?.key === key) return answerOf(steps, last.fresh, true);

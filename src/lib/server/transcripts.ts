@@ -1,4 +1,4 @@
-import { and, desc, eq } from 'drizzle-orm';
+import { and, count, desc, eq } from 'drizzle-orm';
 import { randomBytes } from 'node:crypto';
 import { getDb, schema } from './db';
 import { env } from './env';
@@ -6,11 +6,12 @@ import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
 import { padSteps, type PadRow, type StepRow } from './pads';
+import { freezePad, gone, isLive, type OpenedShare, type ShareRow, type Snapshot } from './snapshots';
 
-export type ShareRow = typeof schema.shares.$inferSelect;
+export type { ShareRow } from './snapshots';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
-const gone = () => new ApiFailure(404, 'No such transcript (the link may have been revoked or have expired).');
+export const NOTE_MAX = 200;
 
 /**
  * A link's address. Answers to the owner use the origin they reached us on; mailed links use the configured
@@ -20,19 +21,22 @@ export function shareUrl(slug: string, origin = env.origin): string {
 	return `${origin}/t/${slug}`;
 }
 
-function isLive(share: ShareRow, now = Date.now()): boolean {
-	return !share.revokedAt && (!share.expiresAt || share.expiresAt.getTime() > now);
-}
-
-/** A new read-only link to the pad; 96 random bits, so links cannot be guessed. */
-export function createShare(pad: PadRow, user: AppUser, expiresInDays?: number): ShareRow {
+/**
+ * A new read-only link to the pad as it is now (a snapshot: later steps never reach it); 96 random bits, so
+ * links cannot be guessed. `note` is the owner's label, e.g. "as submitted v2".
+ */
+export function createShare(pad: PadRow, user: AppUser, expiresInDays?: number, note?: string): ShareRow {
+	const now = new Date();
 	const row: ShareRow = {
 		slug: randomBytes(12).toString('base64url'),
 		padId: pad.id,
 		createdBy: user.id,
 		expiresAt: expiresInDays ? new Date(Date.now() + expiresInDays * DAY_MS) : null,
 		revokedAt: null,
-		createdAt: new Date()
+		createdAt: now,
+		note: note?.trim() ? note.trim().slice(0, NOTE_MAX) : null,
+		snapshot: freezePad(pad),
+		frozenAt: now
 	};
 	getDb().insert(schema.shares).values(row).run();
 	return row;
@@ -43,12 +47,31 @@ function sharesOf(pad: PadRow): ShareRow[] {
 	return getDb().select().from(schema.shares).where(eq(schema.shares.padId, pad.id)).orderBy(desc(schema.shares.createdAt)).all();
 }
 
+/** How many comments each of a pad's snapshots has, by slug. */
+function commentCounts(pad: PadRow): Map<string, number> {
+	const rows = getDb()
+		.select({ slug: schema.snapshotComments.slug, n: count() })
+		.from(schema.snapshotComments)
+		.innerJoin(schema.shares, eq(schema.shares.slug, schema.snapshotComments.slug))
+		.where(eq(schema.shares.padId, pad.id))
+		.groupBy(schema.snapshotComments.slug)
+		.all();
+	return new Map(rows.map((r) => [r.slug, r.n]));
+}
+
+/** Every snapshot of the pad, newest first: its link, note, when it was frozen, its size and comments. */
 export function listShares(pad: PadRow, origin?: string) {
 	const now = Date.now();
+	const comments = commentCounts(pad);
 	return sharesOf(pad).map((s) => ({
 		slug: s.slug,
 		url: shareUrl(s.slug, origin),
+		note: s.note,
 		createdAt: s.createdAt,
+		/** null: a link from before snapshots that nobody has opened yet (it freezes on its first open) */
+		frozenAt: s.snapshot ? (s.frozenAt ?? s.createdAt) : null,
+		steps: s.snapshot ? (s.snapshot as Snapshot).steps.length : null,
+		comments: comments.get(s.slug) ?? 0,
 		expiresAt: s.expiresAt,
 		revokedAt: s.revokedAt,
 		live: isLive(s, now)
@@ -72,15 +95,18 @@ export function revokeShare(pad: PadRow, slug: string) {
 	if (!share.revokedAt) db.update(schema.shares).set({ revokedAt: new Date() }).where(eq(schema.shares.slug, slug)).run();
 }
 
-/** The pad behind a live link; revoked, expired and unknown links are the same 404. */
-export function findSharedPad(slug: string): PadRow {
-	const db = getDb();
-	const share = db.select().from(schema.shares).where(eq(schema.shares.slug, slug)).get();
-	if (!share || !isLive(share)) throw gone();
-	const pad = db.select().from(schema.pads).where(eq(schema.pads.id, share.padId)).get();
-	if (!pad) throw gone();
-	return pad;
+/** One snapshot of the pad by its slug, live or not (the owner's panel reads its comments); else 404. */
+export function findShareOf(pad: PadRow, slug: string): ShareRow {
+	const share = getDb()
+		.select()
+		.from(schema.shares)
+		.where(and(eq(schema.shares.slug, slug), eq(schema.shares.padId, pad.id)))
+		.get();
+	if (!share) throw new ApiFailure(404, 'No such link on this pad.');
+	return share;
 }
+
+export { gone };
 
 export function ownerName(pad: PadRow): string {
 	return getDb().select({ name: schema.users.name }).from(schema.users).where(eq(schema.users.id, pad.ownerId)).get()?.name ?? '';
@@ -96,29 +122,50 @@ export function transcriptOf(pad: PadRow, steps: StepRow[] = padSteps(pad.id)) {
 	};
 }
 
-/**
- * A new pad of the caller's with the same steps (recorded answers, references and starting bulks) and the
- * same state after the last step, so the fork continues exactly where the original stopped.
- */
-export function forkPad(source: PadRow, user: AppUser): PadRow {
+/** A snapshot's read-only view: what the link showed when it was made, with its note and date. */
+export function snapshotTranscript({ pad, share, snapshot, frozenAt }: OpenedShare) {
+	return {
+		title: snapshot.title,
+		owner: { name: ownerName(pad) },
+		bulk: snapshot.bulk,
+		note: share.note,
+		frozenAt,
+		steps: snapshot.steps.map((s) => ({ n: s.n, input: s.input, status: s.status, results: s.results, error: s.error }))
+	};
+}
+
+/** A new pad of the caller's holding a snapshot's steps and the state it had then (the fork of a link). */
+export function forkSnapshot({ snapshot }: OpenedShare, user: AppUser): PadRow {
 	const db = getDb();
 	return db.transaction((tx) => {
 		const now = new Date();
 		const pad: PadRow = {
 			id: newId(),
 			ownerId: user.id,
-			title: `${source.title} (fork)`.slice(0, 200),
-			bulk: source.bulk,
-			units: source.units,
-			lets: source.lets,
-			history: source.history,
+			title: `${snapshot.title} (fork)`.slice(0, 200),
+			bulk: snapshot.bulk,
+			units: snapshot.units,
+			lets: snapshot.lets ?? {},
+			history: snapshot.steps.map((s) => s.input).slice(-200),
 			createdAt: now,
 			updatedAt: now
 		};
 		tx.insert(schema.pads).values(pad).run();
-		for (const s of padSteps(source.id))
+		for (const s of snapshot.steps)
 			tx.insert(schema.steps)
-				.values({ ...s, id: newId(), padId: pad.id, createdAt: now })
+				.values({
+					id: newId(),
+					padId: pad.id,
+					n: s.n,
+					input: s.input,
+					status: s.status,
+					results: s.results,
+					error: s.error,
+					ref: s.ref ?? null,
+					bulkBefore: s.bulkBefore ?? null,
+					name: s.name ?? null,
+					createdAt: now
+				})
 				.run();
 		return pad;
 	});

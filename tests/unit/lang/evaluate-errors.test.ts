@@ -86,7 +86,8 @@ describe('evaluation errors point at the offending characters', () => {
 
 describe('macros', () => {
 	const macros = {
-		five: { params: { l: '0.3', o: 'exact' }, body: ['use brane d=5 zh=1', 'darea l={l} o={o}'] },
+		// five's header declares that it leaves the pad in its bulk; twice declares nothing
+		five: { params: { l: '0.3', o: 'exact' }, body: ['use brane d=5 zh=1', 'darea l={l} o={o}'], effects: ['bulk' as const] },
 		twice: { params: {}, body: ['@five l=0.2', '@five l=0.4 o=2'] },
 		loop: { params: {}, body: ['@loop'] },
 		broken: { params: { l: '' }, body: ['darea l={l} gap=1'] },
@@ -101,9 +102,12 @@ describe('macros', () => {
 		expect(out.results[1]).toMatchObject({ value: holo.deltaArea(holo.makeBulk('brane', { d: 5, zh: 1 }), 0.25), order: 'exact' });
 		expect(out.bulk).toEqual({ name: 'brane', params: { d: 5, zh: 1 } });
 		expect(out.ref.fields.l).toBe(0.25);
-		const two = p.run('@twice');
-		expect(two.results.map((r) => r.kind)).toEqual(['note', 'scalar', 'note', 'scalar']);
+		const two = new Pad({ macros }).run('@twice');
+		expect(two.results.map((r) => r.kind)).toEqual(['note', 'scalar', 'note', 'scalar', 'note']);
 		expect(two.results[3]).toMatchObject({ order: 2, fields: { l: 0.4 } });
+		// twice declares no effects: the d=5 bulk its inner calls left is put back, and it says so
+		expect(two.bulk).toEqual({ name: 'brane', params: { d: 4, zh: 1 } });
+		expect(two.results[4]).toEqual({ kind: 'note', text: "@twice ran in its own scope: the pad's bulk is as before" });
 	});
 
 	it('guards recursion with the macro depth limit', () => {

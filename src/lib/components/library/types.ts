@@ -9,6 +9,8 @@ export interface MacroItem {
 	version: number;
 	params: Record<string, string>;
 	body: string[];
+	/** the header: what the macro may leave changed in the pad (the rest is put back after it runs) */
+	effects: ('bulk' | 'units')[];
 	author: { name: string };
 	mine: boolean;
 	updatedAt: string | Date;
@@ -21,3 +23,20 @@ export interface MacroVersion {
 	editedBy: { name: string };
 	createdAt: string;
 }
+
+/** POST /api/macros/[id]/trial: the macro on its example parameters in a fresh pad. */
+export type MacroTrial = {
+	input: string;
+	version: number;
+	params: Record<string, string>;
+	effects: ('bulk' | 'units')[];
+	before: { bulk: { name: string; params: Record<string, unknown> }; units: Record<string, unknown> };
+	ms: number;
+} & (
+	| {
+			ok: true;
+			results: import('$lib/lang/result').Result[];
+			after: { bulk: { name: string; params: Record<string, unknown> }; units: Record<string, unknown> };
+	  }
+	| { ok: false; error: { message: string } }
+);

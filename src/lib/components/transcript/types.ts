@@ -12,7 +12,21 @@ export interface TranscriptStep {
 export interface ReplayMark {
 	n: number;
 	drift: boolean;
+	/** the fresh run ended in an error: shown as failed, never as reproduced */
+	failed?: boolean;
+	/** not run (budget, queue, cancelled) */
+	skipped?: boolean;
 	delta: number | null;
 	results?: Result[];
 	error?: { message: string };
+}
+
+/** A reader's comment on one step of a snapshot (GET /api/t/[slug]/comments). */
+export interface SnapshotComment {
+	id: string;
+	step: number;
+	body: string;
+	author: { name: string };
+	mine?: boolean;
+	createdAt: string | Date;
 }

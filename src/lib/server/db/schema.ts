@@ -156,8 +156,38 @@ export const shares = sqliteTable('shares', {
 		.references(() => users.id, { onDelete: 'cascade' }),
 	expiresAt: integer('expires_at', { mode: 'timestamp_ms' }),
 	revokedAt: integer('revoked_at', { mode: 'timestamp_ms' }),
-	createdAt: createdAt()
+	createdAt: createdAt(),
+	// --- snapshots (share branch): a link shows the pad frozen when it was made, not the live pad ---
+	/** the owner's label for this snapshot, e.g. "as submitted v2" */
+	note: text('note'),
+	/**
+	 * JSON Snapshot (server/snapshots.ts): title, bulk, units, lets and the steps' inputs and results copied.
+	 * null only for links made before snapshots existed: those are frozen the first time anyone opens them.
+	 */
+	snapshot: text('snapshot', { mode: 'json' }),
+	frozenAt: integer('frozen_at', { mode: 'timestamp_ms' })
+	// --- end snapshots ---
 });
+
+// --- snapshot comments (share branch) ---
+/** A reader's comment on one step of one snapshot; kept with the snapshot, gone with its link's row. */
+export const snapshotComments = sqliteTable(
+	'snapshot_comments',
+	{
+		id: text('id').primaryKey(),
+		slug: text('slug')
+			.notNull()
+			.references(() => shares.slug, { onDelete: 'cascade' }),
+		stepN: integer('step_n').notNull(),
+		authorId: text('author_id')
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		body: text('body').notNull(),
+		createdAt: createdAt()
+	},
+	(t) => [index('snapshot_comments_slug_idx').on(t.slug, t.createdAt)]
+);
+// --- end snapshot comments ---
 
 /**
  * Who reads a pad besides its owner: a row is written only when an invitation is accepted, with the address of
@@ -192,7 +222,14 @@ export const macros = sqliteTable('macros', {
 	createdAt: createdAt(),
 	updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
 		.notNull()
-		.$defaultFn(() => new Date())
+		.$defaultFn(() => new Date()),
+	// --- macro header (share branch) ---
+	/**
+	 * JSON array of what the macro may leave changed in the pad: 'bulk', 'units'. null or [] = nothing: the
+	 * pad's bulk and units are put back after the macro runs (lang/macro.ts).
+	 */
+	effects: text('effects', { mode: 'json' })
+	// --- end macro header ---
 });
 
 /** Every version a macro has had, so an approved macro's history stays readable. */

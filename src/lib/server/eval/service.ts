@@ -121,10 +121,16 @@ export function rerunInPad(padOf: () => PadRow, n: number, input: string, opts: 
 	});
 }
 
+/** What a replay reads of a step: a pad's row or a snapshot's copy of it. */
+/** What replay reads of a step (a step row, or a snapshot's copy of one); `name` when the step had one. */
+export type ReplayStep = Pick<StepRow, 'n' | 'input' | 'status' | 'results' | 'error' | 'bulkBefore'> & { name?: string | null };
+
 export interface ReplayedStep {
 	n: number;
 	input: string;
 	drift: boolean;
+	/** the fresh run ended in an error: such a step never counts as reproduced, even when it fails as recorded */
+	failed: boolean;
 	delta: number | null;
 	results?: Result[];
 	error?: { message: string; start: number; end: number };
@@ -151,7 +157,7 @@ export type FreshStep = { n: number; answer: EvalAnswer; skipped?: undefined } |
  * depend on is only the inputs and the first step's bulk (plus the library for `@` and `compare`), which is
  * what lets replay.ts reuse them.
  */
-export async function replaySteps(pad: PadRow, steps: StepRow[], opts: ReplayOptions): Promise<FreshStep[]> {
+export async function replaySteps(pad: PadRow, steps: ReplayStep[], opts: ReplayOptions): Promise<FreshStep[]> {
 	let bulk = (steps[0]?.bulkBefore as BulkState | null) ?? DEFAULT_BULK;
 	let units: UnitsState = DEFAULT_UNITS;
 	let lets: Record<string, LetValue> = {};
@@ -198,12 +204,20 @@ export async function replaySteps(pad: PadRow, steps: StepRow[], opts: ReplayOpt
 }
 
 /** Marks each step whose fresh result differs from the recorded one beyond DRIFT_TOLERANCE. */
-export function markDrift(steps: StepRow[], fresh: FreshStep[]): ReplayedStep[] {
+export function markDrift(steps: ReplayStep[], fresh: FreshStep[]): ReplayedStep[] {
 	return steps.map((s, i) => {
 		const f = fresh[i];
 		if (!f || f.n !== s.n || f.skipped !== undefined) {
 			const message = f?.skipped ?? 'not replayed';
-			return { n: s.n, input: s.input, drift: false, delta: null, skipped: true, error: { message, start: 0, end: s.input.length } };
+			return {
+				n: s.n,
+				input: s.input,
+				drift: false,
+				failed: false,
+				delta: null,
+				skipped: true,
+				error: { message, start: 0, end: s.input.length }
+			};
 		}
 		const answer = f.answer;
 		if (answer.ok) {
@@ -215,6 +229,7 @@ export function markDrift(steps: StepRow[], fresh: FreshStep[]): ReplayedStep[] 
 				n: s.n,
 				input: s.input,
 				drift: delta === null || delta > DRIFT_TOLERANCE,
+				failed: false,
 				delta: delta === null || Number.isFinite(delta) ? delta : null,
 				results: answer.outcome.results
 			};
@@ -224,6 +239,7 @@ export function markDrift(steps: StepRow[], fresh: FreshStep[]): ReplayedStep[] 
 			n: s.n,
 			input: s.input,
 			drift: recordedMessage !== answer.error.message,
+			failed: true,
 			delta: null,
 			error: answer.error,
 			recordedError: s.error

@@ -1,7 +1,9 @@
 import { fail, redirect } from '@sveltejs/kit';
 import type { Actions, PageServerLoad } from './$types';
 import { orPageError } from '$lib/server/http';
-import { findSharedPad, forkPad, transcriptOf } from '$lib/server/transcripts';
+import { forkSnapshot, snapshotTranscript } from '$lib/server/transcripts';
+import { openShare } from '$lib/server/snapshots';
+import { listComments } from '$lib/server/comments';
 import katex from 'katex';
 import { useKatex } from '$lib/client/tex';
 
@@ -9,9 +11,12 @@ import { useKatex } from '$lib/client/tex';
 useKatex(katex);
 
 export const load: PageServerLoad = ({ params, locals }) => {
-	const transcript = transcriptOf(orPageError(() => findSharedPad(params.slug)));
+	const opened = orPageError(() => openShare(params.slug));
+	const transcript = snapshotTranscript(opened);
 	const role = locals.user?.role;
-	return { slug: params.slug, transcript, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
+	// comments carry their authors' names: only signed-in readers of the snapshot see them
+	const comments = locals.user ? listComments(opened.share.slug, locals.user) : [];
+	return { slug: params.slug, transcript, comments, canFork: role === 'member' || role === 'admin', signedIn: !!locals.user };
 };
 
 export const actions: Actions = {
@@ -21,8 +26,8 @@ export const actions: Actions = {
 		if (!user) redirect(303, `/signin?next=/t/${encodeURIComponent(params.slug)}`);
 		if (user.role !== 'member' && user.role !== 'admin')
 			return fail(403, { message: 'Readers cannot fork; ask an admin to make you a member.' });
-		const pad = forkPad(
-			orPageError(() => findSharedPad(params.slug)),
+		const pad = forkSnapshot(
+			orPageError(() => openShare(params.slug)),
 			user
 		);
 		redirect(303, `/pads/${pad.id}`);

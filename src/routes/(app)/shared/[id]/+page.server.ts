@@ -4,10 +4,14 @@ import { z } from 'zod';
 import { ApiFailure, orPageError } from '$lib/server/http';
 import { emailSchema } from '$lib/server/auth/accounts';
 import { findOwnPad, findReadablePad, padSteps } from '$lib/server/pads';
-import { createShare, listShares, revokeShare, transcriptOf } from '$lib/server/transcripts';
+import { NOTE_MAX, createShare, listShares, revokeShare, transcriptOf } from '$lib/server/transcripts';
 import { invitePerson, listInvitations, revokeInvitation } from '$lib/server/invites';
 
-/** The read-only view of a pad for the people invited to it; its owner also manages links and invitations here. */
+/**
+ * The read-only view of a pad for the people invited to it; its owner also manages snapshots and invitations
+ * here (the SharePanel, through the JSON API). The form actions below do the same for a browser without
+ * JavaScript and for scripts, through the same server functions.
+ */
 export const load: PageServerLoad = ({ params, locals, url }) => {
 	if (!locals.user) redirect(303, `/signin?next=/shared/${encodeURIComponent(params.id)}`);
 	const user = locals.user;
@@ -17,8 +21,8 @@ export const load: PageServerLoad = ({ params, locals, url }) => {
 		id: pad.id,
 		transcript: transcriptOf(pad, padSteps(pad.id)),
 		isOwner,
-		shares: isOwner ? listShares(pad, url.origin) : [],
-		invitations: isOwner ? listInvitations(pad) : []
+		// the sharing panel's first paint; it reads the JSON API after each change
+		sharing: isOwner ? { shares: listShares(pad, url.origin), invitations: listInvitations(pad) } : undefined
 	};
 };
 
@@ -30,15 +34,19 @@ function ownPad(event: RequestEvent) {
 	return { user, pad: orPageError(() => findOwnPad(user, event.params.id!)) };
 }
 
-const shareForm = z.object({ days: z.union([z.literal(''), z.coerce.number().int().min(1).max(365)]) });
+const shareForm = z.object({
+	days: z.union([z.literal(''), z.coerce.number().int().min(1).max(365)]),
+	note: z.string().max(NOTE_MAX)
+});
 
 export const actions: Actions = {
 	share: async (event) => {
 		const { user, pad } = ownPad(event);
-		const parsed = shareForm.safeParse({ days: String((await event.request.formData()).get('days') ?? '') });
+		const data = await event.request.formData();
+		const parsed = shareForm.safeParse({ days: String(data.get('days') ?? ''), note: String(data.get('note') ?? '') });
 		if (!parsed.success) return fail(400, { message: 'Expiry is a whole number of days from 1 to 365, or empty for none.' });
-		createShare(pad, user, parsed.data.days === '' ? undefined : parsed.data.days);
-		return { message: 'Made a new read-only link.' };
+		createShare(pad, user, parsed.data.days === '' ? undefined : parsed.data.days, parsed.data.note);
+		return { message: 'Shared the current state as a new snapshot.' };
 	},
 	revoke: async (event) => {
 		const { pad } = ownPad(event);

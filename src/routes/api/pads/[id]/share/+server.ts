@@ -2,20 +2,32 @@ import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad } from '$lib/server/pads';
-import { createShare, listShares, shareUrl } from '$lib/server/transcripts';
+import { NOTE_MAX, createShare, listShares, shareUrl } from '$lib/server/transcripts';
 
-const shareSchema = z.object({ expiresInDays: z.number().int().min(1).max(365).optional() });
+const shareSchema = z.object({
+	expiresInDays: z.number().int().min(1).max(365).optional(),
+	note: z.string().max(NOTE_MAX, `A note has at most ${NOTE_MAX} characters.`).optional()
+});
 
-/** POST {expiresInDays?}: a new read-only link (owner only) → 201 {slug, url, expiresAt}. */
+/** POST {expiresInDays?, note?}: a new snapshot of the pad as it is now, behind a read-only link (owner only) → 201 {slug, url, expiresAt, note}. */
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
-	const { expiresInDays } = event.request.headers.get('content-length') === '0' ? {} : await readBody(event, shareSchema);
-	const share = createShare(pad, user, expiresInDays);
-	return ok({ slug: share.slug, url: shareUrl(share.slug, event.url.origin), expiresAt: share.expiresAt }, { status: 201 });
+	const { expiresInDays, note } = event.request.headers.get('content-length') === '0' ? {} : await readBody(event, shareSchema);
+	const share = createShare(pad, user, expiresInDays, note);
+	return ok(
+		{
+			slug: share.slug,
+			url: shareUrl(share.slug, event.url.origin),
+			expiresAt: share.expiresAt,
+			note: share.note,
+			frozenAt: share.frozenAt
+		},
+		{ status: 201 }
+	);
 });
 
-/** GET: every link of the pad, live or not, newest first. */
+/** GET: every snapshot of the pad, live or not, newest first (note, date, steps, comment count). */
 export const GET = api((event) => {
 	const user = requireWriter(event);
 	return ok({ shares: listShares(findOwnPad(user, event.params.id!), event.url.origin) });

@@ -1,22 +1,21 @@
 import { api, ok } from '$lib/server/http';
-import { findSharedPad } from '$lib/server/transcripts';
-import { padSteps } from '$lib/server/pads';
+import { openShare, snapshotStepRows } from '$lib/server/snapshots';
 import { replayAnswer, takeReplay } from '$lib/server/replay';
 import { clientGone } from '$lib/server/eval/disconnect';
 
 /**
- * POST: re-evaluates every step now and marks drift; nothing is stored. Public, so it is limited per client
+ * POST: re-evaluates every step of the snapshot now and marks drift; nothing is stored. Public, so it is limited per client
  * address before anything else runs (guessing slugs costs the same budget as replaying), then per transcript;
  * an unchanged transcript is answered from its last replay, and the run stops when its clients hang up.
  */
 export const POST = api(async (event) => {
 	const address = event.getClientAddress();
 	takeReplay(address);
-	const pad = findSharedPad(event.params.slug!);
+	const { pad, snapshot } = openShare(event.params.slug!);
 	const gone = clientGone(event);
 	try {
 		const owner = event.locals.user ? event.locals.user.id : `replay:${address}`;
-		return ok(await replayAnswer(pad, padSteps(pad.id), { owner, signal: gone.signal, limitTranscript: !event.locals.user }));
+		return ok(await replayAnswer(pad, snapshotStepRows(snapshot), { owner, signal: gone.signal, limitTranscript: !event.locals.user }));
 	} finally {
 		gone.done();
 	}
