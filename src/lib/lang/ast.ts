@@ -109,6 +109,12 @@ export interface CompareStmt extends Span {
 	keys: KeyValue[];
 	sinks: Word[];
 }
+/** `plot #9 #35 [xlabel="…"] [ylabel="…"]`: one figure overlaying the tables of earlier steps */
+export interface PlotStmt extends Span {
+	type: 'plot';
+	refs: RefExpr[];
+	keys: KeyValue[];
+}
 export interface MacroStmt extends Span {
 	type: 'macro';
 	name: Word;
@@ -124,7 +130,7 @@ export interface LetStmt extends Span {
 	name: Word;
 	body: VerbStmt | CompareStmt | MacroStmt | ArithStmt;
 }
-export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | MacroStmt | ArithStmt | LetStmt;
+export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | PlotStmt | MacroStmt | ArithStmt | LetStmt;
 
 export interface Line extends Span {
 	type: 'line';

@@ -129,7 +129,7 @@ class Parser {
 		return undefined;
 	}
 
-	/** Statement := UseStmt | UnitsStmt | LetStmt | CompareStmt | MacroStmt | VerbStmt | ArithStmt */
+	/** Statement := UseStmt | UnitsStmt | LetStmt | CompareStmt | PlotStmt | MacroStmt | VerbStmt | ArithStmt */
 	private parseStatement(): A.Statement {
 		const t = this.peek();
 		if (t.kind === Tok.Macro) return this.parseMacro();
@@ -145,6 +145,9 @@ class Parser {
 					return this.parseCompare();
 				case 'sweep':
 					return this.parseVerb();
+				case 'plot':
+					// `plot` is also a sink; as the first word it starts a figure of earlier steps
+					return this.parsePlot();
 			}
 			if (isVerb(t.text)) return this.parseVerb();
 			const after = this.peek(1);
@@ -204,7 +207,7 @@ class Parser {
 			});
 		}
 		const s = this.parseStatement();
-		if (s.type === 'use' || s.type === 'units' || s.type === 'let') throw new LangError('nothing to keep', s.start, s.end);
+		if (s.type === 'use' || s.type === 'units' || s.type === 'let' || s.type === 'plot') throw new LangError('nothing to keep', s.start, s.end);
 		const body: A.LetStmt['body'] = s;
 		return { type: 'let', name: this.word(n), body, start: kw.start, end: this.lastEnd() };
 	}
@@ -264,6 +267,22 @@ class Parser {
 		const stmt: A.CompareStmt = { type: 'compare', dataset: this.word(d), keys, sinks, start: kw.start, end: this.lastEnd() };
 		if (verb) stmt.verb = verb;
 		return stmt;
+	}
+
+	/** PlotStmt := 'plot' Ref+ KeyValue*   (whole steps only: `#9`, not `#9.T`) */
+	private parsePlot(): A.PlotStmt {
+		const kw = this.next();
+		const refs: A.RefExpr[] = [];
+		while (this.at(Tok.Ref)) {
+			const t = this.next();
+			if (t.field !== undefined) throw new LangError(`plot takes whole steps: #${t.step}, not #${t.step}.${t.field}`, t.start, t.end);
+			if (refs.some((r) => r.step === t.step)) throw new LangError(`step #${t.step} is given twice`, t.start, t.end);
+			if (refs.length >= 8) throw new LangError('a figure overlays at most 8 steps', t.start, t.end);
+			refs.push({ type: 'ref', step: t.step!, start: t.start, end: t.end });
+		}
+		if (!refs.length) throw this.unexpected('the steps to plot, e.g. plot #9 #35', this.peek());
+		const keys = this.parseKeyValues();
+		return { type: 'plot', refs, keys, start: kw.start, end: this.lastEnd() };
 	}
 
 	/** MacroStmt := '@' Name KeyValue* */

@@ -156,6 +156,8 @@ function renderResult(r: Result): string[] {
 				`\\item \\textbf{${texText(r.label)}}: ${r.pass ? 'holds' : 'fails'}; lhs $=$ ${n(r.lhs)}, rhs $=$ ${n(r.rhs)}, residual $=$ ${n(r.residual)} (tolerance ${n(r.tolerance)})`,
 				...warnLine(r.warning)
 			];
+		case 'figure':
+			return [`\\item \\textbf{${texText(r.label)}}: a figure overlaying the tables of steps ${r.steps.map((n) => `\\#${n}`).join(', ')}`];
 		case 'note':
 			return [`\\item ${texText(r.text)}`];
 	}

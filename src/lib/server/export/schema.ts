@@ -79,6 +79,13 @@ export const resultSchema = z.discriminatedUnion('kind', [
 		order: order.optional(),
 		warning
 	}),
+	shape({
+		kind: z.literal('figure'),
+		label,
+		steps: z.array(z.number().int().positive()).min(1).max(8),
+		xlabel: z.string().max(200).optional(),
+		ylabel: z.string().max(200).optional()
+	}),
 	shape({ kind: z.literal('note'), text: z.string().max(5000) })
 ]);
 
