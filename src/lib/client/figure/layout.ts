@@ -37,9 +37,13 @@ const RES_H = 110;
 const M = { l: 66, r: 14, t: 12, b: 40 };
 const plain = (text: string): LabelRun[] => [{ text, shift: 0, italic: false }];
 
-/** Width of text in the plot's monospace font (0.6 em a character) — used to keep labels from overlapping. */
+/**
+ * Width of text in the plot's monospace font — used to keep labels from overlapping, so it errs wide: 0.62 em a
+ * Latin character (IBM Plex Mono is 0.6), a full em for anything else (≤, ℓ, Greek come from a fallback font).
+ */
 export function textWidth(runs: LabelRun[], size: number): number {
-	return runs.reduce((w, r) => w + [...r.text].length * size * 0.6 * (r.shift ? 0.72 : 1), 0);
+	const em = (ch: string) => (ch.codePointAt(0)! < 0x250 ? 0.62 : 1);
+	return runs.reduce((w, r) => w + [...r.text].reduce((a, ch) => a + em(ch), 0) * size * (r.shift ? 0.72 : 1), 0);
 }
 
 function extent(vals: number[], log: boolean): [number, number] {
@@ -61,7 +65,7 @@ export function integerTicks(s: Scale, count: number): number[] {
  * Band labels ("order 3 ≤ 0.41") each end at their dashed l_max line; a label that would overlap one already
  * placed drops to the next row. Returns the row of each label, in input order.
  */
-export function stackLabels(items: { right: number; width: number }[], gap = 4): number[] {
+export function stackLabels(items: { right: number; width: number }[], gap = 6): number[] {
 	const rows: { left: number; right: number }[][] = [];
 	return items.map((it) => {
 		const left = it.right - it.width;
@@ -133,7 +137,7 @@ export function layoutFigure(f: FigureSpec): Scene {
 	const rows = stackLabels([...labels].reverse().map((l) => ({ right: xs(l.b.lmax) - 3, width: textWidth(l.runs, 9) }))).reverse();
 	labels.forEach(({ b, runs }, k) => {
 		prims.push({ t: 'line', x1: xs(b.lmax), x2: xs(b.lmax), y1: M.t, y2: mainBottom, stroke: b.style.stroke, width: 1, dash: '3 3' });
-		prims.push({ t: 'text', x: xs(b.lmax) - 3, y: mainBottom - 6 - rows[k]! * 11, runs, size: 9, anchor: 'end', fill: b.style.stroke, cls: 'band-label' });
+		prims.push({ t: 'text', x: xs(b.lmax) - 3, y: mainBottom - 6 - rows[k]! * 12.5, runs, size: 9, anchor: 'end', fill: b.style.stroke, cls: 'band-label' });
 	});
 
 	axes(prims, main, xTicks, ys.ticks(5), tick, !hasRes);

@@ -56,6 +56,8 @@ export interface LabelEdits {
 }
 
 const num = (v: unknown) => (typeof v === 'number' ? v : NaN);
+/** a dataset's name as upright LaTeX text (`syn_zh` → \mathrm{syn\_zh}) */
+const nameTex = (name: string) => `\\mathrm{${name.replace(/[^A-Za-z0-9_]/g, '').replace(/_/g, '\\_')}}`;
 const isCompare = (t: TableResult) => !!t.plot?.dataset && t.columns.includes('engine') && t.columns.includes('dataset');
 
 function xColumn(t: TableResult): number {
@@ -72,7 +74,7 @@ function tableCurves(t: TableResult, step?: number, offset = 0): Curve[] {
 	return cols.map(({ c, i }, k) => ({
 		id: step === undefined ? c : `#${step}:${c}`,
 		column: c,
-		legend: c === 'engine' ? '\\mathrm{engine}' : columnLegend(c, step),
+		legend: columnLegend(c, step),
 		points: t.rows.map((r) => [num(r[xi]), num(r[i])] as [number, number]),
 		style: curveStyle(c, offset + k, step !== undefined)
 	}));
@@ -95,7 +97,7 @@ export function figureOfTable(t: TableResult, opts: { logX?: boolean; logY?: boo
 		const di = t.columns.indexOf('dataset');
 		const si = t.columns.indexOf('sigma');
 		const errors = si >= 0 ? t.rows.map((r) => num(r[si])) : undefined;
-		markers = { legend: `\\mathrm{${(t.plot!.dataset ?? 'data').replace(/[^A-Za-z0-9]/g, '')}}`, points: t.rows.map((r) => [num(r[xi]), num(r[di])]), ...(errors ? { errors } : {}) };
+		markers = { legend: nameTex(t.plot!.dataset ?? 'data'), points: t.rows.map((r) => [num(r[xi]), num(r[di])]), ...(errors ? { errors } : {}) };
 		const fi = t.columns.indexOf('diff');
 		residual = {
 			label: '\\mathrm{data} - \\mathrm{engine}',
@@ -105,7 +107,7 @@ export function figureOfTable(t: TableResult, opts: { logX?: boolean; logY?: boo
 		};
 	} else if (t.plot?.dataset) {
 		const di = t.columns.indexOf(t.plot.dataset);
-		if (di >= 0) markers = { legend: `\\mathrm{${t.plot.dataset.replace(/[^A-Za-z0-9]/g, '')}}`, points: t.rows.map((r) => [num(r[xi]), num(r[di])]) };
+		if (di >= 0) markers = { legend: nameTex(t.plot.dataset), points: t.rows.map((r) => [num(r[xi]), num(r[di])]) };
 	}
 	const bands = Object.entries(t.plot?.validity ?? {})
 		.filter(([, lmax]) => Number.isFinite(lmax))

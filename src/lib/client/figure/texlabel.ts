@@ -154,6 +154,6 @@ export function quantityLabel(tableLabel: string): string {
 /** Legend text for a column (`o3` → order 3), prefixed with its step in an overlay. */
 export function columnLegend(column: string, step?: number): string {
 	const m = /^o(\d+)$/.exec(column);
-	const base = m ? `\\mathrm{order}\\;${m[1]}` : column === 'exact' ? '\\mathrm{exact}' : `\\mathrm{${column.replace(/[^A-Za-z0-9 ]/g, '')}}`;
+	const base = m ? `\\mathrm{order}\\;${m[1]}` : `\\mathrm{${column.replace(/[^A-Za-z0-9_]/g, '').replace(/_/g, '\\_')}}`;
 	return step === undefined ? base : `\\#${step}\\;${base}`;
 }
