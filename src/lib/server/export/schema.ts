@@ -77,7 +77,10 @@ export const resultSchema = z.discriminatedUnion('kind', [
 		residual: num,
 		tolerance: num,
 		order: order.optional(),
-		warning
+		warning,
+		relation: z.string().max(500).optional(),
+		chi2dof: num.optional(),
+		pvalue: num.optional()
 	}),
 	shape({
 		kind: z.literal('figure'),
