@@ -9,7 +9,7 @@ import { figurePgf } from '../../../src/lib/client/figure/pgf';
 import { readDpi, withDpi } from '../../../src/lib/client/figure/png';
 import { BACKGROUNDS, contrast, ORDER_COLOURS, ORDER_DASHES, curveStyle } from '../../../src/lib/client/figure/palette';
 import { VALIDITY_TOLERANCE } from '../../../src/lib/client/figure/tolerance';
-import { DEFAULT_TOL } from '../../../src/lib/lang/verbs';
+import { DEFAULT_VALIDITY_TOL } from '../../../src/lib/lang/verbs/validity';
 import { linearScale } from '../../../src/lib/client/scale';
 
 const sweep: TableResult = {
@@ -113,7 +113,7 @@ describe('figure geometry', () => {
 		expect(curveStyle('o3', 2, false).dash).not.toBe('');
 	});
 	it('states the tolerance the bands use, the same as the engine', () => {
-		expect(VALIDITY_TOLERANCE).toBe(DEFAULT_TOL);
+		expect(VALIDITY_TOLERANCE).toBe(DEFAULT_VALIDITY_TOL);
 		const svg = sceneSvg(layoutFigure(figureOfTable(sweep, { tolerance: VALIDITY_TOLERANCE })), { file: true, id: 'f', label: 'x' });
 		expect(svg).toContain('relative tolerance 0.001');
 	});
