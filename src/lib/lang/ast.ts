@@ -115,6 +115,11 @@ export interface PlotStmt extends Span {
 	refs: RefExpr[];
 	keys: KeyValue[];
 }
+/** `help [word]` or `?word`: what a verb, bulk, key, sink or statement does */
+export interface HelpStmt extends Span {
+	type: 'help';
+	topic?: Word;
+}
 export interface MacroStmt extends Span {
 	type: 'macro';
 	name: Word;
@@ -130,7 +135,7 @@ export interface LetStmt extends Span {
 	name: Word;
 	body: VerbStmt | CompareStmt | MacroStmt | ArithStmt;
 }
-export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | PlotStmt | MacroStmt | ArithStmt | LetStmt;
+export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | PlotStmt | HelpStmt | MacroStmt | ArithStmt | LetStmt;
 
 export interface Line extends Span {
 	type: 'line';

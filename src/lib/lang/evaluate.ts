@@ -8,6 +8,7 @@ import type * as A from './ast';
 import { evaluateExpr } from './arith';
 import { runCompare } from './compare';
 import { runPlot } from './figure';
+import { runHelp } from './ask';
 import { type LineEnv, type StatementOut, withEngine } from './env';
 import { LangError } from './errors';
 import { describeBulk, texNumber } from './format';
@@ -83,6 +84,8 @@ function runStatement(s: A.Statement, input: string, env: LineEnv): StatementOut
 			return runCompare(s, env);
 		case 'plot':
 			return runPlot(s, env);
+		case 'help':
+			return runHelp(s);
 		case 'macro':
 			return runMacro(s, input, env, runText);
 		case 'arith':

@@ -96,6 +96,9 @@ export function printStatement(s: A.Statement): string {
 			if (s.verb) parts.push(s.verb.text);
 			parts.push(...printKeys(s.keys), ...printSinks(s.sinks));
 			break;
+		case 'help':
+			parts.push('help', ...(s.topic ? [s.topic.text] : []));
+			break;
 		case 'plot':
 			parts.push('plot', ...s.refs.map((r) => `#${r.step}`), ...printKeys(s.keys));
 			break;
