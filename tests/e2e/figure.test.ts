@@ -184,4 +184,19 @@ describe('figures for a paper', () => {
 		const pgf = await download(fig, 'pgf');
 		expect(pgf.bytes.toString('utf8')).toContain('at={(main.south west)}');
 	});
+
+	it('help: ?darea in the pad, the palette detail pane, and the decimal-comma hint', async () => {
+		await run('?darea');
+		expect(await step(7).innerText()).toMatch(/method: .*accuracy: .*source: .*examples: /s);
+		await page.keyboard.press('Control+k');
+		await page.locator('.palette-input').fill('darea');
+		const pane = page.locator('.palette-detail');
+		await expect.poll(() => pane.count()).toBe(1);
+		expect(await pane.innerText()).toMatch(/darea[\s\S]*forms[\s\S]*method[\s\S]*accuracy[\s\S]*source[\s\S]*examples/);
+		await pane.screenshot({ path: join(SHOTS, 'palette-detail.png') });
+		await page.keyboard.press('Escape');
+		await page.locator('textarea[aria-label="input line"]').fill('darea l=0,4');
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('.line-error').innerText()).toMatch(/decimal point[\s\S]*l=0\.4/);
+	});
 });
