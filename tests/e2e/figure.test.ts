@@ -97,9 +97,14 @@ describe('figures for a paper', () => {
 			for (let j = i + 1; j < boxes.length; j++) {
 				const a = boxes[i]!;
 				const b = boxes[j]!;
-				expect(a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top, `band labels ${JSON.stringify(a)} and ${JSON.stringify(b)}`).toBe(true);
+				expect(
+					a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top,
+					`band labels ${JSON.stringify(a)} and ${JSON.stringify(b)}`
+				).toBe(true);
 			}
-		expect(await fig.locator('text.legend-text').allTextContents()).toContain('shaded: order reliable, ℓ ≤ ℓ_max (relative tolerance 0.001)');
+		expect(await fig.locator('text.legend-text').allTextContents()).toContain(
+			'shaded: order reliable, ℓ ≤ ℓ_max (relative tolerance 0.001)'
+		);
 		await fig.screenshot({ path: join(SHOTS, 'sweep-orders-bands.png') });
 	});
 
@@ -129,7 +134,9 @@ describe('figures for a paper', () => {
 		if (hasPgfplots) {
 			const dir = mkdtempSync(join(tmpdir(), 'bulkpad-pgf-'));
 			writeFileSync(join(dir, 'fig.tex'), tex);
-			const r = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'fig.tex'], { cwd: dir }).then(
+			const r = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'fig.tex'], {
+				cwd: dir
+			}).then(
 				() => 0,
 				(e: { code: number; stdout: string }) => (console.error(e.stdout.slice(-1500)), e.code)
 			);

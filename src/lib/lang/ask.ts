@@ -17,14 +17,20 @@ export function runHelp(s: A.HelpStmt): StatementOut {
 		const verbs = helpEntries('verb').map((e) => e.name);
 		const rest = helpEntries('statement').map((e) => e.name);
 		return {
-			results: [note(`verbs: ${verbs.join(', ')}`), note(`statements: ${rest.join(', ')}, plot #n #m, help <word>`), note('help <word> or ?<word> explains one, e.g. ?darea')]
+			results: [
+				note(`verbs: ${verbs.join(', ')}`),
+				note(`statements: ${rest.join(', ')}, plot #n #m, help <word>`),
+				note('help <word> or ?<word> explains one, e.g. ?darea')
+			]
 		};
 	}
 	const word = s.topic.text;
 	const e = help(word);
 	if (!e) {
 		const names = helpEntries().map((x) => x.name);
-		throw new LangError(`no help for '${word}'${didYouMean(word, names)}`, s.topic.start, s.topic.end, { hint: 'help alone lists the verbs' });
+		throw new LangError(`no help for '${word}'${didYouMean(word, names)}`, s.topic.start, s.topic.end, {
+			hint: 'help alone lists the verbs'
+		});
 	}
 	const out: Result[] = [note(`${e.name} (${e.kind}): ${e.summary}`)];
 	if (e.detail) {

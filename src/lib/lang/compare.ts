@@ -101,7 +101,11 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 		const bad = ds.rows.findIndex((r) => !(r[ei]! > 0));
 		if (bad >= 0) {
 			const kv = own.get('err');
-			throw new LangError(`dataset '${name}' row ${bad + 1}: ${eCol} must be > 0 (a standard deviation)`, (kv ?? s.dataset).start, (kv ?? s.dataset).end);
+			throw new LangError(
+				`dataset '${name}' row ${bad + 1}: ${eCol} must be > 0 (a standard deviation)`,
+				(kv ?? s.dataset).start,
+				(kv ?? s.dataset).end
+			);
 		}
 	}
 	if (rest.some((kv) => kv.key === xCol)) {

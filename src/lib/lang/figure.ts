@@ -14,10 +14,16 @@ const LABEL_KEYS = ['xlabel', 'ylabel'] as const;
 export function runPlot(s: A.PlotStmt, env: LineEnv): StatementOut {
 	for (const r of s.refs) {
 		if (!Object.prototype.hasOwnProperty.call(env.ctx.refs ?? {}, r.step)) {
-			throw new LangError(`no step #${r.step} in this pad to plot`, r.start, r.end, { hint: 'plot the tables of earlier steps: plot #2 #5' });
+			throw new LangError(`no step #${r.step} in this pad to plot`, r.start, r.end, {
+				hint: 'plot the tables of earlier steps: plot #2 #5'
+			});
 		}
 	}
-	const fig: FigureResult = { kind: 'figure', label: `figure of ${s.refs.map((r) => `#${r.step}`).join(', ')}`, steps: s.refs.map((r) => r.step) };
+	const fig: FigureResult = {
+		kind: 'figure',
+		label: `figure of ${s.refs.map((r) => `#${r.step}`).join(', ')}`,
+		steps: s.refs.map((r) => r.step)
+	};
 	const scope = { ctx: env.ctx, lets: env.lets, bulk: env.bulk.params };
 	for (const kv of s.keys) {
 		if (!(LABEL_KEYS as readonly string[]).includes(kv.key)) {

@@ -53,7 +53,9 @@ export function fitParameter(
 		const given = env.bulk.params[key];
 		if (typeof given !== 'number') {
 			const keys = Object.keys(env.bulk.params).filter((k) => typeof env.bulk.params[k] === 'number');
-			throw new LangError(`the bulk has no number '${key}' to fit`, v.start, v.end, { hint: `fit one of ${keys.join(', ')}, or c under units cft` });
+			throw new LangError(`the bulk has no number '${key}' to fit`, v.start, v.end, {
+				hint: `fit one of ${keys.join(', ')}, or c under units cft`
+			});
 		}
 		if (rest.some((r) => r.key === key)) throw new LangError(`fit varies ${key}: leave ${key}= off the line`, kv.start, kv.end);
 		p0 = given;
@@ -101,7 +103,8 @@ export function fitParameter(
 	const grid = Array.from({ length: SCAN }, (_, i) => lo + ((hi - lo) * i) / (SCAN - 1));
 	const values = grid.map((u) => chi2(Math.exp(u)));
 	const best = values.indexOf(Math.min(...values));
-	if (!Number.isFinite(values[best]!)) throw new LangError(`no ${key} in ${fmt(p0! / 8)} … ${fmt(p0! * 8)} gives an engine value at every point`, kv.start, kv.end);
+	if (!Number.isFinite(values[best]!))
+		throw new LangError(`no ${key} in ${fmt(p0! / 8)} … ${fmt(p0! * 8)} gives an engine value at every point`, kv.start, kv.end);
 	const a = grid[Math.max(0, best - 1)]!;
 	const b = grid[Math.min(SCAN - 1, best + 1)]!;
 	const m = minimizeBrent((u) => chi2(Math.exp(u)), a, b, 1e-9, MAX_ITER);
@@ -122,7 +125,11 @@ export function fitParameter(
 		order: orderCol === 'exact' ? 'exact' : Number(orderCol.slice(1)) || 'exact',
 		fields,
 		note: `least squares in one parameter (Brent's method); ± is one standard error from the curvature of χ² (Δχ² = 1)${data.sigmas ? '' : ', scaled by the scatter since the dataset gives no errors'}`,
-		...(edge ? { warning: `the best ${key} is at the edge of the range searched (${fmt(p0! / 8)} … ${fmt(p0! * 8)}): start nearer with ${cft ? 'units cft c=…' : `use … ${key}=…`}` } : {})
+		...(edge
+			? {
+					warning: `the best ${key} is at the edge of the range searched (${fmt(p0! / 8)} … ${fmt(p0! * 8)}): start nearer with ${cft ? 'units cft c=…' : `use … ${key}=…`}`
+				}
+			: {})
 	};
 	return { key, value: p, error, text, table, result, fields };
 }

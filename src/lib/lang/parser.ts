@@ -216,7 +216,8 @@ class Parser {
 			});
 		}
 		const s = this.parseStatement();
-		if (s.type === 'use' || s.type === 'units' || s.type === 'let' || s.type === 'plot' || s.type === 'help') throw new LangError('nothing to keep', s.start, s.end);
+		if (s.type === 'use' || s.type === 'units' || s.type === 'let' || s.type === 'plot' || s.type === 'help')
+			throw new LangError('nothing to keep', s.start, s.end);
 		const body: A.LetStmt['body'] = s;
 		return { type: 'let', name: this.word(n), body, start: kw.start, end: this.lastEnd() };
 	}

@@ -22,7 +22,10 @@ async function compile(tex: string, files: Record<string, Uint8Array> = {}) {
 	const dir = mkdtempSync(join(tmpdir(), 'bulkpad-fig-'));
 	writeFileSync(join(dir, 'doc.tex'), tex);
 	for (const [name, bytes] of Object.entries(files)) writeFileSync(join(dir, name), bytes);
-	const out = await run('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'doc.tex'], { cwd: dir, maxBuffer: 16 << 20 }).then(
+	const out = await run('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'doc.tex'], {
+		cwd: dir,
+		maxBuffer: 16 << 20
+	}).then(
 		(r) => ({ code: 0, log: r.stdout }),
 		(e: { code: number; stdout: string }) => ({ code: e.code, log: e.stdout })
 	);
@@ -76,7 +79,13 @@ describe.runIf(hasPgfplots)('pgfplots export compiles with plain pdflatex', () =
 describe.runIf(hasPdflatex)('the PDF export is a PDF that pdfTeX reads', () => {
 	it('\\includegraphics takes the figure PDF', { timeout: 120_000 }, async () => {
 		const pdf = scenePdf(layoutFigure(figureOfTable(compare)), 'ΔA (mine)');
-		const doc = ['\\documentclass{article}', '\\usepackage{graphicx}', '\\begin{document}', '\\includegraphics{fig.pdf}', '\\end{document}'].join('\n');
+		const doc = [
+			'\\documentclass{article}',
+			'\\usepackage{graphicx}',
+			'\\begin{document}',
+			'\\includegraphics{fig.pdf}',
+			'\\end{document}'
+		].join('\n');
 		const r = await compile(doc, { 'fig.pdf': pdf });
 		expect(r.code, r.log.slice(-2000)).toBe(0);
 		expect(r.log).not.toMatch(/PDF inclusion: .*(error|invalid)/i);

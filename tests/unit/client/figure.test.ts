@@ -1,6 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import type { TableResult } from '../../../src/lib/lang/result';
-import { columnLegend, keyLabel, labelRuns, labelText, quantityLabel, texForPgf, unicodeToTex } from '../../../src/lib/client/figure/texlabel';
+import {
+	columnLegend,
+	keyLabel,
+	labelRuns,
+	labelText,
+	quantityLabel,
+	texForPgf,
+	unicodeToTex
+} from '../../../src/lib/client/figure/texlabel';
 import { figureFileName, figureOfSteps, figureOfTable, withLabels } from '../../../src/lib/client/figure/spec';
 import { integerTicks, layoutFigure, stackLabels, textWidth } from '../../../src/lib/client/figure/layout';
 import { sceneSvg } from '../../../src/lib/client/figure/svg';
@@ -80,7 +88,9 @@ describe('figure geometry', () => {
 		expect(f.integerX).toBe(true);
 		const scene = layoutFigure(f);
 		const main = scene.panels[0]!;
-		const ticks = scene.prims.filter((p) => p.t === 'text' && Math.abs(p.y - (main.y + main.h + 14)) < 0.01).map((p) => (p.t === 'text' ? p.runs[0]!.text : ''));
+		const ticks = scene.prims
+			.filter((p) => p.t === 'text' && Math.abs(p.y - (main.y + main.h + 14)) < 0.01)
+			.map((p) => (p.t === 'text' ? p.runs[0]!.text : ''));
 		expect(ticks.length).toBeGreaterThan(1);
 		for (const t of ticks) expect(Number(t)).toSatisfy(Number.isInteger);
 	});
@@ -93,7 +103,10 @@ describe('figure geometry', () => {
 		]);
 		expect(rows).toEqual([0, 1, 2, 0]);
 		const scene = layoutFigure(figureOfTable(sweep));
-		const labels = scene.prims.filter((p) => p.t === 'text' && p.cls === 'band-label') as Extract<(typeof scene.prims)[number], { t: 'text' }>[];
+		const labels = scene.prims.filter((p) => p.t === 'text' && p.cls === 'band-label') as Extract<
+			(typeof scene.prims)[number],
+			{ t: 'text' }
+		>[];
 		expect(labels).toHaveLength(3);
 		for (let i = 0; i < labels.length; i++)
 			for (let j = i + 1; j < labels.length; j++) {
@@ -137,7 +150,9 @@ describe('figure geometry', () => {
 		]);
 		const scene = layoutFigure(f);
 		expect(scene.panels).toHaveLength(2);
-		const kinds = scene.prims.map((p) => (p.t === 'path' && p.cls === 'series-path' ? 'curve' : p.t === 'marker' && p.clip === 0 ? 'marker' : ''));
+		const kinds = scene.prims.map((p) =>
+			p.t === 'path' && p.cls === 'series-path' ? 'curve' : p.t === 'marker' && p.clip === 0 ? 'marker' : ''
+		);
 		expect(kinds.lastIndexOf('marker')).toBeLessThan(kinds.indexOf('curve'));
 		expect(scene.prims.filter((p) => p.t === 'line' && p.cls === 'error-bar')).toHaveLength(4);
 	});

@@ -24,7 +24,7 @@ describe('help and ?word', () => {
 		const e = new Pad().fail('?dara');
 		expect(e.message).toBe("no help for 'dara' — did you mean 'darea'?");
 		expect('?dara'.slice(e.start, e.end)).toBe('dara');
-		expect(() => parse('?')).toThrow("Expected a word to explain, e.g. ?darea, found end of line");
+		expect(() => parse('?')).toThrow('Expected a word to explain, e.g. ?darea, found end of line');
 	});
 });
 

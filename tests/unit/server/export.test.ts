@@ -126,7 +126,13 @@ describe('LaTeX', () => {
 	});
 
 	it('leaves out failed and hidden steps, saying how many, and keeps the others numbered', () => {
-		const failed = { n: 2, input: 'darea l=', status: 'error' as const, results: null, error: { message: 'expected a value', start: 8, end: 8 } };
+		const failed = {
+			n: 2,
+			input: 'darea l=',
+			status: 'error' as const,
+			results: null,
+			error: { message: 'expected a value', start: 8, end: 8 }
+		};
 		const hidden = { ...ok(3, 'darea l=0.2', []), hidden: true };
 		const tex = renderLatex(doc([ok(1, 'darea l=0.1', []), failed, hidden, ok(4, 'darea l=0.3', [])] as never));
 		expect(tex).toContain('2 steps (2 failed or hidden steps left out)');

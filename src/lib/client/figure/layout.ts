@@ -10,11 +10,32 @@ import type { FigureSpec } from './spec';
 import { labelRuns, type LabelRun } from './texlabel';
 
 export type Prim =
-	| { t: 'line'; x1: number; y1: number; x2: number; y2: number; stroke: string; width: number; dash?: string; opacity?: number; cls?: string }
+	| {
+			t: 'line';
+			x1: number;
+			y1: number;
+			x2: number;
+			y2: number;
+			stroke: string;
+			width: number;
+			dash?: string;
+			opacity?: number;
+			cls?: string;
+	  }
 	| { t: 'path'; segs: [number, number][][]; stroke: string; width: number; dash?: string; clip: number; cls?: string; col?: string }
 	| { t: 'rect'; x: number; y: number; w: number; h: number; fill: string; opacity: number; cls?: string; col?: string }
 	| { t: 'marker'; x: number; y: number; r: number; fill: string; stroke: string; clip: number }
-	| { t: 'text'; x: number; y: number; runs: LabelRun[]; size: number; anchor: 'start' | 'middle' | 'end'; fill: string; rotate?: boolean; cls?: string };
+	| {
+			t: 'text';
+			x: number;
+			y: number;
+			runs: LabelRun[];
+			size: number;
+			anchor: 'start' | 'middle' | 'end';
+			fill: string;
+			rotate?: boolean;
+			cls?: string;
+	  };
 
 export interface Panel {
 	x: number;
@@ -130,23 +151,61 @@ export function layoutFigure(f: FigureSpec): Scene {
 		.sort((a, b) => b.lmax - a.lmax);
 	for (const b of bands) {
 		const xA = xs(Math.min(x0, x1));
-		prims.push({ t: 'rect', x: Math.min(xA, xs(b.clipped)), y: M.t, w: Math.abs(xs(b.clipped) - xA), h: main.h, fill: b.style.stroke, opacity: 0.06, cls: 'validity-band', col: b.column });
+		prims.push({
+			t: 'rect',
+			x: Math.min(xA, xs(b.clipped)),
+			y: M.t,
+			w: Math.abs(xs(b.clipped) - xA),
+			h: main.h,
+			fill: b.style.stroke,
+			opacity: 0.06,
+			cls: 'validity-band',
+			col: b.column
+		});
 	}
 	const inside = bands.filter((b) => b.lmax >= Math.min(x0, x1) && b.lmax <= Math.max(x0, x1));
 	const labels = inside.map((b) => ({ b, runs: [...labelRuns(b.legend), ...plain(` ≤ ${formatNumber(b.lmax, 3)}`)] }));
 	const rows = stackLabels([...labels].reverse().map((l) => ({ right: xs(l.b.lmax) - 3, width: textWidth(l.runs, 9) }))).reverse();
 	labels.forEach(({ b, runs }, k) => {
 		prims.push({ t: 'line', x1: xs(b.lmax), x2: xs(b.lmax), y1: M.t, y2: mainBottom, stroke: b.style.stroke, width: 1, dash: '3 3' });
-		prims.push({ t: 'text', x: xs(b.lmax) - 3, y: mainBottom - 6 - rows[k]! * 12.5, runs, size: 9, anchor: 'end', fill: b.style.stroke, cls: 'band-label' });
+		prims.push({
+			t: 'text',
+			x: xs(b.lmax) - 3,
+			y: mainBottom - 6 - rows[k]! * 12.5,
+			runs,
+			size: 9,
+			anchor: 'end',
+			fill: b.style.stroke,
+			cls: 'band-label'
+		});
 	});
 
 	axes(prims, main, xTicks, ys.ticks(5), tick, !hasRes);
-	prims.push({ t: 'text', x: 14, y: M.t + main.h / 2, runs: labelRuns(f.ylabel), size: 12, anchor: 'middle', fill: INK, rotate: true, cls: 'axis-label' });
+	prims.push({
+		t: 'text',
+		x: 14,
+		y: M.t + main.h / 2,
+		runs: labelRuns(f.ylabel),
+		size: 12,
+		anchor: 'middle',
+		fill: INK,
+		rotate: true,
+		cls: 'axis-label'
+	});
 
 	if (f.markers) markerPrims(prims, f.markers.points, f.markers.errors, xs, ys, 0);
 	// curves after the data, so the engine's line is never hidden under the markers
 	for (const c of f.curves)
-		prims.push({ t: 'path', segs: segments(c.points, xs, ys), stroke: c.style.stroke, width: c.style.width, dash: c.style.dash, clip: 0, cls: 'series-path', col: c.column });
+		prims.push({
+			t: 'path',
+			segs: segments(c.points, xs, ys),
+			stroke: c.style.stroke,
+			width: c.style.width,
+			dash: c.style.dash,
+			clip: 0,
+			cls: 'series-path',
+			col: c.column
+		});
 
 	let xLabelY = height - 6;
 	if (hasRes) {
@@ -164,11 +223,30 @@ export function layoutFigure(f: FigureSpec): Scene {
 		panels.push(panel);
 		axes(prims, panel, xTicks, rs.ticks(3), tick, true);
 		prims.push({ t: 'line', x1: M.l, x2: right, y1: rs(0), y2: rs(0), stroke: INK, width: 1, opacity: 0.6, dash: '4 3' });
-		prims.push({ t: 'text', x: 14, y: top + panel.h / 2, runs: labelRuns(r.label), size: 9, anchor: 'middle', fill: INK, rotate: true, cls: 'residual-label' });
+		prims.push({
+			t: 'text',
+			x: 14,
+			y: top + panel.h / 2,
+			runs: labelRuns(r.label),
+			size: 9,
+			anchor: 'middle',
+			fill: INK,
+			rotate: true,
+			cls: 'residual-label'
+		});
 		markerPrims(prims, r.points, r.errors, rx, rs, 1);
 		xLabelY = height - 6;
 	}
-	prims.push({ t: 'text', x: (M.l + right) / 2, y: xLabelY, runs: labelRuns(f.xlabel), size: 12, anchor: 'middle', fill: INK, cls: 'axis-label' });
+	prims.push({
+		t: 'text',
+		x: (M.l + right) / 2,
+		y: xLabelY,
+		runs: labelRuns(f.xlabel),
+		size: 12,
+		anchor: 'middle',
+		fill: INK,
+		cls: 'axis-label'
+	});
 
 	legend(prims, f);
 	return { width: W, height, panels, prims };
@@ -202,17 +280,45 @@ function legend(prims: Prim[], f: FigureSpec) {
 	const x = M.l + 10;
 	let y = M.t + 6;
 	for (const c of f.curves) {
-		prims.push({ t: 'line', x1: x, x2: x + 22, y1: y + 4, y2: y + 4, stroke: c.style.stroke, width: c.style.width, dash: c.style.dash, cls: 'legend-line' });
+		prims.push({
+			t: 'line',
+			x1: x,
+			x2: x + 22,
+			y1: y + 4,
+			y2: y + 4,
+			stroke: c.style.stroke,
+			width: c.style.width,
+			dash: c.style.dash,
+			cls: 'legend-line'
+		});
 		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(c.legend), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
 		y += 14;
 	}
 	if (f.markers) {
 		prims.push({ t: 'marker', x: x + 11, y: y + 4, r: 3, fill: DATASET_COLOUR, stroke: DATASET_COLOUR, clip: -1 });
-		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(f.markers.legend + (f.markers.errors ? '\\;\\pm\\sigma' : '')), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
+		prims.push({
+			t: 'text',
+			x: x + 28,
+			y: y + 8,
+			runs: labelRuns(f.markers.legend + (f.markers.errors ? '\\;\\pm\\sigma' : '')),
+			size: 10,
+			anchor: 'start',
+			fill: INK,
+			cls: 'legend-text'
+		});
 		y += 14;
 	}
 	if (f.bands.length) {
 		const tol = f.tolerance !== undefined ? ` (relative tolerance ${formatNumber(f.tolerance, 3)})` : '';
-		prims.push({ t: 'text', x, y: y + 8, runs: plain(`shaded: order reliable, ℓ ≤ ℓ_max${tol}`), size: 9, anchor: 'start', fill: INK, cls: 'legend-text' });
+		prims.push({
+			t: 'text',
+			x,
+			y: y + 8,
+			runs: plain(`shaded: order reliable, ℓ ≤ ℓ_max${tol}`),
+			size: 9,
+			anchor: 'start',
+			fill: INK,
+			cls: 'legend-text'
+		});
 	}
 }

@@ -12,13 +12,70 @@ import type { LabelRun } from './texlabel';
 const K = 0.75;
 /** Unicode → Symbol font code (Adobe's Symbol encoding). */
 const SYMBOL: Record<string, number> = {
-	α: 0x61, β: 0x62, γ: 0x67, δ: 0x64, ε: 0x65, ζ: 0x7a, η: 0x68, θ: 0x71, κ: 0x6b, λ: 0x6c, μ: 0x6d, ν: 0x6e, ξ: 0x78,
-	π: 0x70, ρ: 0x72, σ: 0x73, τ: 0x74, φ: 0x66, χ: 0x63, ψ: 0x79, ω: 0x77, Γ: 0x47, Δ: 0x44, Θ: 0x51, Λ: 0x4c, Π: 0x50,
-	Σ: 0x53, Φ: 0x46, Ψ: 0x59, Ω: 0x57, '∂': 0xb6, '∞': 0xa5, '≤': 0xa3, '≥': 0xb3, '≈': 0xbb, '→': 0xae, '∝': 0xb5,
-	'−': 0x2d, '×': 0xb4, '∼': 0x7e, '⟨': 0xe1, '⟩': 0xf1
+	α: 0x61,
+	β: 0x62,
+	γ: 0x67,
+	δ: 0x64,
+	ε: 0x65,
+	ζ: 0x7a,
+	η: 0x68,
+	θ: 0x71,
+	κ: 0x6b,
+	λ: 0x6c,
+	μ: 0x6d,
+	ν: 0x6e,
+	ξ: 0x78,
+	π: 0x70,
+	ρ: 0x72,
+	σ: 0x73,
+	τ: 0x74,
+	φ: 0x66,
+	χ: 0x63,
+	ψ: 0x79,
+	ω: 0x77,
+	Γ: 0x47,
+	Δ: 0x44,
+	Θ: 0x51,
+	Λ: 0x4c,
+	Π: 0x50,
+	Σ: 0x53,
+	Φ: 0x46,
+	Ψ: 0x59,
+	Ω: 0x57,
+	'∂': 0xb6,
+	'∞': 0xa5,
+	'≤': 0xa3,
+	'≥': 0xb3,
+	'≈': 0xbb,
+	'→': 0xae,
+	'∝': 0xb5,
+	'−': 0x2d,
+	'×': 0xb4,
+	'∼': 0x7e,
+	'⟨': 0xe1,
+	'⟩': 0xf1
 };
 /** Helvetica advance widths (per 1000 em) for the characters a figure uses; others count as 556. */
-const HELV: Record<string, number> = { ' ': 278, '.': 278, ',': 278, '-': 333, ':': 278, '(': 333, ')': 333, i: 222, l: 222, j: 222, f: 278, t: 278, r: 333, m: 833, w: 722, I: 278, W: 944, M: 833 };
+const HELV: Record<string, number> = {
+	' ': 278,
+	'.': 278,
+	',': 278,
+	'-': 333,
+	':': 278,
+	'(': 333,
+	')': 333,
+	i: 222,
+	l: 222,
+	j: 222,
+	f: 278,
+	t: 278,
+	r: 333,
+	m: 833,
+	w: 722,
+	I: 278,
+	W: 944,
+	M: 833
+};
 const width = (ch: string, font: string) => (font === 'F2' ? 600 : (HELV[ch] ?? (/[A-Z]/.test(ch) ? 667 : 556))) / 1000;
 
 function rgb(hex: string): string {
@@ -26,7 +83,18 @@ function rgb(hex: string): string {
 	return [1, 3, 5].map((i) => (parseInt(h.slice(i, i + 2), 16) / 255).toFixed(3)).join(' ');
 }
 const n = (v: number) => (Number.isFinite(v) ? Number(v.toFixed(2)) : 0).toString();
-const pdfString = (bytes: number[]) => '(' + bytes.map((b) => (b === 0x28 || b === 0x29 || b === 0x5c ? '\\' + String.fromCharCode(b) : b < 32 || b > 126 ? '\\' + b.toString(8).padStart(3, '0') : String.fromCharCode(b))).join('') + ')';
+const pdfString = (bytes: number[]) =>
+	'(' +
+	bytes
+		.map((b) =>
+			b === 0x28 || b === 0x29 || b === 0x5c
+				? '\\' + String.fromCharCode(b)
+				: b < 32 || b > 126
+					? '\\' + b.toString(8).padStart(3, '0')
+					: String.fromCharCode(b)
+		)
+		.join('') +
+	')';
 
 /** Splits a run into pieces per font: F1 Helvetica, F3 Helvetica-Oblique, F2 Symbol. */
 function pieces(r: LabelRun): { font: string; bytes: number[]; w: number }[] {
@@ -70,7 +138,12 @@ function textOps(p: Extract<Prim, { t: 'text' }>, H: number): string[] {
 }
 
 function dashOp(dash?: string): string {
-	return dash ? `[${dash.split(/[ ,]+/).map((v) => n(Number(v) * K)).join(' ')}] 0 d` : '[] 0 d';
+	return dash
+		? `[${dash
+				.split(/[ ,]+/)
+				.map((v) => n(Number(v) * K))
+				.join(' ')}] 0 d`
+		: '[] 0 d';
 }
 
 /** The PDF file's bytes. */
@@ -98,13 +171,24 @@ export function scenePdf(s: Scene, title: string): Uint8Array<ArrayBuffer> {
 				break;
 			case 'rect':
 				gs.add(Math.round(p.opacity * 100));
-				ops.push('q', `/A${Math.round(p.opacity * 100)} gs`, `${rgb(p.fill)} rg ${n(p.x * K)} ${n((H - p.y - p.h) * K)} ${n(p.w * K)} ${n(p.h * K)} re f`, 'Q');
+				ops.push(
+					'q',
+					`/A${Math.round(p.opacity * 100)} gs`,
+					`${rgb(p.fill)} rg ${n(p.x * K)} ${n((H - p.y - p.h) * K)} ${n(p.w * K)} ${n(p.h * K)} re f`,
+					'Q'
+				);
 				break;
 			case 'marker': {
 				const r = p.r * 1.3 * K;
 				const x = p.x * K;
 				const y = (H - p.y) * K;
-				ops.push('q', p.clip >= 0 ? clip(p.clip) : '', `${rgb(p.fill)} rg`, `${n(x)} ${n(y + r)} m ${n(x + r)} ${n(y)} l ${n(x)} ${n(y - r)} l ${n(x - r)} ${n(y)} l h f`, 'Q');
+				ops.push(
+					'q',
+					p.clip >= 0 ? clip(p.clip) : '',
+					`${rgb(p.fill)} rg`,
+					`${n(x)} ${n(y + r)} m ${n(x + r)} ${n(y)} l ${n(x)} ${n(y - r)} l ${n(x - r)} ${n(y)} l h f`,
+					'Q'
+				);
 				break;
 			}
 			case 'text':

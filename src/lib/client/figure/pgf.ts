@@ -25,7 +25,11 @@ const coords = (pts: [number, number][], logX: boolean, logY: boolean) => {
 	return lines;
 };
 /** TeX comment text: ASCII only, one line */
-const comment = (s: string) => s.replace(/[^\x20-\x7e]/g, '?').replace(/[\r\n]/g, ' ').slice(0, 160);
+const comment = (s: string) =>
+	s
+		.replace(/[^\x20-\x7e]/g, '?')
+		.replace(/[\r\n]/g, ' ')
+		.slice(0, 160);
 
 export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): string {
 	const colours = new Map<string, string>();
@@ -63,7 +67,11 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 	for (const c of f.curves) {
 		const lines = coords(c.points, f.logX, f.logY);
 		if (!lines.length) continue;
-		body.push(`\\addplot[${dash(c.style.dash)}, line width=${(c.style.width * 0.5).toFixed(2)}pt, color=${use(c.style.stroke)}, no markers] coordinates {`, ...lines, '};');
+		body.push(
+			`\\addplot[${dash(c.style.dash)}, line width=${(c.style.width * 0.5).toFixed(2)}pt, color=${use(c.style.stroke)}, no markers] coordinates {`,
+			...lines,
+			'};'
+		);
 		legend.push(texForPgf(c.legend));
 	}
 	// validity: shaded to each order's l_max with a dashed edge, labelled at staggered heights so none overlap
@@ -102,5 +110,14 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 	const defs = [...colours].map(([name, hex]) => `\\definecolor{${name}}{HTML}{${hex}}`);
 	const picture = [`% ${comment(f.title)} (Bulkpad)`, ...defs, '\\begin{tikzpicture}', ...body, '\\end{tikzpicture}'];
 	if (!opts.standalone) return ['% needs \\usepackage{pgfplots} and \\pgfplotsset{compat=1.16}', ...picture].join('\n') + '\n';
-	return ['\\documentclass{article}', '\\usepackage{pgfplots}', '\\pgfplotsset{compat=1.16}', '\\begin{document}', ...picture, '\\end{document}'].join('\n') + '\n';
+	return (
+		[
+			'\\documentclass{article}',
+			'\\usepackage{pgfplots}',
+			'\\pgfplotsset{compat=1.16}',
+			'\\begin{document}',
+			...picture,
+			'\\end{document}'
+		].join('\n') + '\n'
+	);
 }

@@ -44,7 +44,7 @@ export function withDpi(png: Uint8Array, dpi = PRINT_DPI): Uint8Array<ArrayBuffe
 /** Reads the pHYs dpi back (x axis), or null: for tests and for checking a saved file. */
 export function readDpi(png: Uint8Array): number | null {
 	const v = new DataView(png.buffer, png.byteOffset, png.byteLength);
-	for (let i = 8; i + 8 <= png.length; ) {
+	for (let i = 8; i + 8 <= png.length;) {
 		const len = v.getUint32(i);
 		const type = String.fromCharCode(...png.subarray(i + 4, i + 8));
 		if (type === 'pHYs' && png[i + 16] === 1) return Math.round(v.getUint32(i + 8) * 0.0254);

@@ -97,7 +97,11 @@ export function figureOfTable(t: TableResult, opts: { logX?: boolean; logY?: boo
 		const di = t.columns.indexOf('dataset');
 		const si = t.columns.indexOf('sigma');
 		const errors = si >= 0 ? t.rows.map((r) => num(r[si])) : undefined;
-		markers = { legend: nameTex(t.plot!.dataset ?? 'data'), points: t.rows.map((r) => [num(r[xi]), num(r[di])]), ...(errors ? { errors } : {}) };
+		markers = {
+			legend: nameTex(t.plot!.dataset ?? 'data'),
+			points: t.rows.map((r) => [num(r[xi]), num(r[di])]),
+			...(errors ? { errors } : {})
+		};
 		const fi = t.columns.indexOf('diff');
 		residual = {
 			label: '\\mathrm{data} - \\mathrm{engine}',
@@ -120,7 +124,8 @@ export function figureOfTable(t: TableResult, opts: { logX?: boolean; logY?: boo
 		markers,
 		bands,
 		residual,
-		integerX: xName === 'o' || xName === 'order' || xName === 'k' || (integerValues(xs) && xs.length <= 30 && xs.length > 1 && xName !== 'l'),
+		integerX:
+			xName === 'o' || xName === 'order' || xName === 'k' || (integerValues(xs) && xs.length <= 30 && xs.length > 1 && xName !== 'l'),
 		logX: opts.logX ?? !!t.plot?.log,
 		logY: opts.logY ?? !!t.plot?.log,
 		...(opts.tolerance !== undefined ? { tolerance: opts.tolerance } : {})
@@ -146,7 +151,10 @@ export function figureOfSteps(parts: { step: number; table: TableResult }[], opt
 		residual = one.residual;
 	} else if (curves.length === 2 && sameX(curves[0]!, curves[1]!)) {
 		const [a, b] = curves as [Curve, Curve];
-		residual = { label: `${b.legend} - ${a.legend}`.replace(/\\;/g, '\\,'), points: b.points.map((p, i) => [p[0], p[1] - a.points[i]![1]]) };
+		residual = {
+			label: `${b.legend} - ${a.legend}`.replace(/\\;/g, '\\,'),
+			points: b.points.map((p, i) => [p[0], p[1] - a.points[i]![1]])
+		};
 	}
 	return {
 		title: parts.map((p) => `#${p.step}`).join(', '),
@@ -163,7 +171,9 @@ export function figureOfSteps(parts: { step: number; table: TableResult }[], opt
 }
 
 function sameX(a: Curve, b: Curve): boolean {
-	return a.points.length === b.points.length && a.points.every((p, i) => Math.abs(p[0] - b.points[i]![0]) <= 1e-12 * Math.max(1, Math.abs(p[0])));
+	return (
+		a.points.length === b.points.length && a.points.every((p, i) => Math.abs(p[0] - b.points[i]![0]) <= 1e-12 * Math.max(1, Math.abs(p[0])))
+	);
 }
 
 /** The figure with the user's labels over the defaults (empty edits keep the default). */

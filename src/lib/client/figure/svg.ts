@@ -56,7 +56,9 @@ function prim(p: Prim, ink: string, clipId: (i: number) => string): string {
 export function sceneSvg(s: Scene, opts: { file: boolean; id: string; label: string }): string {
 	const ink = opts.file ? INK_FILE : 'currentColor';
 	const clipId = (i: number) => `${opts.id}-clip${i}`;
-	const clips = s.panels.map((p, i) => `<clipPath id="${clipId(i)}"><rect x="${f2(p.x)}" y="${f2(p.y)}" width="${f2(p.w)}" height="${f2(p.h)}"/></clipPath>`);
+	const clips = s.panels.map(
+		(p, i) => `<clipPath id="${clipId(i)}"><rect x="${f2(p.x)}" y="${f2(p.y)}" width="${f2(p.w)}" height="${f2(p.h)}"/></clipPath>`
+	);
 	const head = opts.file
 		? `<svg xmlns="http://www.w3.org/2000/svg" width="${s.width}" height="${s.height}" viewBox="0 0 ${s.width} ${s.height}" font-family="IBM Plex Mono, DejaVu Sans Mono, monospace">` +
 			`<rect width="100%" height="100%" fill="#ffffff"/>`

@@ -13,14 +13,66 @@ export interface LabelRun {
 }
 
 const GREEK: Record<string, string> = {
-	alpha: 'α', beta: 'β', gamma: 'γ', delta: 'δ', epsilon: 'ε', varepsilon: 'ε', zeta: 'ζ', eta: 'η', theta: 'θ',
-	kappa: 'κ', lambda: 'λ', mu: 'μ', nu: 'ν', xi: 'ξ', pi: 'π', rho: 'ρ', sigma: 'σ', tau: 'τ', phi: 'φ', chi: 'χ',
-	psi: 'ψ', omega: 'ω', Gamma: 'Γ', Delta: 'Δ', Theta: 'Θ', Lambda: 'Λ', Pi: 'Π', Sigma: 'Σ', Phi: 'Φ', Psi: 'Ψ',
-	Omega: 'Ω', ell: 'ℓ', partial: '∂', infty: '∞', chi2: 'χ²'
+	alpha: 'α',
+	beta: 'β',
+	gamma: 'γ',
+	delta: 'δ',
+	epsilon: 'ε',
+	varepsilon: 'ε',
+	zeta: 'ζ',
+	eta: 'η',
+	theta: 'θ',
+	kappa: 'κ',
+	lambda: 'λ',
+	mu: 'μ',
+	nu: 'ν',
+	xi: 'ξ',
+	pi: 'π',
+	rho: 'ρ',
+	sigma: 'σ',
+	tau: 'τ',
+	phi: 'φ',
+	chi: 'χ',
+	psi: 'ψ',
+	omega: 'ω',
+	Gamma: 'Γ',
+	Delta: 'Δ',
+	Theta: 'Θ',
+	Lambda: 'Λ',
+	Pi: 'Π',
+	Sigma: 'Σ',
+	Phi: 'Φ',
+	Psi: 'Ψ',
+	Omega: 'Ω',
+	ell: 'ℓ',
+	partial: '∂',
+	infty: '∞',
+	chi2: 'χ²'
 };
 const SYMBOLS: Record<string, string> = {
-	cdot: '·', times: '×', pm: '±', le: '≤', leq: '≤', ge: '≥', geq: '≥', approx: '≈', to: '→', sim: '∼', propto: '∝',
-	',': ' ', ';': ' ', quad: '  ', '%': '%', '#': '#', _: '_', '&': '&', '{': '{', '}': '}', ' ': ' ', langle: '⟨', rangle: '⟩'
+	cdot: '·',
+	times: '×',
+	pm: '±',
+	le: '≤',
+	leq: '≤',
+	ge: '≥',
+	geq: '≥',
+	approx: '≈',
+	to: '→',
+	sim: '∼',
+	propto: '∝',
+	',': ' ',
+	';': ' ',
+	quad: '  ',
+	'%': '%',
+	'#': '#',
+	_: '_',
+	'&': '&',
+	'{': '{',
+	'}': '}',
+	' ': ' ',
+	langle: '⟨',
+	rangle: '⟩'
 };
 /** Commands whose one argument is shown upright (`\mathrm{fin}`) */
 const UPRIGHT = new Set(['mathrm', 'text', 'textrm', 'operatorname', 'mathsf']);
@@ -98,7 +150,8 @@ export function texForPgf(src: string): string {
 		if (ch === '{') depth++;
 		if (ch === '}' && --depth < 0) balanced = false;
 	}
-	const ok = balanced && depth === 0 && words.every((w) => SAFE_WORDS.has(w)) && !/[$%#&~]/.test(src.replace(/\\[%#&]/g, '')) && src.length <= 200;
+	const ok =
+		balanced && depth === 0 && words.every((w) => SAFE_WORDS.has(w)) && !/[$%#&~]/.test(src.replace(/\\[%#&]/g, '')) && src.length <= 200;
 	if (ok) return `$${src}$`;
 	return src.replace(/[\\{}$&#^_%~]/g, (c) => (c === '\\' ? '\\textbackslash{}' : c === '^' ? '\\^{}' : c === '~' ? '\\~{}' : `\\${c}`));
 }
