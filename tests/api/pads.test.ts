@@ -173,10 +173,14 @@ describe('export', () => {
 		expect(tex).toMatch(/^% Exported from Bulkpad[^\n]*\n\\documentclass\[11pt\]\{article\}/);
 		expect(tex).toContain('\\begin{document}');
 		expect(tex.trimEnd().endsWith('\\end{document}')).toBe(true);
-		for (const s of steps) expect(tex).toContain(`\\subsection*{Step \\#${s.n}}\n\\begin{verbatim}\n${s.input}\n\\end{verbatim}`);
-		expect(tex).toContain('\\begin{tabular}{rrr}');
+		// failed steps are left out of the paper's export, the others keep their numbers
+		for (const s of steps.filter((x) => x.status === 'ok'))
+			expect(tex).toContain(`\\subsection*{Step \\#${s.n}}\n\\begin{verbatim}\n${s.input}\n\\end{verbatim}`);
+		expect(tex).not.toContain(`Step \\#${steps[6].n}}`);
+		expect(tex).toContain('1 failed or hidden step left out');
+		expect(tex).toContain('\\begin{longtable}{rrr}');
 		expect(tex).toContain(`\\[\n${steps[3].results![0].latex}\n\\]`);
-		expect(tex.match(/\\begin\{verbatim\}/g)).toHaveLength(steps.length);
+		expect(tex.match(/\\begin\{verbatim\}/g)).toHaveLength(steps.filter((x) => x.status === 'ok').length);
 	});
 
 	const hasPdflatex = spawnSync('pdflatex', ['--version']).status === 0;

@@ -87,11 +87,11 @@ describe('the console', () => {
 			expect(d).toMatch(/^M[\d.]+,[\d.]+L/);
 		const box = (await plot.locator('svg').boundingBox())!;
 		await page.mouse.move(box.x + box.width * 0.5, box.y + box.height * 0.5);
-		await expect.poll(() => plot.locator('.plot-readout').textContent()).toMatch(/l = [\d.]+.*order 1.*exact/);
-		await plot.getByText('log l').click();
+		await expect.poll(() => plot.locator('.plot-readout').textContent()).toMatch(/ℓ = [\d.]+.*order 1.*exact/);
+		await plot.getByText('log ℓ').click();
 		await expect.poll(() => plot.locator('path.series-path').count()).toBe(4);
 		await screenshot(page, 'console-sweep');
-		await plot.getByText('log l').click();
+		await plot.getByText('log ℓ').click();
 	});
 
 	it('opens the palette with Ctrl-K, filters it, and runs a verb from it', async () => {

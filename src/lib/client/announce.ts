@@ -25,6 +25,8 @@ export function describeResult(r: Result): string {
 			return `${r.label}: a series of ${r.terms.length} terms`;
 		case 'check':
 			return `${r.label}: ${r.pass ? 'holds' : 'fails'}, residual ${formatNumber(r.residual, 3)}`;
+		case 'figure':
+			return `${r.label}: a figure of steps ${r.steps.map((n) => `#${n}`).join(', ')}`;
 		case 'note':
 			return r.text;
 	}

@@ -28,6 +28,8 @@ export { cd, newtonG, entropy } from './units';
 export type { Units } from './units';
 export { gamma, lgamma, rgamma } from './special/gamma';
 export { beta, betaHalfShift } from './special/beta';
+export { gammaP, gammaQ, chi2Sf, chi2Quantile } from './special/gammainc';
+export { minimizeBrent } from './numeric/minimize';
 export * from './analysis';
 export * from './vaidya/index';
 export { staticProfile } from './profile';

@@ -110,6 +110,17 @@ export interface CompareStmt extends Span {
 	keys: KeyValue[];
 	sinks: Word[];
 }
+/** `plot #9 #35 [xlabel="…"] [ylabel="…"]`: one figure overlaying the tables of earlier steps */
+export interface PlotStmt extends Span {
+	type: 'plot';
+	refs: RefExpr[];
+	keys: KeyValue[];
+}
+/** `help [word]` or `?word`: what a verb, bulk, key, sink or statement does */
+export interface HelpStmt extends Span {
+	type: 'help';
+	topic?: Word;
+}
 export interface MacroStmt extends Span {
 	type: 'macro';
 	name: Word;
@@ -125,7 +136,7 @@ export interface LetStmt extends Span {
 	name: Word;
 	body: VerbStmt | CompareStmt | MacroStmt | ArithStmt;
 }
-export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | MacroStmt | ArithStmt | LetStmt;
+export type Statement = UseStmt | UnitsStmt | VerbStmt | CompareStmt | PlotStmt | HelpStmt | MacroStmt | ArithStmt | LetStmt;
 
 export interface Line extends Span {
 	type: 'line';

@@ -7,6 +7,8 @@
 import type * as A from './ast';
 import { evaluateExpr } from './arith';
 import { runCompare } from './compare';
+import { runPlot } from './figure';
+import { runHelp } from './ask';
 import { type LineEnv, type StatementOut, withEngine } from './env';
 import { LangError } from './errors';
 import { describeBulk, texNumber } from './format';
@@ -81,6 +83,10 @@ function runStatement(s: A.Statement, input: string, env: LineEnv): StatementOut
 		case 'compare':
 			requireKnownBulk(s, env);
 			return runCompare(s, env);
+		case 'plot':
+			return runPlot(s, env);
+		case 'help':
+			return runHelp(s);
 		case 'macro':
 			return runMacro(s, input, env, runText);
 		case 'arith':

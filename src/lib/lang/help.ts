@@ -22,6 +22,13 @@ const ENTRIES: HelpEntry[] = [
 	E('statement', 'let', 'keep a result or a number under a name', 'let a0 = darea l=0.4'),
 	E('statement', 'sweep', 'run a verb over a range or list: a table and a plot', 'sweep darea l=0.05..1.2:80 o=1,2,3,exact'),
 	E('statement', 'compare', "a dataset's column against the engine point by point", 'compare mydata darea o=exact'),
+	E(
+		'statement',
+		'plot',
+		"overlay earlier steps' curves on one figure (xlabel=, ylabel= optional); `| plot` after a line plots that line",
+		'plot #2 #3'
+	),
+	E('statement', 'help', 'what a verb, bulk, key, sink or statement does; also ?word', 'help darea'),
 	E('statement', '@macro', 'run an approved macro from the library', '@standard_brane d=5'),
 	E('statement', 'arithmetic', 'numbers, names, #n and #n.field with + - * / ^', '#3 / #2'),
 	E('bulk', 'vacuum', 'pure AdS_{d+1}', 'use vacuum d=3'),

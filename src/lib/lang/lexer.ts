@@ -18,7 +18,8 @@ const SINGLE: Record<string, Tok> = {
 	'/': Tok.Slash,
 	'^': Tok.Caret,
 	'(': Tok.LParen,
-	')': Tok.RParen
+	')': Tok.RParen,
+	'?': Tok.Question
 };
 
 const isDigit = (c: string | undefined): boolean => c !== undefined && c >= '0' && c <= '9';

@@ -49,6 +49,9 @@ const RESERVED: ReadonlySet<string> = new Set<string>([...KEYWORDS, ...CONSTANTS
 /** Words a `let` may not name: the reserved ones and every registered verb (looked up now: the registry can grow). */
 const isNotLetName = (name: string): boolean => RESERVED.has(name) || isVerb(name);
 
+/** Keys whose value must be positive: `0,4` given to one of them is read as a decimal comma. */
+const POSITIVE_KEYS: ReadonlySet<string> = new Set(['l', 'R', 'gap', 'zstar', 'zh', 'zp', 'z0', 'G', 'c', 'N', 'tol']);
+
 /** Keys that would reach Object.prototype when a line's keys become an object. */
 const RESERVED_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);
 
@@ -131,10 +134,11 @@ class Parser {
 		return undefined;
 	}
 
-	/** Statement := UseStmt | UnitsStmt | LetStmt | CompareStmt | MacroStmt | VerbStmt | ArithStmt */
+	/** Statement := UseStmt | UnitsStmt | LetStmt | CompareStmt | PlotStmt | MacroStmt | VerbStmt | ArithStmt */
 	private parseStatement(): A.Statement {
 		const t = this.peek();
 		if (t.kind === Tok.Macro) return this.parseMacro();
+		if (t.kind === Tok.Question) return this.parseHelp();
 		if (t.kind === Tok.Name) {
 			switch (t.text) {
 				case 'use':
@@ -147,6 +151,12 @@ class Parser {
 					return this.parseCompare();
 				case 'sweep':
 					return this.parseVerb();
+				case 'plot':
+					// `plot` is also a sink; as the first word it starts a figure of earlier steps
+					return this.parsePlot();
+				case 'help':
+					if (this.peek(1).kind !== Tok.Equals) return this.parseHelp();
+					break;
 			}
 			if (isVerb(t.text)) return this.parseVerb();
 			const after = this.peek(1);
@@ -206,7 +216,8 @@ class Parser {
 			});
 		}
 		const s = this.parseStatement();
-		if (s.type === 'use' || s.type === 'units' || s.type === 'let') throw new LangError('nothing to keep', s.start, s.end);
+		if (s.type === 'use' || s.type === 'units' || s.type === 'let' || s.type === 'plot' || s.type === 'help')
+			throw new LangError('nothing to keep', s.start, s.end);
 		const body: A.LetStmt['body'] = s;
 		return { type: 'let', name: this.word(n), body, start: kw.start, end: this.lastEnd() };
 	}
@@ -266,6 +277,35 @@ class Parser {
 		const stmt: A.CompareStmt = { type: 'compare', dataset: this.word(d), keys, sinks, start: kw.start, end: this.lastEnd() };
 		if (verb) stmt.verb = verb;
 		return stmt;
+	}
+
+	/** PlotStmt := 'plot' Ref+ KeyValue*   (whole steps only: `#9`, not `#9.T`) */
+	private parsePlot(): A.PlotStmt {
+		const kw = this.next();
+		const refs: A.RefExpr[] = [];
+		while (this.at(Tok.Ref)) {
+			const t = this.next();
+			if (t.field !== undefined) throw new LangError(`plot takes whole steps: #${t.step}, not #${t.step}.${t.field}`, t.start, t.end);
+			if (refs.some((r) => r.step === t.step)) throw new LangError(`step #${t.step} is given twice`, t.start, t.end);
+			if (refs.length >= 8) throw new LangError('a figure overlays at most 8 steps', t.start, t.end);
+			refs.push({ type: 'ref', step: t.step!, start: t.start, end: t.end });
+		}
+		if (!refs.length) throw this.unexpected('the steps to plot, e.g. plot #9 #35', this.peek());
+		const keys = this.parseKeyValues();
+		return { type: 'plot', refs, keys, start: kw.start, end: this.lastEnd() };
+	}
+
+	/** HelpStmt := ('help' | '?') [Name | Macro] */
+	private parseHelp(): A.HelpStmt {
+		const kw = this.next();
+		const t = this.peek();
+		if (t.kind === Tok.Name || t.kind === Tok.Macro) {
+			this.next();
+			const topic = t.kind === Tok.Macro ? { text: `@${t.text}`, start: t.start, end: t.end } : this.word(t);
+			return { type: 'help', topic, start: kw.start, end: t.end };
+		}
+		if (kw.kind === Tok.Question) throw this.unexpected('a word to explain, e.g. ?darea', t);
+		return { type: 'help', start: kw.start, end: kw.end };
 	}
 
 	/** MacroStmt := '@' Name KeyValue* */
@@ -339,7 +379,22 @@ class Parser {
 		if (!this.at(Tok.Equals)) throw this.unexpected(`'=' after key '${k.text}'`);
 		this.next();
 		const value = this.parseValue();
+		this.refuseDecimalComma(k.text, value);
 		return { type: 'kv', key: k.text, keySpan: { start: k.start, end: k.end }, value, start: k.start, end: value.end };
+	}
+
+	/**
+	 * `l=0,4` is a list of 0 and 4, and a width of 0 is never valid: almost surely a decimal comma. Said here,
+	 * pointing at the value, instead of the engine's "l must be > 0 (at l=0)". Only for keys where 0 is
+	 * meaningless and only for `0,<digits>` typed without spaces, so `o=0,2` or `v=0,0.5` still mean lists.
+	 */
+	private refuseDecimalComma(key: string, v: A.Value): void {
+		if (v.type !== 'list' || v.items.length !== 2 || !POSITIVE_KEYS.has(key)) return;
+		const [a, b] = v.items as [A.Item, A.Item];
+		if (a.type !== 'number' || b.type !== 'number' || a.raw !== '0' || !/^\d+$/.test(b.raw) || b.start !== a.end + 1) return;
+		throw new LangError(`${key}=0,${b.raw} is a list of 0 and ${b.raw}: ${key} takes a decimal point`, v.start, v.end, {
+			hint: `write ${key}=0.${b.raw} (a comma separates list items)`
+		});
 	}
 
 	/** Value := Item [ '..' Expr [':' Expr] | (',' Item)+ ] */

@@ -106,6 +106,12 @@ export function printStatement(s: A.Statement): string {
 			if (s.verb) parts.push(s.verb.text);
 			parts.push(...printKeys(s.keys), ...printSinks(s.sinks));
 			break;
+		case 'help':
+			parts.push('help', ...(s.topic ? [s.topic.text] : []));
+			break;
+		case 'plot':
+			parts.push('plot', ...s.refs.map((r) => `#${r.step}`), ...printKeys(s.keys));
+			break;
 		case 'macro':
 			parts.push(`@${s.name.text}`, ...printKeys(s.keys));
 			break;

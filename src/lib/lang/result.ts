@@ -64,6 +64,23 @@ export interface CheckResult {
 	order?: Order;
 	warning?: string;
 	note?: string;
+	/** the relation checked, `lhs side = rhs side` in plain text (e.g. T_ent δΔS = δΔE − μ δΔP_y); residual = lhs − rhs */
+	relation?: string;
+	/** compare: χ² per degree of freedom and its p-value, when the dataset gives per-point errors */
+	chi2dof?: number;
+	pvalue?: number;
+}
+/**
+ * A figure overlaying the tables of earlier steps of the same pad (`plot #9 #35`). It names the steps, not
+ * their numbers: the pad (or transcript) that shows it already holds those tables, and a replay redraws it
+ * from the fresh ones. Labels are LaTeX; absent means the figure's defaults.
+ */
+export interface FigureResult {
+	kind: 'figure';
+	label: string;
+	steps: number[];
+	xlabel?: string;
+	ylabel?: string;
 }
 export interface NoteResult {
 	kind: 'note';
@@ -71,7 +88,7 @@ export interface NoteResult {
 	/** a line that does what the note suggests (the console offers to put it in the input) */
 	fix?: string;
 }
-export type Result = ScalarResult | RecordResult | TableResult | SeriesResult | CheckResult | NoteResult;
+export type Result = ScalarResult | RecordResult | TableResult | SeriesResult | CheckResult | FigureResult | NoteResult;
 
 /** A bulk as the pad keeps it: its name and the parameters given to `use`. */
 export interface BulkState {

@@ -22,6 +22,8 @@ export enum Tok {
 	Star = "'*'",
 	Slash = "'/'",
 	Caret = "'^'",
+	/** `?darea`: help on a word */
+	Question = "'?'",
 	LParen = "'('",
 	RParen = "')'"
 }

@@ -90,6 +90,15 @@ function statementProblem(s: A.Statement, line: number, names: Set<string>): Sco
 			return keysProblem(s.keys, line, names);
 		case 'arith':
 			return exprProblem(s.expr, line, names);
+		case 'plot':
+			// `plot #9 #35` draws earlier steps: inside a macro only its own earlier lines
+			for (const r of s.refs) {
+				const p = exprProblem(r, line, names);
+				if (p) return p;
+			}
+			return keysProblem(s.keys, line, names);
+		case 'help':
+			return null;
 		case 'let': {
 			const p = statementProblem(s.body, line, names);
 			names.add(s.name.text);

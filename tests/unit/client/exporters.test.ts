@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { escapeTex, texNumber, toCsv, toLatexTable, toPgfplots } from '../../../src/lib/client/exporters';
+import { escapeTex, texNumber, toCsv, toLatexTable } from '../../../src/lib/client/exporters';
+import { figureOfTable } from '../../../src/lib/client/figure/spec';
+import { figurePgf } from '../../../src/lib/client/figure/pgf';
 
 const table = {
 	kind: 'table' as const,
@@ -39,13 +41,14 @@ describe('LaTeX', () => {
 	});
 });
 
-describe('toPgfplots', () => {
+describe('figurePgf', () => {
 	it('draws one \\addplot per order column, with log modes and validity', () => {
-		const s = toPgfplots(table, { x: 'l', logX: true, logY: true, validity: { o1: 0.25 } });
+		const f = figureOfTable({ ...table, plot: { x: 'l', validity: { o1: 0.25 } } }, { logX: true, logY: true });
+		const s = figurePgf(f);
 		expect(s.match(/\\addplot\[/g)).toHaveLength(2);
 		expect(s).toContain('xmode=log');
 		expect(s).toContain('ymode=log');
-		expect(s).toContain('\\legend{order 1, exact}');
+		expect(s).toContain('\\legend{{$\\mathrm{order}\\;1$}, {$\\mathrm{exact}$}}');
 		expect(s).toContain('{axis cs:0.25,1}');
 		// a string cell and a missing value are skipped, not plotted as 0
 		expect(s).not.toContain('(0.3,n/a)');

@@ -146,7 +146,10 @@ describe('compare <dataset>', () => {
 		expect(c).toMatchObject({ kind: 'check', pass: true });
 		const out2 = p.run('compare bad darea o=exact');
 		expect(out2.results[1]).toMatchObject({ kind: 'check', pass: false });
-		expect((out2.results[1] as { residual: number }).residual).toBeCloseTo(1e-3, 12);
+		// the residual is relative: the largest |diff|/|engine|, here at the smallest width
+		const worst = Math.max(...ls.map((l) => 1e-3 / Math.abs(holo.deltaArea(b, l))));
+		expect((out2.results[1] as { residual: number }).residual).toBeCloseTo(worst, 12);
+		expect(out2.ref.fields.max_abs_diff).toBeCloseTo(1e-3, 12);
 		expect(p.fail('compare bd').message).toBe("unknown dataset 'bd' — did you mean 'bad'?");
 		expect(p.fail('compare bad').message).toBe('say which quantity to compare: compare <dataset> <verb>, e.g. compare mydata darea');
 		expect(p.fail('compare bad thermo').message).toBe(

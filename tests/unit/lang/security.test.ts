@@ -83,7 +83,7 @@ describe('the language refuses before mathjs sees anything', () => {
 		['f(x) = x', "unknown function 'f'", 'f'],
 		['[1,2]', "Expected a name, number or operator, found '['", '['],
 		['"abc"', "Expected a number, name or '(', found a string", '"abc"'],
-		['1 ? 2 : 3', "Expected a name, number or operator, found '?'", '?'],
+		['1 ? 2 : 3', "Expected ';' or end of line, found '?'", '?'],
 		['sqrt', "unknown name 'sqrt'", 'sqrt'],
 		['import', "unknown name 'import'", 'import'],
 		['constructor', "unknown name 'constructor'", 'constructor'],

@@ -24,7 +24,7 @@ const HOSTILE_LATEX = hostileFormulas();
 
 /** Control words the exporter itself writes around formulas and text. */
 const DOCUMENT_WORDS = new Set(
-	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline'.split(
+	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline IfFileExists newcommand toprule midrule bottomrule endfirsthead endhead endlastfoot multicolumn footnotesize'.split(
 		' '
 	)
 );
@@ -131,12 +131,14 @@ describe('the .tex export of a hostile pad', () => {
 		expect(tex).not.toMatch(/\^\^/);
 		expect(tex.replace(/\\begin\{verbatim\}\n[^\n]*\n\\end\{verbatim\}/g, '')).not.toContain('\\input{');
 		expect(tex).toContain('\\begin{verbatim}\ndarea l=0.3 // \\end {verbatim}\\input{/etc/hostname}\n\\end{verbatim}');
-		expect(tex.match(/\\end\{verbatim\}/g)).toHaveLength(2);
+		// the failed step (with its hostile message) is left out of the export altogether
+		expect(tex.match(/\\end\{verbatim\}/g)).toHaveLength(1);
+		expect(tex).not.toContain('write18{z}');
 	});
 
 	it('uses only the environments it opened itself', () => {
 		const envs = new Set([...tex.matchAll(/\\begin\{([^}]*)\}/g)].map((m) => m[1]));
-		expect([...envs].sort()).toEqual(['center', 'document', 'itemize', 'tabular', 'verbatim']);
+		expect([...envs].sort()).toEqual(['document', 'itemize', 'longtable', 'verbatim']);
 	});
 
 	it('escapes control characters in text fields', () => {

@@ -115,11 +115,32 @@ describe('LaTeX', () => {
 		expect(tex.match(/\\end\{verbatim\}/g)).toHaveLength(1);
 	});
 
-	it('splits a long table into tabulars of 40 rows', () => {
+	it('sets a long table as one booktabs longtable that breaks across pages with its header repeated', () => {
 		const rows = Array.from({ length: 95 }, (_, i) => [i / 100, i]);
 		const tex = renderLatex(doc([ok(1, 'sweep', [{ kind: 'table', label: 't', columns: ['l', 'exact'], rows }])]));
-		expect(tex.match(/\\begin\{tabular\}\{rr\}/g)).toHaveLength(3);
+		expect(tex).toContain('\\usepackage{longtable}');
+		expect(tex.match(/\\begin\{longtable\}\{rr\}/g)).toHaveLength(1);
+		expect(tex).toMatch(/\\toprule\nl & exact \\\\\n\\midrule\n\\endfirsthead\n[^\n]*\n\\toprule\nl & exact \\\\\n\\midrule\n\\endhead/);
+		// 95 rows, the header twice and the continuation line
 		expect(tex.match(/ \\\\\n/g)!.length).toBe(95 + 3);
+	});
+
+	it('leaves out failed and hidden steps, saying how many, and keeps the others numbered', () => {
+		const failed = {
+			n: 2,
+			input: 'darea l=',
+			status: 'error' as const,
+			results: null,
+			error: { message: 'expected a value', start: 8, end: 8 }
+		};
+		const hidden = { ...ok(3, 'darea l=0.2', []), hidden: true };
+		const tex = renderLatex(doc([ok(1, 'darea l=0.1', []), failed, hidden, ok(4, 'darea l=0.3', [])] as never));
+		expect(tex).toContain('2 steps (2 failed or hidden steps left out)');
+		expect(tex).toContain('\\subsection*{Step \\#1}');
+		expect(tex).toContain('\\subsection*{Step \\#4}');
+		expect(tex).not.toContain('Step \\#2');
+		expect(tex).not.toContain('Step \\#3');
+		expect(tex).not.toContain('expected a value');
 	});
 });
 

@@ -113,21 +113,36 @@ function display(latex: string | undefined): string[] {
 const n = (v: unknown) => `$${latexNumber(v)}$`;
 const warnLine = (w?: string) => (w ? [`\\\\\\textit{Warning: ${texText(w)}}`] : []);
 
-/** Tables as tabular, 40 rows a piece so a long sweep breaks across pages instead of running off one. */
+/**
+ * Tables as a booktabs longtable: it breaks across pages and repeats its header on each (a sweep of 80 rows
+ * would otherwise run off one page). The preamble falls back to \hline rules where booktabs is missing.
+ */
 function tabular(columns: string[], rows: (number | string | null)[][]): string[] {
-	const out: string[] = [];
 	const spec = columns.map(() => 'r').join('');
-	for (let i = 0; i < Math.max(rows.length, 1); i += 40) {
-		out.push('\\begin{center}\\small', `\\begin{tabular}{${spec}}`, '\\hline', columns.map(texText).join(' & ') + ' \\\\', '\\hline');
-		for (const row of rows.slice(i, i + 40))
-			out.push(
-				row
-					.slice(0, columns.length)
-					.map((v) => (typeof v === 'string' ? texText(v) : n(v)))
-					.join(' & ') + ' \\\\'
-			);
-		out.push('\\hline', '\\end{tabular}', '\\end{center}');
-	}
+	const head = columns.map(texText).join(' & ') + ' \\\\';
+	const out = [
+		'{\\small',
+		`\\begin{longtable}{${spec}}`,
+		'\\toprule',
+		head,
+		'\\midrule',
+		'\\endfirsthead',
+		`\\multicolumn{${columns.length}}{r}{\\footnotesize (continued)} \\\\`,
+		'\\toprule',
+		head,
+		'\\midrule',
+		'\\endhead',
+		'\\bottomrule',
+		'\\endlastfoot'
+	];
+	for (const row of rows)
+		out.push(
+			row
+				.slice(0, columns.length)
+				.map((v) => (typeof v === 'string' ? texText(v) : n(v)))
+				.join(' & ') + ' \\\\'
+		);
+	out.push('\\end{longtable}', '}');
 	return out;
 }
 
@@ -151,37 +166,53 @@ function renderResult(r: Result): string[] {
 			return [`\\item \\textbf{${texText(r.label)}} (${r.rows.length} rows)`, ...warnLine(r.warning), ...tabular(r.columns, r.rows)];
 		case 'series':
 			return [`\\item \\textbf{${texText(r.label)}} (series, ${r.terms.length} terms)`, ...warnLine(r.warning), ...display(r.latex)];
-		case 'check':
+		case 'check': {
+			const relation = typeof r.relation === 'string' ? [`\\\\relation: ${texText(r.relation)}`] : [];
+			const chi = typeof r.chi2dof === 'number' ? `; $\\chi^2/\\mathrm{dof}$ $=$ ${n(r.chi2dof)}, $p$ $=$ ${n(r.pvalue)}` : '';
 			return [
-				`\\item \\textbf{${texText(r.label)}}: ${r.pass ? 'holds' : 'fails'}; lhs $=$ ${n(r.lhs)}, rhs $=$ ${n(r.rhs)}, residual $=$ ${n(r.residual)} (tolerance ${n(r.tolerance)})`,
+				`\\item \\textbf{${texText(r.label)}}: ${r.pass ? 'holds' : 'fails'}; lhs $=$ ${n(r.lhs)}, rhs $=$ ${n(r.rhs)}, residual $=$ ${n(r.residual)} (tolerance ${n(r.tolerance)})${chi}`,
+				...relation,
 				...warnLine(r.warning)
 			];
+		}
+		case 'figure':
+			return [`\\item \\textbf{${texText(r.label)}}: a figure overlaying the tables of steps ${r.steps.map((n) => `\\#${n}`).join(', ')}`];
 		case 'note':
 			return [`\\item ${texText(r.text)}`];
 	}
 }
 
-/** The pad as a compilable pdfLaTeX article (standard packages only): each step verbatim, then its results. */
+/** A step the paper leaves out: one that failed or was not evaluated, or one the pad hides. */
+function leftOut(s: PadDocument['steps'][number]): boolean {
+	return s.status !== 'ok' || (s as { hidden?: unknown }).hidden === true;
+}
+
+/**
+ * The pad as a compilable pdfLaTeX article (longtable and amsmath from the base distribution; booktabs when
+ * installed): each evaluated step verbatim, then its results. Failed, unfinished and hidden steps are left
+ * out and counted in the opening line; the kept steps keep their numbers, so #n references still read right.
+ */
 export function renderLatex(doc: PadDocument, meta: { owner?: string; exportedAt?: Date } = {}): string {
+	const kept = doc.steps.filter((s) => !leftOut(s));
+	const dropped = doc.steps.length - kept.length;
 	const out = [
 		'% Exported from Bulkpad. Compile with pdflatex.',
 		'\\documentclass[11pt]{article}',
 		'\\usepackage[T1]{fontenc}',
 		'\\usepackage[utf8]{inputenc}',
 		'\\usepackage{amsmath,amssymb}',
+		'\\usepackage{longtable}',
+		'\\IfFileExists{booktabs.sty}{\\usepackage{booktabs}}{\\newcommand{\\toprule}{\\hline}\\newcommand{\\midrule}{\\hline}\\newcommand{\\bottomrule}{\\hline}}',
 		`\\title{${texText(doc.title)}}`,
 		`\\author{${texText(meta.owner ?? '')}}`,
 		`\\date{${meta.exportedAt ? meta.exportedAt.toISOString().slice(0, 10) : ''}}`,
 		'\\begin{document}',
 		'\\maketitle',
-		`\\noindent Bulkpad pad; bulk now \\texttt{${texText(bulkText(doc.bulk))}}; ${doc.steps.length} steps.`
+		`\\noindent Bulkpad pad; bulk now \\texttt{${texText(bulkText(doc.bulk))}}; ${kept.length} steps${dropped ? ` (${dropped} failed or hidden ${dropped === 1 ? 'step' : 'steps'} left out)` : ''}.`
 	];
-	for (const s of doc.steps) {
+	for (const s of kept) {
 		out.push('', `\\subsection*{Step \\#${s.n}}`, '\\begin{verbatim}', verbatimLine(s.input), '\\end{verbatim}');
-		const items =
-			s.status === 'ok'
-				? (s.results ?? []).flatMap(renderResult)
-				: [`\\item ${s.status === 'error' ? 'Error: ' + texText(s.error?.message ?? 'unknown') : 'Not evaluated.'}`];
+		const items = (s.results ?? []).flatMap(renderResult);
 		if (items.length) out.push('\\begin{itemize}', ...items, '\\end{itemize}');
 	}
 	out.push('', '\\end{document}', '');

@@ -88,6 +88,8 @@ function renderResult(r: Results[number]): string[] {
 				`- **${inline(r.label)}**: ${r.pass ? 'holds' : 'fails'} — lhs = ${cell(r.lhs)}, rhs = ${cell(r.rhs)}, residual = ${cell(r.residual)} (tolerance ${cell(r.tolerance)})`,
 				...warn(r.warning)
 			];
+		case 'figure':
+			return [`- **${inline(r.label)}**: a figure overlaying the tables of steps ${r.steps.map((n) => `#${n}`).join(', ')}`];
 		case 'note':
 			return [`- ${inline(r.text)}`];
 	}

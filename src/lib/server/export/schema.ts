@@ -77,7 +77,17 @@ export const resultSchema = z.discriminatedUnion('kind', [
 		residual: num,
 		tolerance: num,
 		order: order.optional(),
-		warning
+		warning,
+		relation: z.string().max(500).optional(),
+		chi2dof: num.optional(),
+		pvalue: num.optional()
+	}),
+	shape({
+		kind: z.literal('figure'),
+		label,
+		steps: z.array(z.number().int().positive()).min(1).max(8),
+		xlabel: z.string().max(200).optional(),
+		ylabel: z.string().max(200).optional()
 	}),
 	shape({ kind: z.literal('note'), text: z.string().max(5000) })
 ]);
