@@ -4,7 +4,7 @@
  */
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import type { ConnectionOptions } from 'bullmq';
+import type { RedisOptions } from 'ioredis';
 
 function intFrom(name: string, fallback: number): number {
 	const raw = process.env[name];
@@ -15,7 +15,7 @@ function intFrom(name: string, fallback: number): number {
 export const fleetSettings = {
 	/** `redis://host:port[/db]`: fleet mode on; unset: everything in-process, as before */
 	url: process.env.BULKPAD_QUEUE ?? '',
-	/** chunks a split sweep aims for (more chunks than workers, so a slow or lost chunk costs little) */
+	/** most chunks a split sweep is cut into (fewer with a small fleet: two per heavy process) */
 	chunks: intFrom('BULKPAD_FLEET_CHUNKS', 16),
 	/**
 	 * How long a worker's lock on a job lasts without renewal: a worker that dies mid-job is noticed after about
@@ -24,8 +24,8 @@ export const fleetSettings = {
 	lockMs: intFrom('BULKPAD_FLEET_LOCK_MS', 10_000)
 };
 
-/** BullMQ's connection options from a `redis://` address (ioredis would take the URL, but BullMQ wants options). */
-export function connectionFrom(url: string): ConnectionOptions {
+/** Connection options (ioredis's, which BullMQ takes too) from a `redis://` address. */
+export function connectionFrom(url: string): RedisOptions {
 	const u = new URL(url);
 	if (u.protocol !== 'redis:') throw new Error(`BULKPAD_QUEUE must be redis://host:port, not ${u.protocol}`);
 	const db = u.pathname.length > 1 ? Number(u.pathname.slice(1)) : 0;
