@@ -7,6 +7,7 @@ import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { Queue } from 'bullmq';
 import { freePort } from '../../scripts/free-port.mjs';
+import { emptyContext, runLine } from '../../src/lib/lang';
 import { codeVersion, queueNames } from '../../src/lib/server/eval/fleet/config';
 import { Client, DEMO_PASSWORD, signedIn } from '../helpers/client';
 import { startPrivateServer, type PrivateServer } from './support/server';
@@ -22,14 +23,17 @@ if (!HAVE_REDIS) {
 const WORKER_BUNDLE = process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs';
 /** short locks, so a killed worker's chunk goes back to the queue within seconds */
 const LOCK_MS = '3000';
-/** 16 exact ball surfaces: seconds of work, cut into chunks of four points */
-const SWEEP = 'sweep darea ball R=0.1..0.3:16';
+/** a heavy line (a sweep) that is cheap, so the in-process test server answers it within its budget however busy */
+const STRIP_SWEEP = 'sweep darea l=0.1..3:400';
+/** 12 exact ball surfaces: seconds of work, cut into three chunks of four points */
+const SWEEP = 'sweep darea ball R=0.1..0.3:12';
 /** minutes of work: never finishes within a test, so it can only stop by being cancelled */
 const ENDLESS = 'sweep darea ball R=0.1..2:2000';
 
 interface Proc {
 	child: ChildProcess;
 	log: string;
+	dead?: boolean;
 }
 
 let redisPort = 0;
@@ -54,6 +58,7 @@ function startWorker(): Proc {
 }
 
 function killGroup(p: Proc) {
+	p.dead = true;
 	try {
 		process.kill(-p.child.pid!, 'SIGKILL');
 	} catch {
@@ -105,7 +110,7 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		redis?.kill('SIGKILL');
 	});
 
-	let inProcess: unknown;
+	const logs = () => workers.map((w, i) => `worker ${i}:\n${w.log}`).join('\n');
 
 	it('health keeps {ok, db} and says the lines go to the fleet', async () => {
 		expect(await health()).toEqual({ ok: true, db: 'ok', queue: 'fleet' });
@@ -120,35 +125,43 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		}
 	});
 
-	it('splits a sweep across both workers and answers the in-process numbers bit for bit', async () => {
-		const before = workers.map((w) => started(w).length);
-		const [a, b] = await Promise.all([fleet.post('/api/eval', { input: SWEEP }), local.post('/api/eval', { input: SWEEP })]);
+	it('splits a sweep into chunks and answers what the in-process server answers, bit for bit', async () => {
+		const count = () => workers.reduce((n, w) => n + started(w).length, 0);
+		const before = count();
+		const [a, b] = await Promise.all([fleet.post('/api/eval', { input: STRIP_SWEEP }), local.post('/api/eval', { input: STRIP_SWEEP })]);
 		expect(a.status, JSON.stringify(a.body)).toBe(200);
-		expect(b.status).toBe(200);
+		expect(b.status, JSON.stringify(b.body)).toBe(200);
 		// JSON numbers print every bit of a double: equal text is equal doubles
 		expect(JSON.stringify(a.body.results)).toBe(JSON.stringify(b.body.results));
-		expect(a.body.results[0].rows).toHaveLength(16);
-		// four chunks (two per worker's heavy process): each worker ran at least one of them
-		workers.forEach((w, i) => expect(started(w).length, w.log).toBeGreaterThan(before[i]!));
-		inProcess = b.body.results;
+		expect(a.body.results[0].rows).toHaveLength(400);
+		// four chunks: two per heavy process of the two workers
+		expect(count() - before, logs()).toBe(4);
 	}, 300_000);
 
-	it('completes the sweep when a worker is killed in the middle of it', async () => {
-		const [victim] = workers;
+	it('completes a ball sweep when a worker is killed in the middle of it, with the in-process numbers', async () => {
+		const [victim, survivor] = workers;
 		const before = started(victim!).length;
+		const survivorBefore = started(survivor!).length;
 		const answer = fleet.post('/api/eval', { input: SWEEP });
 		await expect.poll(() => started(victim!).length, { timeout: 120_000, interval: 50 }).toBeGreaterThan(before);
 		killGroup(victim!);
+		// the language itself, in this process: what in-process evaluation answers
+		const reference = runLine(SWEEP, emptyContext()).results;
 		const a = await answer;
 		expect(a.status, JSON.stringify(a.body)).toBe(200);
-		expect(JSON.stringify(a.body.results)).toBe(JSON.stringify(inProcess));
-		// a replacement, so the next test has two workers again
-		const fresh = startWorker();
-		await expect.poll(() => ready(fresh), { timeout: 120_000, interval: 250 }).toBe(true);
+		expect(JSON.stringify(a.body.results)).toBe(JSON.stringify(reference));
+		// the survivor ran the lost chunk as well as its own
+		expect(started(survivor!).length - survivorBefore, logs()).toBeGreaterThanOrEqual(2);
 	}, 300_000);
 
 	it('cancel stops the chunks on both workers', async () => {
-		const live = workers.slice(-2);
+		// two live workers (a replacement for the one killed above), both known to the server
+		while (workers.filter((w) => !w.dead).length < 2) startWorker();
+		const live = workers.filter((w) => !w.dead);
+		await expect.poll(() => live.every(ready), { timeout: 120_000, interval: 250 }).toBe(true);
+		await new Promise((r) => setTimeout(r, 3000)); // a heartbeat or two
+		// the fleet takes a heavy line again (and has forgotten the killed worker)
+		expect((await fleet.post('/api/eval', { input: STRIP_SWEEP })).status).toBe(200);
 		const before = live.map((w) => started(w).length);
 		const hangUp = new AbortController();
 		const pending = fetch(`${server!.baseUrl}/api/eval`, {
@@ -158,22 +171,25 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 			signal: hangUp.signal
 		}).catch(() => undefined);
 		for (const [i, w] of live.entries()) {
-			await expect.poll(() => started(w).length, { timeout: 120_000, interval: 100 }).toBeGreaterThan(before[i]!);
+			await expect.poll(() => started(w).length, { timeout: 120_000, interval: 100, message: logs() }).toBeGreaterThan(before[i]!);
 		}
 		const running = live.map((w) => started(w).slice(-1)[0]!);
 		hangUp.abort();
 		await pending;
 		for (const [i, w] of live.entries()) {
-			await expect.poll(() => cancelledJobs(w), { timeout: 60_000, interval: 100 }).toContain(running[i]);
+			await expect.poll(() => cancelledJobs(w), { timeout: 60_000, interval: 100, message: logs() }).toContain(running[i]);
 		}
 		// nothing of the sweep is left running or waiting on the fleet
 		const q = new Queue(queueNames(codeVersion(WORKER_BUNDLE)).heavy, { connection: { host: '127.0.0.1', port: redisPort } });
 		try {
 			await expect
-				.poll(async () => {
-					const c = await q.getJobCounts('active', 'waiting', 'prioritized', 'delayed');
-					return c.active + c.waiting + c.prioritized + c.delayed;
-				}, { timeout: 60_000, interval: 200 })
+				.poll(
+					async () => {
+						const c = await q.getJobCounts('active', 'waiting', 'prioritized', 'delayed');
+						return c.active + c.waiting + c.prioritized + c.delayed;
+					},
+					{ timeout: 60_000, interval: 200 }
+				)
 				.toBe(0);
 		} finally {
 			await q.close();
@@ -189,7 +205,9 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 			const job = await q.add('eval', { version: '0123456789abcdef', payload: '' });
 			await expect.poll(() => job.getState(), { timeout: 60_000, interval: 200 }).toBe('failed');
 			const failed = await q.getJob(job.id!);
-			expect(failed?.failedReason).toMatch(/^refused: this worker runs code version [0-9a-f]{16}, the job was made by version 0123456789abcdef$/);
+			expect(failed?.failedReason).toMatch(
+				/^refused: this worker runs code version [0-9a-f]{16}, the job was made by version 0123456789abcdef$/
+			);
 		} finally {
 			await q.close();
 		}
@@ -199,7 +217,10 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		redis!.kill('SIGKILL');
 		await expect.poll(async () => (await health()).queue, { timeout: 60_000, interval: 250 }).toBe('fallback: redis unreachable');
 		expect((await health()).ok).toBe(true);
-		const [a, b] = await Promise.all([fleet.post('/api/eval', { input: 'darea l=0.45' }), local.post('/api/eval', { input: 'darea l=0.45' })]);
+		const [a, b] = await Promise.all([
+			fleet.post('/api/eval', { input: 'darea l=0.45' }),
+			local.post('/api/eval', { input: 'darea l=0.45' })
+		]);
 		expect(a.status, JSON.stringify(a.body)).toBe(200);
 		expect(a.body.results).toEqual(b.body.results);
 	}, 120_000);

@@ -30,8 +30,7 @@ describe('a split sweep merges to the whole line exactly', () => {
 		['sweep thermo zh=0.5..2:40', emptyContext()],
 		['sweep darea zh=0.5..3:33 l=1 | plot', emptyContext()],
 		['sweep mu l=0.2..2:24', BOOSTED],
-		['sweep darea v=-0.8..0.8:30 l=0.7', BOOSTED],
-		['sweep darea ball R=0.1..0.3:8', emptyContext()]
+		['sweep darea v=-0.8..0.8:30 l=0.7', BOOSTED]
 	])('%s', (input, ctx) => {
 		const { chunks, whole, merged } = wholeAndMerged(input, ctx);
 		expect(chunks.length).toBeGreaterThan(1);

@@ -38,7 +38,10 @@ interface FleetSlot {
 }
 
 function failure(input: string, message: string, code: 'limit' | 'busy' | 'internal', hint?: string): EvalAnswer {
-	return { ok: false, error: { message, start: 0, end: input.length, code, ...(hint ? { hint } : {}), ...(code === 'busy' ? { retryAfter: 2 } : {}) } };
+	return {
+		ok: false,
+		error: { message, start: 0, end: input.length, code, ...(hint ? { hint } : {}), ...(code === 'busy' ? { retryAfter: 2 } : {}) }
+	};
 }
 
 export interface FleetRunnerOptions {
@@ -90,14 +93,22 @@ export class FleetRunner implements Runner {
 				try {
 					answer = decode<FleetAnswer>(text);
 				} catch {
-					return this.settle(jobId, (w) => ({ answer: failure(w.input, 'evaluation failed: a worker answered garbage', 'internal'), runMs: 0 }));
+					return this.settle(jobId, (w) => ({
+						answer: failure(w.input, 'evaluation failed: a worker answered garbage', 'internal'),
+						runMs: 0
+					}));
 				}
 				this.settle(jobId, () => answer);
 			});
 			ev.on('failed', ({ jobId, failedReason }) =>
 				this.settle(jobId, (w) => ({
 					answer: /stalled/i.test(failedReason)
-						? failure(w.input, 'evaluation stopped: the workers running it stopped twice', 'limit', 'a worker died or was restarted while evaluating this line; try again')
+						? failure(
+								w.input,
+								'evaluation stopped: the workers running it stopped twice',
+								'limit',
+								'a worker died or was restarted while evaluating this line; try again'
+							)
 						: failure(w.input, `evaluation failed on a worker: ${failedReason}`, 'internal'),
 					runMs: 0
 				}))
@@ -142,7 +153,8 @@ export class FleetRunner implements Runner {
 		if (next !== 'fleet' && this.waiters.size) {
 			// nobody will answer these: say so now (the next try runs in-process) rather than at a timeout
 			const why = next === 'unreachable' ? 'the evaluation fleet is unreachable' : 'the evaluation fleet has no worker running';
-			for (const id of [...this.waiters.keys()]) this.settle(id, (w) => ({ answer: failure(w.input, `evaluation not finished: ${why}; try again`, 'busy'), runMs: 0 }));
+			for (const id of [...this.waiters.keys()])
+				this.settle(id, (w) => ({ answer: failure(w.input, `evaluation not finished: ${why}; try again`, 'busy'), runMs: 0 }));
 		}
 		if (next === 'fleet' || was !== next) this.notify();
 	}
@@ -209,9 +221,14 @@ export class FleetRunner implements Runner {
 				})
 			);
 			if (job.signal?.aborted) return { answer: failure(job.input, 'evaluation cancelled', 'limit'), runMs: performance.now() - t0 };
-			const failed = answers.find((a) => !a.answer.ok && !/^evaluation cancelled/.test((a.answer as { error: { message: string } }).error.message));
+			const failed = answers.find(
+				(a) => !a.answer.ok && !/^evaluation cancelled/.test((a.answer as { error: { message: string } }).error.message)
+			);
 			if (failed && failed.answer.ok === false && failed.answer.error.code !== 'language') {
-				return { answer: { ...failed.answer, error: { ...failed.answer.error, start: 0, end: job.input.length } }, runMs: performance.now() - t0 };
+				return {
+					answer: { ...failed.answer, error: { ...failed.answer.error, start: 0, end: job.input.length } },
+					runMs: performance.now() - t0
+				};
 			}
 			const merged = failed ? undefined : mergeChunks(answers.map((a) => (a.answer.ok ? a.answer.outcome : undefined!)));
 			if (merged) return { answer: { ok: true, outcome: merged }, runMs: performance.now() - t0 };
@@ -224,12 +241,7 @@ export class FleetRunner implements Runner {
 	}
 
 	/** One job on the fleet, answered when a worker finishes it, it fails, or it is cancelled. */
-	private one(
-		payload: FleetPayload,
-		heavy: boolean,
-		priority: number,
-		job: Pick<PoolJob, 'signal' | 'onProgress'>
-	): Promise<PoolAnswer> {
+	private one(payload: FleetPayload, heavy: boolean, priority: number, job: Pick<PoolJob, 'signal' | 'onProgress'>): Promise<PoolAnswer> {
 		return new Promise((done) => {
 			if (job.signal?.aborted) return done({ answer: failure(payload.input, 'evaluation cancelled', 'limit'), runMs: 0 });
 			const jobId = randomUUID();
@@ -251,7 +263,10 @@ export class FleetRunner implements Runner {
 			this.queues[heavy ? 'heavy' : 'light']
 				.add('eval', data, { jobId, ...(heavy ? { priority } : {}), removeOnComplete: true, removeOnFail: true })
 				.catch((e: Error) =>
-					this.settle(jobId, (w) => ({ answer: failure(w.input, `evaluation not started: the fleet refused it (${e.message})`, 'busy'), runMs: 0 }))
+					this.settle(jobId, (w) => ({
+						answer: failure(w.input, `evaluation not started: the fleet refused it (${e.message})`, 'busy'),
+						runMs: 0
+					}))
 				);
 		});
 	}
@@ -292,10 +307,12 @@ export class FleetRunner implements Runner {
 		}
 	}
 
+	/** At shutdown: drops the connections at once (a graceful close would wait for a Redis that may be gone). */
 	async close(): Promise<void> {
 		this.closed = true;
 		clearInterval(this.poll);
-		await Promise.allSettled([...Object.values(this.queues).map((q) => q.close()), ...this.events.map((e) => e.close()), this.redis.quit()]);
+		this.redis.disconnect();
+		await Promise.allSettled([...Object.values(this.queues), ...this.events].map((q) => q.disconnect()));
 	}
 }
 

@@ -35,7 +35,11 @@ const version = codeVersion(WORKER_FILE);
 const names = queueNames(version);
 const processes = Math.max(1, evalSettings.processes);
 const id = `${hostname()}:${process.pid}`;
-const pool = new ProcessPool(processes, { file: WORKER_FILE, memoryMb: evalSettings.memoryMb, datasetCacheBytes: evalSettings.datasetCacheBytes });
+const pool = new ProcessPool(processes, {
+	file: WORKER_FILE,
+	memoryMb: evalSettings.memoryMb,
+	datasetCacheBytes: evalSettings.datasetCacheBytes
+});
 
 /**
  * Runs a job on a free process of its kind, or once one is free (only with one process, or while a killed one
@@ -43,7 +47,7 @@ const pool = new ProcessPool(processes, { file: WORKER_FILE, memoryMb: evalSetti
  */
 const waitingForSlot: { heavy: boolean; start: (s: Slot) => void }[] = [];
 pool.onIdle(() => {
-	for (let i = 0; i < waitingForSlot.length; ) {
+	for (let i = 0; i < waitingForSlot.length;) {
 		const slot = pool.take(waitingForSlot[i]!.heavy);
 		if (!slot) i++;
 		else waitingForSlot.splice(i, 1)[0]!.start(slot);
