@@ -47,70 +47,42 @@
  * by the extremality formula above. No bulk here is both boosted and charged, so there is no three-term law.
  */
 import { HoloError } from './errors';
+import { MAX_ASKED_ORDER } from './limits';
 import { solveStrip } from './strip';
 import { areaParameterDerivative } from './dparam';
 import { boostedCoeffPolys, seriesCoeffs } from './series/index';
-import { chargeCoupling } from './bulks/charged';
-import type { Bulk, SeriesCoeff } from './types';
+import type { Bulk, FirstLawFamily, SeriesCoeff, SliceVariation } from './types';
 
 export type Order = number | 'exact';
+type Family = FirstLawFamily;
 
-/** Where a bulk sits in the (w, q) family, or the charged brane's (w, charge) form. */
-interface Family {
-	kind: 'static' | 'boosted' | 'wave' | 'charged';
-	d: number;
-	w: number;
-	q: number;
-	/** sign of v (ζ flips with it) */
-	sign: number;
-	/** series variable's length: zh, or zp for the wave */
-	scale: number;
-	zh?: number;
-	q2?: number;
-	/** charged: the charge parameter q of f (its sign is μ_Q's) */
-	charge?: number;
-}
-
+/** The bulk's first-law family (its parameters, slopes and slice variations live on the bulk). */
 function familyOf(bulk: Bulk): Family {
-	const d = bulk.d;
-	const p = bulk.params as Record<string, number>;
-	switch (bulk.name) {
-		case 'brane':
-			return { kind: 'static', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh };
-		case 'boosted': {
-			const w = Math.pow(p.zh, -d);
-			const kind = p.v === 0 ? 'static' : 'boosted';
-			return { kind, d, w, q: p.kappa * w, sign: Math.sign(p.v) || 1, scale: p.zh, zh: p.zh };
-		}
-		case 'wave':
-			return { kind: 'wave', d, w: 0, q: Math.pow(p.zp, -d), sign: 1, scale: p.zp };
-		case 'charged':
-			if (d === 2) return { kind: 'static', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh };
-			return { kind: 'charged', d, w: Math.pow(p.zh, -d), q: 0, sign: 1, scale: p.zh, zh: p.zh, q2: p.q2 as number, charge: p.q as number };
-		default:
-			throw new HoloError(`the first law is defined here for brane, boosted, wave and charged, not ${bulk.name}`, 'bulk');
+	if (!bulk.firstLaw) {
+		throw new HoloError(`the first law is defined here for brane, boosted, wave and charged, not ${bulk.name}`, 'bulk');
 	}
+	return bulk.firstLaw;
 }
 
 function checkOrder(order: Order): void {
 	if (order === 'exact') return;
-	if (!Number.isInteger(order) || order < 1 || order > 12) {
-		throw new HoloError('order must be an integer 1…12 or exact', 'o', order === 0 ? 'order 0 is the vacuum: ΔS = 0' : undefined);
+	if (!Number.isInteger(order) || order < 1 || order > MAX_ASKED_ORDER) {
+		throw new HoloError(
+			`order must be an integer 1…${MAX_ASKED_ORDER} or exact`,
+			'o',
+			order === 0 ? 'order 0 is the vacuum: ΔS = 0' : undefined
+		);
 	}
 }
 
 // the extremality integral ∂_λ A at fixed l lives in dparam.ts, shared with dAreaDParam
 export { areaParameterDerivative };
 
-/** Exact ∂ΔA/∂w and ∂ΔA/∂q (the vacuum part does not depend on w, q). */
-function exactGradient(bulk: Bulk, l: number): { Aw: number; Aq: number; zstar: number } {
-	const d = bulk.d;
+/** Exact ∂ΔA/∂w and ∂ΔA/∂q by extremality, from the family's slice variations (the vacuum part does not move). */
+function exactGradient(bulk: Bulk, F: Family, l: number): { Aw: number; Aq: number } {
 	const sol = solveStrip(bulk.slice, l);
-	const sc = bulk.slice.scale ?? 1;
-	const zd = Math.pow(sc, d);
-	const Aw = areaParameterDerivative(bulk.slice, sol.point, [{ c: -zd, p: d }], []);
-	const Aq = areaParameterDerivative(bulk.slice, sol.point, [], [{ c: zd, p: d }]);
-	return { Aw, Aq, zstar: sol.zstar };
+	const along = (v: SliceVariation) => (v.df.length || v.dh.length ? areaParameterDerivative(bulk.slice, sol.point, v.df, v.dh) : 0);
+	return { Aw: along(F.variations.w), Aq: along(F.variations.q) };
 }
 
 /** c_kj = coefficient of κ^j in a_k(κ), rows k = 1…n (core's closed-form boosted coefficients). */
@@ -118,28 +90,6 @@ export function coefficientTable(d: number, n: number): number[][] {
 	const rows = boostedCoeffPolys(d, n);
 	if (rows.length < n) throw new HoloError(`series coefficients missing beyond order ${rows.length}`, 'o');
 	return rows.slice(0, n);
-}
-
-/**
- * Per-family constants: ê = l(E1 δw + E2 δq), p̂ = l(P1 δw + P2 δq) at the bulk's point. Charged: q is the
- * charge parameter and p̂ the charge 16πG ΔQ = l ρ̂, ρ̂ = 2(d−1) q w^{(d−1)/d}/g_d (module comment).
- */
-function energyMomentumSlopes(F: Family): { E1: number; E2: number; P1: number; P2: number } {
-	const d = F.d;
-	if (F.kind === 'wave') return { E1: d - 1, E2: d, P1: d / 2, P2: d };
-	if (F.kind === 'charged') {
-		const q = F.charge as number;
-		const g = chargeCoupling(d);
-		const wr = Math.pow(F.w, (d - 1) / d);
-		return {
-			E1: (d - 1) * (1 + q * q),
-			E2: 2 * (d - 1) * q * F.w,
-			P1: (2 * (d - 1) * q * (d - 1) * wr) / (d * g * F.w),
-			P2: (2 * (d - 1) * wr) / g
-		};
-	}
-	const root = Math.sqrt(F.q * (F.q + F.w));
-	return { E1: d - 1, E2: d, P1: root > 0 ? (d * F.q) / (2 * root) : 0, P2: root > 0 ? (d * (2 * F.q + F.w)) / (2 * root) : Infinity };
 }
 
 export interface FirstLawSeries {
@@ -181,7 +131,7 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	const F = familyOf(bulk);
 	if (F.kind === 'charged') return chargedSeries(bulk, F, l, n);
 	// static bulks need only a_k(0) = c_k0, which core also serves at d = 2 (BTZ closed form)
-	const c = F.kind === 'static' ? seriesCoeffs(bulk, n).map((t) => [t.value]) : coefficientTable(F.d, n);
+	const c = F.kind === 'static' ? seriesCoeffs(bulk, n).map((t) => [t.value]) : coefficientTable(bulk.d, n);
 	const kappa = F.kind === 'wave' ? Infinity : F.w > 0 ? F.q / F.w : 0;
 	const W: number[] = [];
 	const Q: number[] = [];
@@ -201,7 +151,7 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 			Q.push(sq);
 		}
 	}
-	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const { E1, E2, P1, P2 } = F.slopes;
 	let alpha: number[];
 	let zeta: number[];
 	if (F.kind === 'static') {
@@ -214,7 +164,7 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
 	}
 	const tent = reciprocalSeries(alpha);
 	const mu = multiplySeries(zeta, tent).map((v) => -v);
-	const x = Math.pow(l / F.scale, F.d);
+	const x = Math.pow(l / F.scale, bulk.d);
 	const terms = seriesCoeffs(bulk, n);
 	return { x, variable: F.kind === 'wave' ? '(l/z_p)^d' : '(l/z_h)^d', alpha, zeta, tent, mu, W, Q, terms };
 }
@@ -224,7 +174,7 @@ export function firstLawSeries(bulk: Bulk, l: number, n: number): FirstLawSeries
  * ∂_q c_K = 2q Σ_j j p_j (q²)^{j−1} from the q²-polynomial of c_K; α, β (here `zeta`) solved as for the boost.
  */
 function chargedSeries(bulk: Bulk, F: Family, l: number, n: number): FirstLawSeries {
-	const d = F.d;
+	const d = bulk.d;
 	const q = F.charge as number;
 	const q2 = q * q;
 	const terms = seriesCoeffs(bulk, n);
@@ -238,7 +188,7 @@ function chargedSeries(bulk: Bulk, F: Family, l: number, n: number): FirstLawSer
 		for (let j = poly.length - 1; j >= 1; j--) dq = dq * q2 + j * poly[j];
 		Q[i] += F.w * 2 * q * dq;
 	}
-	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const { E1, E2, P1, P2 } = F.slopes;
 	const D = E1 * P2 - E2 * P1;
 	const alpha = W.map((x, i) => ((4 * Math.PI) / D) * (x * P2 - Q[i] * P1));
 	const zeta = W.map((x, i) => ((4 * Math.PI) / D) * (E1 * Q[i] - E2 * x));
@@ -270,7 +220,7 @@ function multiplySeries(a: number[], b: number[]): number[] {
 
 const sumSeries = (a: number[], x: number) => a.reduce((s, v, i) => s + v * Math.pow(x, i), 0);
 
-/** α, ζ, T_ent = 1/α and μ = −ζ/α at order n (1…12) or 'exact'. G cancels. */
+/** α, ζ, T_ent = 1/α and μ = −ζ/α at order n (1…MAX_ASKED_ORDER) or 'exact'. G cancels. */
 export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): FirstLawCoefficients {
 	checkOrder(order);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
@@ -280,13 +230,13 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	let Aq: number;
 	let series: FirstLawSeries | undefined;
 	if (order === 'exact') {
-		({ Aw, Aq } = F.kind === 'charged' ? chargedExactGradient(bulk, F, l) : exactGradient(bulk, l));
+		({ Aw, Aq } = exactGradient(bulk, F, l));
 	} else {
 		series = firstLawSeries(bulk, l, order);
 		Aw = l * l * sumSeries(series.W, series.x);
 		Aq = l * l * sumSeries(series.Q, series.x);
 	}
-	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const { E1, E2, P1, P2 } = F.slopes;
 	let alpha: number;
 	let zeta = 0;
 	if (!twoParameter) alpha = (4 * Math.PI * Aw) / (l * E1);
@@ -301,29 +251,6 @@ export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): First
 	}
 	const conjugate = F.kind === 'charged' ? 'charge' : twoParameter ? 'momentum' : null;
 	return { order, l, alpha, zeta, tent: 1 / alpha, mu: zeta === 0 ? 0 : -zeta / alpha, twoParameter, conjugate, Aw, Aq, series };
-}
-
-/** Charged brane, exact: Aw = ∂_wΔA = −(zh^{d+1}/d) ∂_zhΔA, Aq = ∂_qΔA at fixed zh, both by extremality. */
-function chargedExactGradient(bulk: Bulk, F: Family, l: number): { Aw: number; Aq: number } {
-	const sol = solveStrip(bulk.slice, l);
-	const zh = F.zh as number;
-	const q = F.charge as number;
-	// ∂_zh f = −Σ c_j p_j (z/zh)^{p_j} / zh for f = 1 + Σ c_j (z/zh)^{p_j}; ∂_q f = −2q (z/zh)^d + 2q (z/zh)^{2(d−1)}
-	const df = (bulk.slice.fTerms ?? []).filter((t) => t.p !== 0).map((t) => ({ c: (-t.c * t.p) / zh, p: t.p }));
-	const dA = areaParameterDerivative(bulk.slice, sol.point, df, []);
-	const Aq =
-		q === 0
-			? 0
-			: areaParameterDerivative(
-					bulk.slice,
-					sol.point,
-					[
-						{ c: -2 * q, p: F.d },
-						{ c: 2 * q, p: 2 * (F.d - 1) }
-					],
-					[]
-				);
-	return { Aw: (-dA * Math.pow(zh, F.d + 1)) / F.d, Aq };
 }
 
 export interface TentResult {
@@ -389,10 +316,10 @@ export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCh
 	const F = familyOf(bulk);
 	const co = firstLawCoefficients(bulk, l, order);
 	const ex = order === 'exact' ? co : firstLawCoefficients(bulk, l, 'exact');
-	const ref = order === 'exact' ? co : order < 12 ? firstLawCoefficients(bulk, l, order + 1) : ex;
-	const { E1, E2, P1, P2 } = energyMomentumSlopes(F);
+	const ref = order === 'exact' ? co : order < MAX_ASKED_ORDER ? firstLawCoefficients(bulk, l, order + 1) : ex;
+	const { E1, E2, P1, P2 } = F.slopes;
 	// the (n+1)-th term of ∂ΔA, formed directly so that the residual carries no cancellation error
-	const next = typeof order === 'number' && order < 12 ? firstLawSeries(bulk, l, order + 1) : undefined;
+	const next = typeof order === 'number' && order < MAX_ASKED_ORDER ? firstLawSeries(bulk, l, order + 1) : undefined;
 	const dir = (dw: number, dq: number): FirstLawDirection => {
 		const sgn = F.sign;
 		const dE = (l * (E1 * dw + E2 * dq)) / (16 * Math.PI * G);

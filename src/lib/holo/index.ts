@@ -3,7 +3,8 @@
  * Units L = 1; areas and entropies per unit transverse volume. Conventions: PHYSICS.md.
  */
 export { HoloError } from './errors';
-export type { Bulk, BulkName, Slice, PowerTerm, SeriesCoeff, SeriesShape, Stress, Thermo } from './types';
+export type { Bulk, BulkName, Slice, PowerTerm, SeriesCoeff, SeriesShape, SeriesCapability, FirstLawFamily, Stress, Thermo } from './types';
+export { MAX_ASKED_ORDER } from './limits';
 export { makeBulk, registerBulk, BULK_NAMES } from './bulks/index';
 export { zstarOf, widthOf, areaFinite, deltaArea, vacuumAreaFinite, stripIntegrals } from './area';
 export { solveStrip, integrateStrip, turningPoint, vacuumWidthFactor, widthSlope } from './strip';

@@ -20,7 +20,7 @@
  */
 import { HoloError } from './errors';
 import { deltaArea } from './area';
-import { seriesCoeffs } from './series/index';
+import { MAX_ORDER, seriesCoeffs } from './series/index';
 import { padeApproximant, evalPade, nearestPole, evalPoly, type PadeApproximant } from './numeric/pade';
 import { firstLawSeries, firstLawCoefficients } from './firstlaw';
 import type { Bulk } from './types';
@@ -125,13 +125,13 @@ const fmtRel = (r: number) =>
 	Number.isFinite(r) ? `${Number((100 * r).toPrecision(2))}%` : 'an unbounded amount (a neighbour has a pole in range)';
 
 function checkN(n: number): void {
-	if (!Number.isInteger(n) || n < 2 || n > 14)
-		throw new HoloError('resummation needs an order 2…14', 'o', 'a Padé approximant needs at least two coefficients');
+	if (!Number.isInteger(n) || n < 2 || n > MAX_ORDER)
+		throw new HoloError(`resummation needs an order 2…${MAX_ORDER}`, 'o', 'a Padé approximant needs at least two coefficients');
 }
 
 /** The charged series mixes powers (l/zh)^{da + 2(d−1)b}: a Padé approximant in τ = (l/zh)^d does not apply. */
 function rejectCharged(bulk: Bulk): void {
-	if (bulk.name === 'charged' && bulk.d > 2) {
+	if (bulk.series?.mixedPowers) {
 		throw new HoloError('no resummation for charged: its series mixes (l/zh)^d and (l/zh)^{2(d−1)}', 'bulk', 'use o=exact');
 	}
 }
@@ -139,7 +139,7 @@ function rejectCharged(bulk: Bulk): void {
 /** Padé-resummed ΔA at width l from the order-n series, with its error estimate and the exact ΔA beside it. */
 export function resum(bulk: Bulk, l: number, n: number): ResumResult {
 	checkN(n);
-	if (!bulk.hasSeries || !bulk.scale) throw new HoloError(`no closed-form series for ${bulk.name}`, 'bulk', 'use o=exact');
+	if (!bulk.series || !bulk.scale) throw new HoloError(`no closed-form series for ${bulk.name}`, 'bulk', 'use o=exact');
 	rejectCharged(bulk);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
 	const d = bulk.d;

@@ -55,6 +55,46 @@ export interface SeriesShape {
 	beta: number;
 }
 
+/**
+ * The small-width series of ΔA a bulk has: ΔA = l^{2−d} Σ_i values[i] (l/scale)^{powers[i]} at order n
+ * (series/capability.ts builds the named bulks' ones). Orders are checked by the caller (series/index.ts).
+ */
+export interface SeriesCapability {
+	/** exponents of l/scale of the order-n terms, ascending (k d for one power per order) */
+	powers(n: number): number[];
+	values(n: number): number[];
+	/** the same terms with their LaTeX (exact where known) */
+	coeffs(n: number): SeriesCoeff[];
+	/** the powers are not the multiples of d: the radius comes from the coefficients' growth, no Padé in τ */
+	mixedPowers?: boolean;
+}
+
+/**
+ * Where a state sits among its neighbours, for the first law (firstlaw.ts): the bulk's parameters as (w, q),
+ * w = scale^{−d}, with ê = 16πG ΔE/l and p̂ = 16πG ΔX/l linear in their variations, X = P_y or Q.
+ */
+export interface FirstLawFamily {
+	/** static: one parameter (ΔS = α ΔE); boosted and wave: X = P_y; charged: X = Q */
+	kind: 'static' | 'boosted' | 'wave' | 'charged';
+	w: number;
+	q: number;
+	/** sign of v (ζ flips with it) */
+	sign: number;
+	/** the series variable's length: zh, or zp for the wave */
+	scale: number;
+	/** charged: the charge parameter of f (its sign is μ_Q's) */
+	charge?: number;
+	/** ê = E1 δw + E2 δq, p̂ = P1 δw + P2 δq at this state */
+	slopes: { E1: number; E2: number; P1: number; P2: number };
+	/** how the slice's f and h move per unit δw and δq (power terms in z/scale), for the exact gradient */
+	variations: { w: SliceVariation; q: SliceVariation };
+}
+
+export interface SliceVariation {
+	df: PowerTerm[];
+	dh: PowerTerm[];
+}
+
 export interface Bulk {
 	name: BulkName;
 	d: number;
@@ -65,9 +105,10 @@ export interface Bulk {
 	/** Length scale of the series variable τ = (l/scale)^d: zh, or zp for the wave. */
 	scale?: number;
 	slice: Slice;
-	hasSeries: boolean;
-	/** Present when the closed-form series applies (see series/). */
-	series?: SeriesShape;
+	/** the small-width series, where the bulk has one */
+	series?: SeriesCapability;
+	/** the first law's parameter family, where the bulk has one */
+	firstLaw?: FirstLawFamily;
 	/** ⟨T_μν⟩ (lower indices) from the Fefferman–Graham expansion, for Newton constant G. */
 	stress?: (G: number) => Stress;
 	/** Temperature, entropy density, energy density, pressure(s). */

@@ -10,12 +10,10 @@ import type { LineEnv, StatementOut } from './env';
 import { LangError } from './errors';
 import type { Result, TableResult } from './result';
 import { runVerb } from './run-verb';
-import { VERB_FORMS } from './schema';
 import { applySinks } from './sinks';
 import { didYouMean } from './suggest';
 import { resolveValue } from './values';
-import { VERBS, type Verb } from './vocab';
-import { VERB_KIND } from './verbs';
+import { verbNames, verbSpec } from './verbs/index';
 
 const DEFAULT_TOL = 1e-6;
 
@@ -28,8 +26,8 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 			hint: Object.keys(datasets).length ? `datasets: ${Object.keys(datasets).join(', ')}` : 'upload a CSV dataset first'
 		});
 	}
-	const inferred = ds.columns.find((c) => (VERBS as readonly string[]).includes(c) && VERB_KIND[c as Verb] === 'scalar');
-	const verb = (s.verb?.text ?? inferred) as Verb | undefined;
+	const inferred = ds.columns.find((c) => verbNames().includes(c) && verbSpec(c)?.kind === 'scalar');
+	const verb = s.verb?.text ?? inferred;
 	const verbSpan: A.Span = s.verb ?? s.dataset;
 	if (!verb)
 		throw new LangError(
@@ -37,7 +35,8 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 			s.dataset.start,
 			s.dataset.end
 		);
-	if (VERB_KIND[verb] !== 'scalar') {
+	const spec = verbSpec(verb);
+	if (spec?.kind !== 'scalar') {
 		throw new LangError(
 			`compare works with verbs that give one number (darea, area, entropy, …), not ${verb}`,
 			verbSpan.start,
@@ -64,7 +63,7 @@ export function runCompare(s: A.CompareStmt, env: LineEnv): StatementOut {
 		}
 		return r.value;
 	};
-	const form = VERB_FORMS[verb][Object.keys(VERB_FORMS[verb])[0]!]!;
+	const form = Object.values(spec.forms)[0]!;
 	const xCol = text('x') ?? ds.columns.find((c) => form.keys.includes(c) && c !== 'o');
 	if (!xCol)
 		throw new LangError(

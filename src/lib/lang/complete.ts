@@ -4,7 +4,8 @@
  * no zod: this ships to the browser.
  */
 import { help } from './help';
-import { BULKS, BULK_KEYS, KEYWORDS, SHAPES, SINKS, UNIT_SYSTEMS, VERBS, VERB_FORMS, WORD_KEYS, isBulk, isVerb } from './vocab';
+import { verbNames, verbSpec } from './verbs/index';
+import { BULKS, BULK_KEYS, KEYWORDS, SHAPES, SINKS, UNIT_SYSTEMS, WORD_KEYS, isBulk, isVerb } from './vocab';
 
 export interface Completion {
 	/** the text to put in place of the word at the cursor */
@@ -82,7 +83,7 @@ function candidates(words: string[], word: string, before: string, cc: Completio
 	if (first === undefined) {
 		return [
 			...entries(KEYWORDS.filter((k) => k !== 'exact')),
-			...entries(VERBS),
+			...entries(verbNames()),
 			...(cc.macros ?? []).map((m) => ({ insert: `@${m}`, label: `@${m}`, detail: 'macro from the library' })),
 			...(cc.lets ?? []).map((l) => ({ insert: l, label: l, detail: 'kept with let' }))
 		];
@@ -92,15 +93,15 @@ function candidates(words: string[], word: string, before: string, cc: Completio
 	if (first === 'units') return words.length === 1 ? entries(UNIT_SYSTEMS) : unitKey(words[1]!);
 	if (first === 'compare') {
 		if (words.length === 1) return (cc.datasets ?? []).map((d) => ({ insert: d, label: d, detail: 'dataset' }));
-		return words.length === 2 ? entries(VERBS) : [];
+		return words.length === 2 ? entries(verbNames()) : [];
 	}
 	const verbAt = first === 'sweep' ? 1 : 0;
-	if (first === 'sweep' && words.length === 1) return entries(VERBS);
+	if (first === 'sweep' && words.length === 1) return entries(verbNames());
 	const verb = words[verbAt];
 	if (!verb || !isVerb(verb)) return [];
 	const subject = words[verbAt + 1];
 	const hasSubject = subject !== undefined && !subject.includes('=');
-	const subjects = Object.keys(VERB_FORMS[verb]).filter((s) => s !== '');
+	const subjects = Object.keys(verbSpec(verb)!.forms).filter((s) => s !== '');
 	const out = keysOf(cc.bulk ?? 'brane', verb, hasSubject ? subject : undefined, words);
 	if (!hasSubject && words.length === verbAt + 1 && subjects.length > 1) {
 		out.unshift(...entries(subjects.filter((s) => (SHAPES as readonly string[]).includes(s) || isVerb(s))));
@@ -112,8 +113,9 @@ function candidates(words: string[], word: string, before: string, cc: Completio
 function keysOf(bulk: string, verb: string | undefined, subject: string | undefined, words: string[]): Completion[] {
 	const given = new Set(words.filter((w) => w.includes('=')).map((w) => w.slice(0, w.indexOf('='))));
 	const keys: string[] = [];
-	if (verb && isVerb(verb)) {
-		const forms = VERB_FORMS[verb];
+	const spec = verb ? verbSpec(verb) : undefined;
+	if (spec) {
+		const forms = spec.forms;
 		const form = forms[subject ?? Object.keys(forms)[0]!];
 		if (form) keys.push(...form.keys);
 	}

@@ -7,7 +7,7 @@ import { LangError } from './errors';
 import type { Limits } from './limits';
 import type { BulkState, LetValue, PadContext, Result, StepRef, UnitsState } from './result';
 import { ALL_BULK_KEYS, canonicalKey } from './vocab';
-import { NotAvailable, isHoloError } from './verbs';
+import { isHoloError } from './engine';
 
 export interface LineEnv {
 	ctx: PadContext;
@@ -36,15 +36,14 @@ export function findKey(keys: A.KeyValue[], key: string | undefined): A.KeyValue
 
 /**
  * Run engine work and turn its errors into LangErrors: a HoloError with a key points at that key's value on
- * the line (or at `fallback` — usually the verb — when the key came from the pad's bulk); an analysis part not
- * yet in the engine points at the verb. Anything else is a bug and propagates unchanged.
+ * the line (or at `fallback` — usually the verb — when the key came from the pad's bulk). Anything else is a
+ * bug and propagates unchanged.
  */
 export function withEngine<T>(keys: A.KeyValue[], fallback: A.Span, where: string, work: () => T): T {
 	try {
 		return work();
 	} catch (e) {
 		if (e instanceof LangError) throw e;
-		if (e instanceof NotAvailable) throw new LangError(e.message, fallback.start, fallback.end);
 		if (isHoloError(e)) {
 			const kv = findKey(keys, e.key);
 			const span = kv ? kv.value : fallback;

@@ -19,7 +19,7 @@ import { runVerb } from './run-verb';
 import { type Checked, checkBulk, checkUnits, UNITS_SCHEMAS } from './schema';
 import { applySinks } from './sinks';
 import { orderOfNames, resolverFor, resolveValue } from './values';
-import { makeBulk } from './verbs';
+import { engine } from './engine';
 import { BULKS, type BulkName, isBulk } from './vocab';
 
 /** LANGUAGE.md: with no bulk set, the bulk is `brane d=4 zh=1`. */
@@ -143,7 +143,7 @@ function runUse(s: A.UseStmt, env: LineEnv): StatementOut {
 	const name = s.bulk.text as BulkName;
 	const given = singleValues(s.keys, { ctx: env.ctx, lets: env.lets, bulk: env.bulk.params }, env, 'use');
 	const params = checkedOrThrow(checkBulk(name, given), s.keys, s.bulk);
-	withEngine(s.keys, s.bulk, '', () => makeBulk(name, params));
+	withEngine(s.keys, s.bulk, '', () => engine.makeBulk(name, params));
 	env.bulk = { name, params };
 	return { results: [{ kind: 'note', text: `bulk: ${describeBulk(env.bulk)}` }] };
 }

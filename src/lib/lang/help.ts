@@ -1,12 +1,17 @@
 /**
  * One line of help and one example for every verb, bulk, key, sink and statement, for the palette and the
- * console's `?` hints. Plain data with no dependency, so the browser bundle stays small.
+ * console's `?` hints. Verbs bring their own (method, accuracy, source and examples too) from the registry;
+ * the rest is plain data here. No heavy dependency, so the browser bundle stays small.
  */
+import { verbSpecs, type VerbHelp } from './verbs/index';
+
 export interface HelpEntry {
 	name: string;
 	kind: 'statement' | 'verb' | 'bulk' | 'key' | 'sink';
 	summary: string;
 	example: string;
+	/** verbs: how it is computed, how far to trust it, where it is published, more examples */
+	detail?: Omit<VerbHelp, 'summary'> & { forms: string[] };
 }
 
 const E = (kind: HelpEntry['kind'], name: string, summary: string, example: string): HelpEntry => ({ kind, name, summary, example });
@@ -19,53 +24,6 @@ const ENTRIES: HelpEntry[] = [
 	E('statement', 'compare', "a dataset's column against the engine point by point", 'compare mydata darea o=exact'),
 	E('statement', '@macro', 'run an approved macro from the library', '@standard_brane d=5'),
 	E('statement', 'arithmetic', 'numbers, names, #n and #n.field with + - * / ^', '#3 / #2'),
-	E('verb', 'zstar', 'turning point z* of the RT surface for width l', 'zstar l=0.8'),
-	E('verb', 'width', 'width l of the strip whose turning point is zstar', 'width zstar=0.5'),
-	E('verb', 'area', 'finite part of the RT area, A_fin', 'area l=0.4'),
-	E('verb', 'darea', 'ΔA = A_fin(bulk) − A_fin(vacuum) at the same width', 'darea l=0.4 o=1,2,3,exact'),
-	E(
-		'verb',
-		'entropy',
-		"finite part S_fin = A_fin/(4G) in the pad's units: the area-law term 2/((d−2)ε^{d−2}) (d = 2: 2 ln(1/ε)) per unit transverse volume is subtracted, cutoff z ≥ ε, minimal subtraction (no finite term removed)",
-		'entropy l=0.4'
-	),
-	E('verb', 'dentropy', 'ΔS = ΔA/(4G): cutoff-independent, no scheme', 'dentropy l=0.4 o=2'),
-	E('verb', 'energy', 'ΔE (and ΔP_y when boosted) in the strip, from the stress tensor', 'energy l=0.4'),
-	E(
-		'verb',
-		'tent',
-		'entanglement temperature 1/α of δΔS = α δΔE + ζ δΔX at order n (order 1: c_d/l); X = P_y (boosted), Q (charged); large l: T_H (T/γ when boosted)',
-		'tent l=0.4 o=3'
-	),
-	E(
-		'verb',
-		'mu',
-		'chemical potential −ζ/α of the first law, of=momentum (ΔP_y = l T^{ty}, boosted/wave) or of=charge (μ_Q, charged; normalised by the action (R + d(d−1) − F²)/16πG, μ = √((d−1)/(2(d−2))) q/zh). Its small-l sign and size are a convention of that split (μ < 0 and |μ| > 1 happen); the large-l limit is thermodynamic: μ → v, μ_Q → μ',
-		'mu l=0.4 o=3 of=momentum'
-	),
-	E(
-		'verb',
-		'firstlaw',
-		'checks T_ent δΔS = δΔE − μ δΔX at order n (X = P_y or Q) in each parameter direction; each side and the residual',
-		'firstlaw l=0.4 o=3'
-	),
-	E('verb', 'stress', '⟨T_μν⟩ from the Fefferman–Graham expansion: tt, ty, xx, yy', 'stress'),
-	E('verb', 'thermo', 'temperature, entropy density, energy density, pressure: T, s, e, p', 'thermo'),
-	E('verb', 'coeffs', 'closed-form series coefficients of ΔA up to order n', 'coeffs darea o=4 | tex'),
-	E(
-		'verb',
-		'validity',
-		'largest l where order n stays within tol of exact, and the radius of convergence ± its uncertainty (Domb–Sykes)',
-		'validity o=3 tol=1e-3'
-	),
-	E('verb', 'mi', 'mutual information of a pair of strips and the critical gap', 'mi pair l=1 gap=0.3'),
-	E(
-		'verb',
-		'resum',
-		'Padé-resummed series at l ± an error estimate (neighbouring approximants), warned when unreliable, with the exact value beside it',
-		'resum l=0.8 o=6'
-	),
-	E('verb', 'phases', 'soliton: critical width l_c, largest connected width l_max, the jump of ∂A/∂l at l_c', 'use soliton d=4; phases'),
 	E('bulk', 'vacuum', 'pure AdS_{d+1}', 'use vacuum d=3'),
 	E('bulk', 'brane', 'planar AdS black brane (the default: d=4 zh=1)', 'use brane d=4 zh=1'),
 	E('bulk', 'boosted', 'black brane boosted along y; give v or rapidity', 'use boosted d=4 v=0.6'),
@@ -98,12 +56,39 @@ const ENTRIES: HelpEntry[] = [
 	E('sink', 'csv', 'offer the result as a CSV download', 'sweep darea l=0.1..1 | csv')
 ];
 
+/** Verbs' entries, read from the registry at call time (a verb registered later appears too). */
+function verbEntries(): HelpEntry[] {
+	return verbSpecs().map((v) => ({
+		kind: 'verb',
+		name: v.name,
+		summary: v.help.summary,
+		example: v.help.examples[0] ?? v.name,
+		detail: {
+			method: v.help.method,
+			accuracy: v.help.accuracy,
+			source: v.help.source,
+			examples: v.help.examples,
+			forms: Object.entries(v.forms).map(([shape, f]) => [v.name, shape, ...f.keys.map((k) => `${k}=…`)].filter(Boolean).join(' '))
+		}
+	}));
+}
+
+function allEntries(): HelpEntry[] {
+	const i = ENTRIES.findIndex((e) => e.kind !== 'statement');
+	return [...ENTRIES.slice(0, i), ...verbEntries(), ...ENTRIES.slice(i)];
+}
+
 export function helpEntries(kind?: HelpEntry['kind']): readonly HelpEntry[] {
-	return kind ? ENTRIES.filter((e) => e.kind === kind) : ENTRIES;
+	if (kind === 'verb') return verbEntries();
+	return kind ? ENTRIES.filter((e) => e.kind === kind) : allEntries();
 }
 
 /** The entry for a word; a bulk and a key can share a name (none do today), statements and verbs win. */
 export function help(name: string): HelpEntry | undefined {
 	const n = name.startsWith('@') ? '@macro' : name === 'order' ? 'o' : name;
-	return ENTRIES.find((e) => e.name === n);
+	return (
+		ENTRIES.find((e) => e.kind === 'statement' && e.name === n) ??
+		verbEntries().find((e) => e.name === n) ??
+		ENTRIES.find((e) => e.name === n)
+	);
 }

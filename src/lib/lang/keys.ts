@@ -7,10 +7,11 @@ import { LangError } from './errors';
 import type { LineEnv } from './env';
 import { limitError } from './limits';
 import type { Order } from './result';
-import { VERB_FORMS, type VerbForm, checkOrder } from './schema';
+import { checkOrder } from './schema';
 import { didYouMean } from './suggest';
 import { type Resolved, type Scalar, resolveValue } from './values';
-import { ALL_BULK_KEYS, BULK_KEYS, QUANTITY_KEYS, WORD_KEYS, type BulkName, type Verb, canonicalKey } from './vocab';
+import type { VerbForm, VerbSpec } from './verbs/index';
+import { ALL_BULK_KEYS, BULK_KEYS, QUANTITY_KEYS, WORD_KEYS, type BulkName, canonicalKey } from './vocab';
 
 export interface SortedKeys {
 	form: VerbForm;
@@ -21,8 +22,15 @@ export interface SortedKeys {
 }
 
 /** The verb's form named by its subject (or the default form) and its keys, sorted. */
-export function sortKeys(verb: Verb, subject: A.Word | undefined, keys: A.KeyValue[], bulkName: BulkName, verbSpan: A.Span): SortedKeys {
-	const forms = VERB_FORMS[verb];
+export function sortKeys(
+	spec: VerbSpec,
+	subject: A.Word | undefined,
+	keys: A.KeyValue[],
+	bulkName: BulkName,
+	verbSpan: A.Span
+): SortedKeys {
+	const verb = spec.name;
+	const forms = spec.forms;
 	const names = Object.keys(forms);
 	const shape = subject?.text ?? names[0]!;
 	const form = forms[shape];
@@ -38,7 +46,7 @@ export function sortKeys(verb: Verb, subject: A.Word | undefined, keys: A.KeyVal
 		if (k === 'o' && form.keys.includes('o')) out.orderKey = kv;
 		else if (form.keys.includes(k)) out.quantityKeys.push(asWord(k, kv));
 		else if (own.includes(k) || (bulkName === 'metric' && !(QUANTITY_KEYS as readonly string[]).includes(k))) out.bulkKeys.push(kv);
-		else throw misplacedKey(verb, shape, kv, bulkName);
+		else throw misplacedKey(spec, shape, kv, bulkName);
 	}
 	for (const r of form.required) {
 		if (!keys.some((kv) => canonicalKey(kv.key) === r)) {
@@ -67,7 +75,8 @@ function meaning(k: string): string {
 	return m[k] ?? '';
 }
 
-function misplacedKey(verb: Verb, shape: string, kv: A.KeyValue, bulkName: BulkName): LangError {
+function misplacedKey(spec: VerbSpec, shape: string, kv: A.KeyValue, bulkName: BulkName): LangError {
+	const verb = spec.name;
 	const k = canonicalKey(kv.key);
 	const span = kv.keySpan;
 	if ((ALL_BULK_KEYS as readonly string[]).includes(k)) {
@@ -76,7 +85,7 @@ function misplacedKey(verb: Verb, shape: string, kv: A.KeyValue, bulkName: BulkN
 			hint: `${bulkName} takes ${BULK_KEYS[bulkName].join(', ')}; '${kv.key}' belongs to ${owners.join(', ')} (use ${owners[0]} …)`
 		});
 	}
-	const forms = VERB_FORMS[verb];
+	const forms = spec.forms;
 	const other = Object.entries(forms).find(([, f]) => f.keys.includes(k));
 	if (other) {
 		return new LangError(`${verb} ${shape} takes no key '${kv.key}'`, span.start, span.end, {

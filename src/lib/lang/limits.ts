@@ -2,6 +2,7 @@
  * Limits against hostile or accidental huge input. Exceeding one is a LangError with code 'limit' (HTTP 422)
  * whose message names the limit, so the user knows which knob they hit.
  */
+import { MAX_ASKED_ORDER } from '../holo/limits';
 import { LangError } from './errors';
 
 export interface Limits {
@@ -27,7 +28,7 @@ export const DEFAULT_LIMITS: Readonly<Limits> = Object.freeze({
 	maxDepth: 32,
 	maxStatements: 20,
 	maxPoints: 2000,
-	maxOrder: 12,
+	maxOrder: MAX_ASKED_ORDER,
 	maxMacroDepth: 4
 });
 

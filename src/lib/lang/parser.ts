@@ -27,7 +27,7 @@ import {
 	SHAPES,
 	SINKS,
 	UNIT_SYSTEMS,
-	VERBS,
+	verbNames,
 	canonicalKey,
 	isVerb
 } from './vocab';
@@ -45,7 +45,9 @@ export function parseExpression(input: string, limits?: Partial<Limits>): A.Expr
 	return e;
 }
 
-const NOT_LET_NAMES: ReadonlySet<string> = new Set<string>([...VERBS, ...KEYWORDS, ...CONSTANTS, ...FUNCTIONS, ...ALL_BULK_KEYS, ...BULKS]);
+const RESERVED: ReadonlySet<string> = new Set<string>([...KEYWORDS, ...CONSTANTS, ...FUNCTIONS, ...ALL_BULK_KEYS, ...BULKS]);
+/** Words a `let` may not name: the reserved ones and every registered verb (looked up now: the registry can grow). */
+const isNotLetName = (name: string): boolean => RESERVED.has(name) || isVerb(name);
 
 /** Keys that would reach Object.prototype when a line's keys become an object. */
 const RESERVED_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constructor', 'prototype']);
@@ -149,8 +151,8 @@ class Parser {
 			if (isVerb(t.text)) return this.parseVerb();
 			const after = this.peek(1);
 			if (after.kind === Tok.Name || after.kind === Tok.Pipe) {
-				throw new LangError(`unknown verb '${t.text}'${didYouMean(t.text, VERBS)}`, t.start, t.end, {
-					hint: `verbs: ${VERBS.join(', ')}`
+				throw new LangError(`unknown verb '${t.text}'${didYouMean(t.text, verbNames())}`, t.start, t.end, {
+					hint: `verbs: ${verbNames().join(', ')}`
 				});
 			}
 		}
@@ -191,7 +193,7 @@ class Parser {
 	private parseLet(): A.LetStmt {
 		const kw = this.next();
 		const n = this.expect(Tok.Name, 'a name to keep the value under');
-		if (NOT_LET_NAMES.has(n.text)) {
+		if (isNotLetName(n.text)) {
 			throw new LangError(`'${n.text}' is a word of the language and cannot be a let-name`, n.start, n.end, {
 				hint: 'pick another name, e.g. area_fin'
 			});
@@ -217,10 +219,10 @@ class Parser {
 		if (first.text === 'sweep') {
 			sweep = { start: first.start, end: first.end };
 			v = this.peek();
-			if (v.kind !== Tok.Name) throw this.unexpected("a verb after 'sweep'", v, `verbs: ${VERBS.join(', ')}`);
+			if (v.kind !== Tok.Name) throw this.unexpected("a verb after 'sweep'", v, `verbs: ${verbNames().join(', ')}`);
 			if (!isVerb(v.text)) {
-				throw new LangError(`unknown verb '${v.text}'${didYouMean(v.text, VERBS)}`, v.start, v.end, {
-					hint: `verbs: ${VERBS.join(', ')}`
+				throw new LangError(`unknown verb '${v.text}'${didYouMean(v.text, verbNames())}`, v.start, v.end, {
+					hint: `verbs: ${verbNames().join(', ')}`
 				});
 			}
 			this.next();
@@ -239,7 +241,7 @@ class Parser {
 		const t = this.peek();
 		if (t.kind !== Tok.Name || this.peek(1).kind === Tok.Equals) return undefined;
 		if ((SHAPES as readonly string[]).includes(t.text) || isVerb(t.text)) return this.word(this.next());
-		const guess = didYouMean(t.text, [...SHAPES, ...VERBS]);
+		const guess = didYouMean(t.text, [...SHAPES, ...verbNames()]);
 		if (guess) throw new LangError(`unknown shape or quantity '${t.text}'${guess}`, t.start, t.end);
 		this.next();
 		throw this.unexpected(`'=' after key '${t.text}'`);
@@ -255,7 +257,7 @@ class Parser {
 		const t = this.peek();
 		if (t.kind === Tok.Name && this.peek(1).kind !== Tok.Equals) {
 			if (!isVerb(t.text)) {
-				throw new LangError(`unknown verb '${t.text}'${didYouMean(t.text, VERBS)}`, t.start, t.end);
+				throw new LangError(`unknown verb '${t.text}'${didYouMean(t.text, verbNames())}`, t.start, t.end);
 			}
 			verb = this.word(this.next());
 		}

@@ -1,12 +1,15 @@
 /**
- * One verb statement: sort and evaluate its keys, walk its points (swept values × orders), ask the engine at
- * each, and shape the answer as API.md says — one scalar (or record) for one point and one order, otherwise a
- * table whose first column is the swept key and whose other columns are the orders (o1, o2, …, exact).
+ * One verb statement, for every verb alike: sort and evaluate its keys, walk its points (swept values ×
+ * orders), ask the verb's module (./verbs/) at each, and shape the answer as API.md says — one scalar (or
+ * record, series, check) for one point and one order, otherwise a table whose first column is the swept key
+ * and whose other columns are the orders (o1, o2, …, exact). Nothing here is specific to one verb: what
+ * differs between verbs is data on their registry entry (kind, flags, symbol).
  */
 import type * as A from './ast';
+import { engine } from './engine';
 import { type LineEnv, type StatementOut, findKey, withEngine } from './env';
 import { LangError } from './errors';
-import { describeBulk, orderWords, shortNumber, texRecord, texScalar, SYMBOLS } from './format';
+import { describeBulk, orderWords, shortNumber, texRecord, texScalar } from './format';
 import { readOrders, resolveKeys, sortKeys } from './keys';
 import { limitError } from './limits';
 import type { Order, Result, StepRef } from './result';
@@ -14,15 +17,20 @@ import { checkBulk, checkKey } from './schema';
 import { applySinks } from './sinks';
 import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
 import { type Resolved, type Scalar, resolveValue } from './values';
-import { type BulkName, type Verb, canonicalKey } from './vocab';
-import * as V from './verbs';
+import type { Point, VerbSpec } from './verbs/index';
+import { verbSpec } from './verbs/index';
+import { type BulkName, canonicalKey } from './vocab';
+
+/** Asks the engine at a point; engine errors point at the line's characters (env.ts). */
+export type EngineCall = <T>(x: Scalar | undefined, f: () => T) => T;
 
 export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
-	const verb = s.verb.text as Verb;
+	const spec = verbSpec(s.verb.text);
+	if (!spec) throw new LangError(`unknown verb '${s.verb.text}'`, s.verb.start, s.verb.end);
+	const verb = spec.name;
 	const bulkName = env.bulk.name as BulkName;
-	const kind = V.VERB_KIND[verb];
 	const verbSpan: A.Span = s.verb;
-	const sorted = sortKeys(verb, s.subject, s.keys, bulkName, verbSpan);
+	const sorted = sortKeys(spec, s.subject, s.keys, bulkName, verbSpan);
 
 	// bulk keys against the pad's bulk, quantities against the line's bulk (values.ts explains why)
 	const bres = resolveKeys(sorted.bulkKeys, { ctx: env.ctx, lets: env.lets, bulk: env.bulk.params }, env);
@@ -35,19 +43,19 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	const oRes = sorted.orderKey ? resolveValue(sorted.orderKey.value, qscope, env.limits) : undefined;
 	const orders = readOrders(sorted.orderKey, oRes, env);
 
-	if ((kind === 'series' || verb === 'validity' || verb === 'resum') && orders.includes('exact')) {
+	if (spec.wholeOrder && orders.includes('exact')) {
 		const span = sorted.orderKey?.value ?? verbSpan;
 		throw new LangError(`${verb} needs a whole order, e.g. o=4`, span.start, span.end);
 	}
-	if (kind === 'series' && (orders.length > 1 || swept)) {
+	if (spec.kind === 'series' && (orders.length > 1 || swept)) {
 		const span = swept?.value ?? sorted.orderKey!.value;
-		throw new LangError('coeffs shows one series: give one value of each key', span.start, span.end);
+		throw new LangError(`${verb} shows one series: give one value of each key`, span.start, span.end);
 	}
 	// a record or check verb with several orders and nothing else swept sweeps the order itself
 	let xKey = swept ? canonicalKey(swept.key) : mainKey(sorted.form.keys);
 	let xs: (Scalar | undefined)[] = swept ? allValues(swept, bres, qres) : [mainValue(xKey, qres.values, sorted.quantityKeys)];
 	let orderSweep = false;
-	if ((kind === 'record' || kind === 'check') && orders.length > 1) {
+	if ((spec.kind === 'record' || spec.kind === 'check') && orders.length > 1) {
 		if (swept) {
 			const o = sorted.orderKey!;
 			throw new LangError(`${verb} takes one order when '${swept.key}' is swept`, o.value.start, o.value.end);
@@ -75,113 +83,142 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		done++;
 		env.onProgress?.(done, total);
 	};
-	const pointAt = (x: Scalar | undefined, order: Order): V.Point => {
-		const where = swept && x !== undefined ? `at ${swept.key}=${typeof x === 'number' ? shortNumber(x) : x}` : '';
-		const params = sweptIsBulk ? withKey(base, swept!.key, x!) : base;
-		const checked = checkBulk(bulkName, params);
-		if (!checked.ok) throw keyError(s.keys, checked, verbSpan, where);
-		const { q, words } = quantitiesAt(
-			sorted.quantityKeys,
-			qres.values,
-			sweptIsBulk ? { ...qscope, bulk: checked.value } : undefined,
-			env,
-			swept,
-			x,
-			where
-		);
-		return withEngine(s.keys, verbSpan, where, () => {
-			const bulk = V.makeBulk(bulkName, checked.value);
-			const G = q.G ?? (V.USES_G.has(verb) ? V.newtonG(env.units, bulk.d) : 1);
-			return { bulk, q, words, order, shape: sorted.shape, G };
-		});
+	const whereAt = (x: Scalar | undefined): string =>
+		swept && x !== undefined ? `at ${swept.key}=${typeof x === 'number' ? shortNumber(x) : x}` : '';
+	const call: EngineCall = (x, f) => withEngine(s.keys, verbSpan, whereAt(x), f);
+
+	// the bulk, G and the quantity keys that do not move are built once per line, not once per point
+	const fixed = sweptIsBulk ? undefined : bulkAt(bulkName, base, s.keys, verbSpan, '', spec, env);
+	const fixedQ = sweptIsBulk ? undefined : quantitiesAt(sorted.quantityKeys, qres.values, undefined, env, swept, '');
+	const pointAt = (x: Scalar | undefined, order: Order): Point => {
+		const where = whereAt(x);
+		const b = fixed ?? bulkAt(bulkName, withKey(base, swept!.key, x!), s.keys, verbSpan, where, spec, env);
+		let qw: { q: Record<string, number>; words: Record<string, string> };
+		if (fixedQ && swept && x !== undefined) {
+			qw = { q: { ...fixedQ.q }, words: { ...fixedQ.words } };
+			setQuantity(qw, swept, x, where);
+		} else qw = fixedQ ?? quantitiesAt(sorted.quantityKeys, qres.values, { ...qscope, bulk: b.checked }, env, swept, where, x);
+		return { holo: engine, bulk: b.bulk, q: qw.q, words: qw.words, order, shape: sorted.shape, G: qw.q.G ?? b.G };
 	};
-	const engine = <T>(_p: V.Point, x: Scalar | undefined, f: () => T): T =>
-		withEngine(s.keys, verbSpan, swept && x !== undefined ? `at ${swept.key}=${typeof x === 'number' ? shortNumber(x) : x}` : '', f);
 
 	const shown = { ...base };
 	if (sweptIsBulk) delete shown[swept!.key]; // the table's first column shows it
 	const bulkText = describeBulk({ name: bulkName, params: shown });
-	// a table's label names the charge chemical potential too (a single value's label comes from the engine's answer)
-	const sym = verb === 'mu' && bulkName === 'charged' && (base.d ?? 4) !== 2 ? 'μ_Q' : (SYMBOLS[verb]?.text ?? verb);
+	const sym = spec.tableSymbol?.(bulkName, base) ?? spec.symbol.text;
 	const results: Result[] = [];
 	let ref: StepRef | undefined;
 
-	if (kind === 'series') {
+	if (spec.kind === 'series') {
 		const p = pointAt(xs[0], orders[0]!);
-		const st = engine(p, undefined, () => V.seriesAt(p));
+		const st = call(undefined, () => spec.at(p));
 		tick();
 		const n = orders[0] as number;
-		results.push({
-			kind: 'series',
-			label: `ΔA series to order ${n} · ${bulkText}`,
-			terms: st.terms,
-			latex: seriesLatex(st),
-			order: n
-		});
+		results.push({ kind: 'series', label: `ΔA series to order ${n} · ${bulkText}`, terms: st.terms, latex: seriesLatex(st), order: n });
 		ref = { fields: Object.fromEntries(st.terms.map((t) => [`a${t.k}`, t.coeff])), order: n };
 	} else if (!s.sweep && !orderSweep && xs.length === 1 && orders.length === 1) {
-		const x = xs[0];
-		const order = orders[0]!;
-		const p = pointAt(x, order);
-		const args = argsOf(p.q);
-		const argText = Object.entries(args)
-			.map(([k, v]) => `${k}=${shortNumber(v)}`)
-			.join(' ');
-		if (kind === 'scalar') {
-			const { value, warning, fields: extra, symbol, tag, note } = engine(p, x, () => V.scalarAt(verb, p));
-			tick();
-			results.push({
-				kind: 'scalar',
-				label: `${symbol ?? sym}${tag ?? ''}${argText ? `${tag ? ' ' : ''}(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
-				value,
-				order,
-				latex: texScalar(verb, args, order, value),
-				fields: { ...args, ...(extra ?? {}) },
-				...(warning ? { warning } : {}),
-				...(note ? { note } : {})
-			});
-			ref = { value, fields: { ...args, ...(extra ?? {}) }, order };
-		} else if (kind === 'record') {
-			const fields = engine(p, x, () => V.recordAt(verb, p));
-			tick();
-			const note = V.recordNote(verb, p);
-			results.push({
-				kind: 'record',
-				label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`,
-				fields,
-				latex: texRecord(fields),
-				...(note ? { note } : {})
-			});
-			ref = { fields: { ...fields } };
-		} else {
-			const c = engine(p, x, () => V.checkAt(verb, p));
-			tick();
-			results.push({
-				kind: 'check',
-				label: `first law${c.relation ? ` ${c.relation}` : ''}${argText ? ` (${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
-				pass: c.pass,
-				lhs: c.lhs,
-				rhs: c.rhs,
-				residual: c.residual,
-				tolerance: c.tolerance,
-				order,
-				...(c.note ? { note: c.note } : {})
-			});
-			ref = { value: c.residual, fields: { lhs: c.lhs, rhs: c.rhs, residual: c.residual, ...(c.fields ?? {}) }, order };
-		}
+		const out = onePoint(
+			spec,
+			call(xs[0], () => pointAt(xs[0], orders[0]!)),
+			xs[0],
+			call,
+			sym,
+			bulkText
+		);
+		tick();
+		results.push(out.result);
+		ref = out.ref;
 	} else {
-		const table = buildTable(verb, kind, xKey, xs, orders, orderSweep, pointAt, engine, tick);
+		const table = buildTable(spec, xKey, xs, orders, orderSweep, (x, o) => call(x, () => pointAt(x, o)), call, tick);
 		table.label = `${sym} vs ${xKey} · ${bulkText}`;
 		const plotted = s.sweep !== undefined || s.sinks.some((k) => k.text === 'plot');
 		if (plotted) table.plot = { ...table.plot!, show: true };
-		if (plotted && xKey === 'l' && kind === 'scalar' && V.SERIES_VERBS.has(verb) && !sweptIsBulk) {
-			const validity = validityHints(orders, (o) => pointAt(xs[0], o));
+		if (plotted && xKey === 'l' && spec.kind === 'scalar' && spec.series && !sweptIsBulk) {
+			const validity = validityHints(orders, (o) => call(xs[0], () => pointAt(xs[0], o)));
 			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity };
 		}
 		results.push(table);
 		ref = tableRef(table);
 	}
 	return { results: applySinks(results, s.sinks, verb), ...(ref ? { ref } : {}) };
+}
+
+/** One point, one order: the verb's answer as a scalar, record or check result, and what `#n` exposes. */
+function onePoint(
+	spec: Exclude<VerbSpec, { kind: 'series' }>,
+	p: Point,
+	x: Scalar | undefined,
+	call: EngineCall,
+	sym: string,
+	bulkText: string
+): { result: Result; ref: StepRef } {
+	const args = argsOf(p.q);
+	const argText = Object.entries(args)
+		.map(([k, v]) => `${k}=${shortNumber(v)}`)
+		.join(' ');
+	const order = p.order;
+	if (spec.kind === 'scalar') {
+		const { value, warning, fields: extra, symbol, tag, note } = call(x, () => spec.at(p));
+		const fields = { ...args, ...(extra ?? {}) };
+		return {
+			result: {
+				kind: 'scalar',
+				label: `${symbol ?? sym}${tag ?? ''}${argText ? `${tag ? ' ' : ''}(${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
+				value,
+				order,
+				latex: texScalar(spec.symbol.tex || spec.name, args, order, value),
+				fields,
+				...(warning ? { warning } : {}),
+				...(note ? { note } : {})
+			},
+			ref: { value, fields: { ...fields }, order }
+		};
+	}
+	if (spec.kind === 'record') {
+		const { fields, note } = call(x, () => spec.at(p));
+		return {
+			result: {
+				kind: 'record',
+				label: `${sym}${argText ? `(${argText})` : ''} · ${bulkText}`,
+				fields,
+				latex: texRecord(fields),
+				...(note ? { note } : {})
+			},
+			ref: { fields: { ...fields } }
+		};
+	}
+	const c = call(x, () => spec.at(p));
+	return {
+		result: {
+			kind: 'check',
+			label: `${sym}${c.relation ? ` ${c.relation}` : ''}${argText ? ` (${argText})` : ''}, ${orderWords(order)} · ${bulkText}`,
+			pass: c.pass,
+			lhs: c.lhs,
+			rhs: c.rhs,
+			residual: c.residual,
+			tolerance: c.tolerance,
+			order,
+			...(c.note ? { note: c.note } : {})
+		},
+		ref: { value: c.residual, fields: { lhs: c.lhs, rhs: c.rhs, residual: c.residual, ...(c.fields ?? {}) }, order }
+	};
+}
+
+/** The line's bulk at one set of bulk keys: checked against its schema, built, and G for the verb. */
+function bulkAt(
+	name: BulkName,
+	params: Record<string, number | string>,
+	keys: A.KeyValue[],
+	verbSpan: A.Span,
+	where: string,
+	spec: VerbSpec,
+	env: LineEnv
+): { checked: Record<string, number | string>; bulk: Point['bulk']; G: number } {
+	const checked = checkBulk(name, params);
+	if (!checked.ok) throw keyError(keys, checked, verbSpan, where);
+	return withEngine(keys, verbSpan, where, () => {
+		const bulk = engine.makeBulk(name, checked.value);
+		return { checked: checked.value, bulk, G: spec.usesG ? engine.newtonG(env.units, bulk.d) : 1 };
+	});
 }
 
 function mainKey(keys: readonly string[]): string {
@@ -211,33 +248,40 @@ function withKey(base: Record<string, number | string>, key: string, value: Scal
 	return p;
 }
 
-/** The quantity keys at one point, each checked against its schema. */
+type Quantities = { q: Record<string, number>; words: Record<string, string> };
+
+/** One quantity key's value checked against its schema and put in its place. */
+function setQuantity(out: Quantities, kv: A.KeyValue, v: Scalar, where: string): void {
+	const k = canonicalKey(kv.key);
+	const c = checkKey(k, v);
+	if (!c.ok) throw new LangError(where ? `${c.message} (${where})` : c.message, kv.value.start, kv.value.end);
+	if (typeof c.value === 'string') out.words[k] = c.value;
+	else out.q[k] = c.value as number;
+}
+
+/**
+ * The quantity keys at one point, each checked against its schema. With `rescope` (a swept bulk key), a
+ * quantity written with bulk keys (`l=zh/2`) follows the swept key point by point.
+ */
 function quantitiesAt(
 	kvs: A.KeyValue[],
 	values: Map<A.KeyValue, Resolved>,
 	rescope: Parameters<typeof resolveValue>[1] | undefined,
 	env: LineEnv,
 	swept: A.KeyValue | undefined,
-	x: Scalar | undefined,
-	where: string
-): { q: Record<string, number>; words: Record<string, string> } {
-	const q: Record<string, number> = {};
-	const words: Record<string, string> = {};
+	where: string,
+	x?: Scalar
+): Quantities {
+	const out: Quantities = { q: {}, words: {} };
 	for (const kv of kvs) {
-		let v: Scalar;
-		if (kv === swept) v = x!;
-		else {
-			// a quantity written with bulk keys (`l=zh/2`) follows a swept bulk key point by point
-			const r = rescope && kv.value.type !== 'number' ? resolveValue(kv.value, rescope, env.limits) : values.get(kv)!;
-			v = r.many ? r.values[0]! : r.value;
+		if (kv === swept) {
+			if (x !== undefined) setQuantity(out, kv, x, where);
+			continue;
 		}
-		const k = canonicalKey(kv.key);
-		const c = checkKey(k, v);
-		if (!c.ok) throw new LangError(where ? `${c.message} (${where})` : c.message, kv.value.start, kv.value.end);
-		if (typeof c.value === 'string') words[k] = c.value;
-		else q[k] = c.value as number;
+		const r = rescope && kv.value.type !== 'number' ? resolveValue(kv.value, rescope, env.limits) : values.get(kv)!;
+		setQuantity(out, kv, r.many ? r.values[0]! : r.value, where);
 	}
-	return { q, words };
+	return out;
 }
 
 function keyError(keys: A.KeyValue[], c: { key?: string; message: string; hint?: string }, fallback: A.Span, where: string): LangError {

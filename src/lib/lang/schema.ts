@@ -123,8 +123,6 @@ function word(key: string): z.ZodType {
 	return z.enum(allowed as [string, ...string[]], `${key} must be one of ${allowed.join(', ')}`);
 }
 
-export { VERB_FORMS, type VerbForm } from './vocab';
-
 /** Check one quantity key's value. */
 export function checkKey(key: string, value: unknown): Checked<unknown> {
 	const s = Object.prototype.hasOwnProperty.call(KEY_SCHEMAS, key) ? KEY_SCHEMAS[key] : undefined;

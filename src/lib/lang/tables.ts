@@ -4,21 +4,22 @@
  * and the LaTeX of a series.
  */
 import { LangError } from './errors';
+import { isHoloError } from './engine';
 import { orderName } from './format';
 import type { Order, StepRef, TableResult } from './result';
+import type { EngineCall } from './run-verb';
 import type { Scalar } from './values';
-import type { Verb } from './vocab';
-import * as V from './verbs';
+import type { Point, SeriesTerms, VerbSpec } from './verbs/index';
+import { DEFAULT_VALIDITY_TOL } from './verbs/validity';
 
 export function buildTable(
-	verb: Verb,
-	kind: V.VerbKind,
+	spec: Exclude<VerbSpec, { kind: 'series' }>,
 	xKey: string,
 	xs: (Scalar | undefined)[],
 	orders: Order[],
 	orderSweep: boolean,
-	pointAt: (x: Scalar | undefined, o: Order) => V.Point,
-	engine: <T>(p: V.Point, x: Scalar | undefined, f: () => T) => T,
+	pointAt: (x: Scalar | undefined, o: Order) => Point,
+	call: EngineCall,
 	tick: () => void
 ): TableResult {
 	const rows: (number | string | null)[][] = [];
@@ -27,18 +28,18 @@ export function buildTable(
 	let note: string | undefined;
 	// soliton strips: which surface each row is (1 connected, 0 disconnected), as a last column
 	const phaseOf = new Map<unknown[], number>();
-	// a resummed value is never shown without its error estimate: each order column gets an `_err` column
-	const withError = verb === 'resum';
-	if (kind === 'scalar') {
-		columns = [xKey, ...orders.flatMap((o) => (withError ? [orderName(o), `${orderName(o)}_err`] : [orderName(o)]))];
+	if (spec.kind === 'scalar') {
+		// a value never shown without its error estimate (resum): each order column gets an `_err` column
+		const errorField = spec.errorField;
+		columns = [xKey, ...orders.flatMap((o) => (errorField ? [orderName(o), `${orderName(o)}_err`] : [orderName(o)]))];
 		for (const x of xs) {
 			const row: (number | string | null)[] = [x ?? null];
 			for (const o of orders) {
 				const p = pointAt(x, o);
-				const { value, warning: w, fields, note: n } = engine(p, x, () => V.scalarAt(verb, p));
+				const { value, warning: w, fields, note: n } = call(x, () => spec.at(p));
 				note ??= n;
 				row.push(value);
-				if (withError) row.push(fields?.error ?? null);
+				if (errorField) row.push(fields?.[errorField] ?? null);
 				if (fields?.connected !== undefined) phaseOf.set(row, fields.connected);
 				const at = p.q.l ?? p.q.R ?? 0;
 				if (w && (warnings.get(o)?.at ?? -Infinity) < at) warnings.set(o, { at, text: w });
@@ -51,13 +52,12 @@ export function buildTable(
 		const points = orderSweep ? orders.map((o) => [o, o] as const) : xs.map((x) => [x, orders[0]!] as const);
 		for (const [x, o] of points) {
 			const p = pointAt(orderSweep ? undefined : x, o);
-			const fields: Record<string, number> =
-				kind === 'record'
-					? engine(p, x, () => V.recordAt(verb, p))
-					: (() => {
-							const c = engine(p, x, () => V.checkAt(verb, p));
-							return { lhs: c.lhs, rhs: c.rhs, residual: c.residual, pass: c.pass ? 1 : 0 };
-						})();
+			let fields: Record<string, number>;
+			if (spec.kind === 'record') fields = call(x, () => spec.at(p)).fields;
+			else {
+				const c = call(x, () => spec.at(p));
+				fields = { lhs: c.lhs, rhs: c.rhs, residual: c.residual, pass: c.pass ? 1 : 0 };
+			}
 			if (columns.length === 1) columns.push(...Object.keys(fields));
 			rows.push([x ?? null, ...columns.slice(1).map((c) => fields[c] ?? null)]);
 			tick();
@@ -102,7 +102,7 @@ export function tableRef(t: TableResult): StepRef | undefined {
 }
 
 /** ΔA = ℓ^{2−d} Σ a_k (ℓ/z_h)^{kd}, PHYSICS.md's form of the series (each term at its own power of ℓ/scale). */
-export function seriesLatex(st: V.SeriesTerms): string {
+export function seriesLatex(st: SeriesTerms): string {
 	const d = st.d;
 	const terms = st.terms.map((t) => `\\left(${t.latex}\\right)\\left(\\frac{\\ell}{${st.scale}}\\right)^{${t.power}}`);
 	const pre = d === 2 ? '' : `\\ell^{${2 - d}}`;
@@ -113,17 +113,17 @@ export function seriesLatex(st: V.SeriesTerms): string {
  * The largest l where each order column stays within the default tolerance of the exact value, for the plot
  * to shade. A hint only: an order the engine cannot bound is left unshaded rather than failing the line.
  */
-export function validityHints(orders: Order[], pointOf: (o: Order) => V.Point): Record<string, number> {
+export function validityHints(orders: Order[], pointOf: (o: Order) => Point): Record<string, number> {
 	const out: Record<string, number> = {};
 	for (const o of orders) {
 		if (o === 'exact' || o < 1) continue;
 		try {
 			const p = pointOf(o);
-			if (!p.bulk.hasSeries) continue;
-			const r = V.recordAt('validity', p);
-			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max!;
+			if (!p.bulk.series) continue;
+			const r = p.holo.validity(p.bulk, o, DEFAULT_VALIDITY_TOL);
+			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max;
 		} catch (e) {
-			if (e instanceof LangError || V.isHoloError(e)) continue;
+			if (e instanceof LangError || isHoloError(e)) continue;
 			throw e;
 		}
 	}

@@ -1,27 +1,9 @@
 /**
- * The words of the language, with no dependencies, so the parser, completion and help (which ship to the
- * browser) share one list without pulling in mathjs or zod.
+ * The words of the language, with no heavy dependencies, so the parser, completion and help (which ship to
+ * the browser) share one list without pulling in mathjs or zod. Verbs come from the registry.
  */
-export const VERBS = [
-	'zstar',
-	'width',
-	'area',
-	'darea',
-	'entropy',
-	'dentropy',
-	'energy',
-	'tent',
-	'mu',
-	'firstlaw',
-	'stress',
-	'thermo',
-	'coeffs',
-	'validity',
-	'mi',
-	'resum',
-	'phases'
-] as const;
-export type Verb = (typeof VERBS)[number];
+// the verbs live in the registry (./verbs/index.ts): one module per verb
+export { isVerb, verbNames, verbSpec, type Verb } from './verbs/index';
 
 export const BULKS = ['vacuum', 'brane', 'boosted', 'charged', 'dp', 'wave', 'soliton', 'metric'] as const;
 export type BulkName = (typeof BULKS)[number];
@@ -102,39 +84,6 @@ export function canonicalKey(key: string): string {
 	return Object.prototype.hasOwnProperty.call(KEY_ALIASES, key) ? KEY_ALIASES[key]! : key;
 }
 
-export function isVerb(s: string): s is Verb {
-	return (VERBS as readonly string[]).includes(s);
-}
 export function isBulk(s: string): s is BulkName {
 	return (BULKS as readonly string[]).includes(s);
 }
-
-export interface VerbForm {
-	/** quantity keys this form takes (bulk keys are always allowed) */
-	keys: readonly string[];
-	required: readonly string[];
-}
-
-/**
- * Each verb's forms by subject; the first is the default when the line names none. `''` means the verb
- * takes no subject at all.
- */
-export const VERB_FORMS: Record<Verb, Record<string, VerbForm>> = {
-	zstar: { strip: { keys: ['l', 'phase'], required: ['l'] } },
-	width: { strip: { keys: ['zstar'], required: ['zstar'] } },
-	area: { strip: { keys: ['l', 'o', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	darea: { strip: { keys: ['l', 'o', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	entropy: { strip: { keys: ['l', 'o', 'G', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
-	dentropy: { strip: { keys: ['l', 'o', 'G', 'phase'], required: ['l'] }, ball: { keys: ['R', 'o', 'G'], required: ['R'] } },
-	energy: { strip: { keys: ['l', 'G'], required: ['l'] }, ball: { keys: ['R', 'G'], required: ['R'] } },
-	tent: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
-	mu: { strip: { keys: ['l', 'o', 'of'], required: ['l'] } },
-	firstlaw: { strip: { keys: ['l', 'o', 'tol', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol', 'G'], required: ['R'] } },
-	stress: { '': { keys: ['G'], required: [] } },
-	thermo: { '': { keys: ['G'], required: [] } },
-	coeffs: { darea: { keys: ['o'], required: ['o'] } },
-	validity: { darea: { keys: ['o', 'tol'], required: ['o'] } },
-	mi: { pair: { keys: ['l', 'gap', 'G'], required: ['l', 'gap'] } },
-	resum: { strip: { keys: ['l', 'o'], required: ['l'] } },
-	phases: { '': { keys: [], required: [] } }
-};

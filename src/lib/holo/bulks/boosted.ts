@@ -1,4 +1,6 @@
 import { HoloError } from '../errors';
+import { boostedFamily } from '../firstlaw-family';
+import { homogeneousSeries } from '../series/capability';
 import type { Bulk, Stress } from '../types';
 import { readDimension, readLength, readNumber, rejectUnknownKeys } from './params';
 
@@ -54,8 +56,8 @@ export function makeBoosted(params: Record<string, number | string>): Bulk {
 				{ c: kappa, p: d }
 			]
 		},
-		hasSeries: true,
-		series: { alpha: 1, beta: kappa },
+		series: homogeneousSeries(d, 'boosted', { alpha: 1, beta: kappa }),
+		firstLaw: boostedFamily(d, zh, v, kappa),
 		stress: (G): Stress => ({
 			tt: c(G) * (d * gamma * gamma - 1),
 			ty: -c(G) * d * gamma * gamma * v,

@@ -1,3 +1,5 @@
+import { staticFamily } from '../firstlaw-family';
+import { homogeneousSeries } from '../series/capability';
 import type { Bulk, Stress } from '../types';
 import { readDimension, readLength, rejectUnknownKeys } from './params';
 
@@ -28,8 +30,8 @@ export function makeBrane(params: Record<string, number | string>): Bulk {
 			],
 			hTerms: []
 		},
-		hasSeries: true,
-		series: { alpha: 1, beta: 0 },
+		series: homogeneousSeries(d, 'brane', { alpha: 1, beta: 0 }),
+		firstLaw: staticFamily(d, zh),
 		stress: (G): Stress => ({ tt: (d - 1) * c(G), ty: 0, xx: c(G), yy: c(G) }),
 		thermo: (G) => ({
 			T: d / (4 * Math.PI * zh),

@@ -1,5 +1,7 @@
 import { HoloError } from '../errors';
-import type { Bulk, Stress } from '../types';
+import { chargedFamily, staticFamily } from '../firstlaw-family';
+import { chargedBraneSeries, homogeneousSeries } from '../series/capability';
+import type { Bulk, PowerTerm, Stress } from '../types';
 import { readDimension, readLength, readNumber, rejectUnknownKeys } from './params';
 
 /**
@@ -7,7 +9,7 @@ import { readDimension, readLength, readNumber, rejectUnknownKeys } from './para
  * T = (d − (d−2)q²)/(4π zh), extremal at q² = d/(d−2) (rejected: non-extremal only).
  * Stress from the z^d coefficient of f (de Haro, Skenderis & Solodukhin 2001): e = (d−1)(1+q²)/(16πG zh^d),
  * p = (1+q²)/(16πG zh^d) (traceless). s = 1/(4G zh^{d−1}). Its small-width series mixes the powers
- * (l/zh)^{da + 2(d−1)b} (series/charged.ts); `series` (the one-power shape) stays undefined.
+ * (l/zh)^{da + 2(d−1)b} (series/charged.ts, series/capability.ts).
  *
  * Charge normalisation (ours, stated because μ and ρ are convention-dependent; only μρ is not): action
  * (1/16πG)∫√−g (R + d(d−1) − F_{μν}F^{μν}), A_t = μ(1 − (z/zh)^{d−2}). The Einstein–Maxwell equations then
@@ -39,6 +41,11 @@ export function makeCharged(params: Record<string, number | string>): Bulk {
 	}
 	const m = 2 * (d - 1);
 	const c = (G: number) => (1 + q2) / (16 * Math.PI * G * Math.pow(zh, d));
+	const fTerms: PowerTerm[] = [
+		{ c: 1, p: 0 },
+		{ c: -(1 + q2), p: d },
+		{ c: q2, p: m }
+	];
 	return {
 		name: 'charged',
 		d,
@@ -51,14 +58,12 @@ export function makeCharged(params: Record<string, number | string>): Bulk {
 			h: () => 1,
 			scale: zh,
 			zh,
-			fTerms: [
-				{ c: 1, p: 0 },
-				{ c: -(1 + q2), p: d },
-				{ c: q2, p: m }
-			],
+			fTerms,
 			hTerms: []
 		},
-		hasSeries: true,
+		// d = 2: f's two powers coincide and q = 0: the BTZ brane
+		series: d === 2 ? homogeneousSeries(d, 'brane', { alpha: 1, beta: 0 }) : chargedBraneSeries(d, q2),
+		firstLaw: d === 2 ? staticFamily(d, zh) : chargedFamily(d, zh, q, chargeCoupling(d), fTerms),
 		stress: (G): Stress => ({ tt: (d - 1) * c(G), ty: 0, xx: c(G), yy: c(G) }),
 		thermo: (G) => {
 			const t = { T: (d - (d - 2) * q2) / (4 * Math.PI * zh), s: 1 / (4 * G * Math.pow(zh, d - 1)), e: (d - 1) * c(G), p: c(G) };

@@ -81,7 +81,6 @@ export function makeDpBulk(params: Record<string, number | string>): Bulk {
 			],
 			hTerms: []
 		},
-		hasSeries: false,
 		stress: (G): Stress => ({ tt: e(G), ty: 0, xx: pr(G), yy: pr(G) }),
 		thermo: (G) => ({ T, s: s(G), e: e(G), p: pr(G) })
 	};

@@ -64,7 +64,6 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		params: out,
 		horizon: typeof nums.zh === 'number' ? nums.zh : undefined,
 		scale: typeof nums.zh === 'number' ? nums.zh : undefined,
-		slice: { d, f, h, zmax: Number.isFinite(zmax) ? zmax : undefined },
-		hasSeries: false
+		slice: { d, f, h, zmax: Number.isFinite(zmax) ? zmax : undefined }
 	};
 }

@@ -57,7 +57,6 @@ export function makeSolitonBulk(params: Record<string, number | string>): Bulk {
 		params: { d, z0, period: (4 * Math.PI * z0) / d },
 		scale: z0,
 		slice: sliceOf(P),
-		hasSeries: false,
 		// y is the circle θ here
 		stress: (G): Stress => ({ tt: -c(G), ty: 0, xx: c(G), yy: -(d - 1) * c(G) }),
 		thermo: (G) => ({ T: 0, s: 0, e: -c(G), p: c(G), py: -(d - 1) * c(G) })

@@ -10,7 +10,6 @@ export function makeVacuum(params: Record<string, number | string>): Bulk {
 		d,
 		params: { d },
 		slice: { d, f: () => 1, h: () => 1, fTerms: [], hTerms: [] },
-		hasSeries: false,
 		stress: () => ({ tt: 0, ty: 0, xx: 0, yy: 0 }),
 		thermo: () => ({ T: 0, s: 0, e: 0, p: 0 })
 	};

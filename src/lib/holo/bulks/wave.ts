@@ -1,3 +1,5 @@
+import { waveFamily } from '../firstlaw-family';
+import { homogeneousSeries } from '../series/capability';
 import type { Bulk, Stress } from '../types';
 import { readDimension, readLength, rejectUnknownKeys } from './params';
 
@@ -27,8 +29,8 @@ export function makeWave(params: Record<string, number | string>): Bulk {
 				{ c: 1, p: d }
 			]
 		},
-		hasSeries: true,
-		series: { alpha: 0, beta: 1 },
+		series: homogeneousSeries(d, 'wave', { alpha: 0, beta: 1 }),
+		firstLaw: waveFamily(d, zp),
 		stress: (G): Stress => ({ tt: e(G), ty: -e(G), xx: 0, yy: e(G) }),
 		thermo: (G) => ({ T: 0, s: 0, e: e(G), p: 0, py: e(G) })
 	};

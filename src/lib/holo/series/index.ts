@@ -1,24 +1,21 @@
 import { HoloError } from '../errors';
+import { MAX_ORDER } from '../limits';
 import { solveStrip } from '../strip';
-import type { Bulk, SeriesCoeff } from '../types';
-import { btzCoeff, fractionValue } from './btz';
-import { chargedSeries, evalQ2 } from './charged';
+import type { Bulk, SeriesCapability, SeriesCoeff } from '../types';
 import { kappaCoeffs } from './coeffs';
-import { chargedLatex, coeffLatex } from './latex';
 import { radiusEstimate, radiusFromGrowth } from './radius';
 
-/** Highest order served (the double-precision coefficients stay within 1e−12 up to here). */
-export const MAX_ORDER = 14;
+export { MAX_ORDER };
 
 function checkOrder(n: number): void {
 	if (!Number.isInteger(n) || n < 0) throw new HoloError('order must be a non-negative integer', 'o');
 	if (n > MAX_ORDER) throw new HoloError(`order must be ≤ ${MAX_ORDER}`, 'o', 'use o=exact');
 }
 
-function requireSeries(bulk: Bulk): void {
-	if (!bulk.hasSeries || !bulk.scale) {
-		throw new HoloError(`no closed-form series for ${bulk.name}`, 'o', 'use o=exact');
-	}
+/** The bulk's series (Bulk.series), or the error a line without one gets. */
+function seriesOf(bulk: Bulk): SeriesCapability {
+	if (!bulk.series || !bulk.scale) throw new HoloError(`no closed-form series for ${bulk.name}`, 'o', 'use o=exact');
+	return bulk.series;
 }
 
 /**
@@ -31,43 +28,18 @@ export function boostedCoeffPolys(d: number, n: number): number[][] {
 	return kappaCoeffs(d, n).map((p) => p.slice());
 }
 
-/**
- * The charged brane mixes the powers (l/zh)^{da + 2(d−1)b} (series/charged.ts): its "order n" is every power
- * K ≤ n d, the same cut in l/zh as the other bulks. d = 2 is the BTZ brane (the charge drops out of f).
- */
-function isChargedSeries(bulk: Bulk): boolean {
-	return bulk.name === 'charged' && bulk.d > 2;
-}
-
 /** Exponents of l/scale of the terms of order n, ascending: k d (k = 1..n), or the charged brane's K ≤ n d. */
 export function seriesPowers(bulk: Bulk, n: number): number[] {
-	requireSeries(bulk);
+	const s = seriesOf(bulk);
 	checkOrder(n);
-	if (isChargedSeries(bulk)) return chargedSeries(bulk.d, n).powers;
-	return Array.from({ length: n }, (_, i) => (i + 1) * bulk.d);
+	return s.powers(n);
 }
 
 /** The numbers a_k (k = 1..n) of this bulk (brane, boosted, wave); charged: c_K in the order of seriesPowers. */
 export function seriesValues(bulk: Bulk, n: number): number[] {
-	requireSeries(bulk);
+	const s = seriesOf(bulk);
 	checkOrder(n);
-	const { d } = bulk;
-	if (isChargedSeries(bulk)) {
-		const q2 = bulk.params.q2 as number;
-		return chargedSeries(d, n).polys.map((p) => evalQ2(p, q2));
-	}
-	if (d === 2) {
-		if (bulk.name !== 'brane' && bulk.name !== 'charged') throw new HoloError(`no series for ${bulk.name} at d = 2`, 'd');
-		return Array.from({ length: n }, (_, i) => fractionValue(btzCoeff(i + 1)));
-	}
-	const polys = kappaCoeffs(d, n);
-	const { alpha, beta } = bulk.series!;
-	return polys.map((p, i) => {
-		if (alpha === 0) return p[i + 1] * Math.pow(beta, i + 1);
-		let s = 0;
-		for (let r = p.length - 1; r >= 0; r--) s = s * beta + p[r];
-		return s;
-	});
+	return s.values(n);
 }
 
 /**
@@ -75,42 +47,30 @@ export function seriesValues(bulk: Bulk, n: number): number[] {
  * brane, boosted and wave; the charged brane's terms (k = index, power = da + 2(d−1)b ≤ n d, `poly` in q²).
  */
 export function seriesCoeffs(bulk: Bulk, n: number): SeriesCoeff[] {
-	if (isChargedSeries(bulk)) {
-		const values = seriesValues(bulk, n);
-		const { powers, polys } = chargedSeries(bulk.d, n);
-		return values.map((value, i) => {
-			const { latex, exact } = chargedLatex(bulk, powers[i], polys[i]);
-			return { k: i + 1, power: powers[i], value, latex, exact, poly: polys[i].slice() };
-		});
-	}
-	const values = seriesValues(bulk, n);
-	const polys = bulk.d >= 3 ? kappaCoeffs(bulk.d, n) : undefined;
-	return values.map((value, i) => {
-		const k = i + 1;
-		const latex = coeffLatex(bulk, k, value, polys?.[i]);
-		const c: SeriesCoeff = { k, power: k * bulk.d, value, latex, exact: !latex.startsWith('\\approx') };
-		if (bulk.name === 'boosted' && polys) c.poly = polys[i].slice();
-		return c;
-	});
+	const s = seriesOf(bulk);
+	checkOrder(n);
+	return s.coeffs(n);
 }
 
 /** Order-n series for ΔA at width l (order 0 is the vacuum: 0). */
 export function deltaAreaSeries(bulk: Bulk, l: number, n: number): number {
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const s = seriesOf(bulk);
 	checkOrder(n);
 	if (n === 0) return 0;
-	const a = seriesValues(bulk, n);
-	if (isChargedSeries(bulk)) {
+	const a = s.values(n);
+	if (s.mixedPowers) {
 		const x = l / bulk.scale!;
-		const K = seriesPowers(bulk, n);
-		let s = 0;
-		for (let i = a.length - 1; i >= 0; i--) s += a[i] * Math.pow(x, K[i]);
-		return Math.pow(l, 2 - bulk.d) * s;
+		const K = s.powers(n);
+		let sum = 0;
+		for (let i = a.length - 1; i >= 0; i--) sum += a[i] * Math.pow(x, K[i]);
+		return Math.pow(l, 2 - bulk.d) * sum;
 	}
+	// one power per order, k d: Horner in τ = (l/scale)^d
 	const tau = Math.pow(l / bulk.scale!, bulk.d);
-	let s = 0;
-	for (let k = n; k >= 1; k--) s = (s + a[k - 1]) * tau;
-	return Math.pow(l, 2 - bulk.d) * s;
+	let sum = 0;
+	for (let k = n; k >= 1; k--) sum = (sum + a[k - 1]) * tau;
+	return Math.pow(l, 2 - bulk.d) * sum;
 }
 
 export interface ValidityResult {
@@ -130,8 +90,8 @@ const validityCache = new Map<string, ValidityResult>();
  * between the fits to MAX_ORDER − 2 and MAX_ORDER orders, plus 1% (its measured bias at q = 0 is ~0.5%).
  */
 export function seriesRadiusEstimate(bulk: Bulk): { radius: number; uncertainty: number } {
-	requireSeries(bulk);
-	if (isChargedSeries(bulk)) {
+	seriesOf(bulk);
+	if (seriesOf(bulk).mixedPowers) {
 		const at = (n: number) => bulk.scale! * radiusFromGrowth(seriesPowers(bulk, n), seriesValues(bulk, n), bulk.d);
 		const r = at(MAX_ORDER);
 		return { radius: r, uncertainty: Math.abs(r - at(MAX_ORDER - 2)) + 0.01 * r };
@@ -152,7 +112,7 @@ export function seriesRadius(bulk: Bulk): number {
  * 1e−3·scale and bisection to 1e−6 relative. `radius` as in `seriesRadius`.
  */
 export function validity(bulk: Bulk, n: number, tol: number): ValidityResult {
-	requireSeries(bulk);
+	seriesOf(bulk);
 	checkOrder(n);
 	if (!(tol > 0) || !(tol < 1)) throw new HoloError('tol must satisfy 0 < tol < 1', 'tol');
 	const key = `${bulk.name}:${JSON.stringify(bulk.params)}:${n}:${tol}`;
@@ -197,9 +157,9 @@ export function validity(bulk: Bulk, n: number, tol: number): ValidityResult {
 
 /** undefined when order n is reliable at l (within 1% of exact); otherwise a sentence saying why not. */
 export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefined {
-	if (n === 0 || !bulk.hasSeries) return undefined;
+	if (n === 0 || !bulk.series) return undefined;
 	const { l_max, radius, radius_err } = validity(bulk, n, 1e-2);
-	const how = isChargedSeries(bulk) ? ', estimated from the growth of the coefficients' : ', Domb–Sykes extrapolation';
+	const how = bulk.series.mixedPowers ? ', estimated from the growth of the coefficients' : ', Domb–Sykes extrapolation';
 	// only past the radius by more than its uncertainty: a still-converging series must not be called divergent
 	if (l > radius + radius_err) {
 		return `l=${fmt(l)} is beyond the series' radius of convergence (${fmt(radius)} ± ${fmt(radius_err)}${how}): an order-${n} truncation here is a number, not an approximation — use o=exact`;

@@ -1,4 +1,3 @@
-import type { Bulk } from '../types';
 import { btzCoeff } from './btz';
 import { EXACT_ORDER, exactLatex } from './exact-latex';
 import type { ExactKind } from './exact';
@@ -10,17 +9,15 @@ import { EXACT_CHARGED_ORDER, exactChargedLatex } from './exact-charged';
  * decimal that says where the exact form stops. For a₁ the exact form agrees with the first-law value
  * a₁(0) = (d−1)/(4π c_d) (Bhattacharya, Nozaki, Takayanagi & Ugajin 2013; checked in the tests).
  */
-export function coeffLatex(bulk: Bulk, k: number, value: number, poly?: number[]): string {
-	const d = bulk.d;
+export function coeffLatex(d: number, kind: ExactKind, k: number, value: number, poly?: number[]): string {
 	if (d === 2) {
 		const f = btzCoeff(k);
 		const neg = f.num < 0n;
 		return `${neg ? '-' : ''}\\frac{${neg ? -f.num : f.num}}{${f.den}}`;
 	}
-	const kind = bulk.name as ExactKind;
 	if (Number.isInteger(d) && k <= EXACT_ORDER[kind]) return exactLatex(d, kind, k);
 	const note = `\\quad\\text{(exact form computed to order ${EXACT_ORDER[kind]})}`;
-	if (bulk.name === 'boosted' && poly) {
+	if (kind === 'boosted' && poly) {
 		const terms = poly.map((c, r) => (r === 0 ? sci(c) : `${sci(c)}\\,\\kappa${r > 1 ? `^{${r}}` : ''}`));
 		return `\\approx ${terms.join(' + ').replace(/\+ -/g, '- ')}${note}`;
 	}
@@ -32,8 +29,7 @@ export function coeffLatex(bulk: Bulk, k: number, value: number, poly?: number[]
  * π and B(s/m, ½) (exact-charged.ts) for K ≤ EXACT_CHARGED_ORDER·d, beyond it 15-digit decimals marked ≈
  * with a note. The value at the bulk's q is the SeriesCoeff's `value`.
  */
-export function chargedLatex(bulk: Bulk, K: number, poly: number[]): { latex: string; exact: boolean } {
-	const d = bulk.d;
+export function chargedLatex(d: number, K: number, poly: number[]): { latex: string; exact: boolean } {
 	if (K <= EXACT_CHARGED_ORDER * d) return { latex: exactChargedLatex(d, K), exact: true };
 	const terms = poly.map((c, r) => (r === 0 ? sci(c) : `${sci(c)}\\,q^{${2 * r}}`)).filter((_, r) => poly[r] !== 0);
 	const body = terms.length ? terms.join(' + ').replace(/\+ -/g, '- ') : '0';

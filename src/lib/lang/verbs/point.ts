@@ -1,0 +1,104 @@
+/**
+ * Engine questions several verbs ask at one point: the strip's and the ball's areas at an order, the
+ * soliton's surface in the line's phase, the warning a series value carries. The engine comes with the point
+ * (`p.holo`), as everywhere in the registry.
+ */
+import type { SolitonPhaseChoice, SolitonSurface } from '../../holo/index';
+import type { Point, ScalarAt } from './types';
+
+/** A line's order as a whole number, for verbs and forms that need a series truncation. */
+export function requireSeries(p: Point): number {
+	if (p.order === 'exact') throw new Error('unreachable: exact order asked of a series');
+	if (!p.bulk.series) throw new p.holo.HoloError(`the ${p.bulk.name} bulk has no closed-form series: use o=exact`, 'o');
+	return p.order;
+}
+
+export function stripDeltaArea(p: Point): number {
+	const l = p.q.l!;
+	if (p.bulk.name === 'soliton' && p.order === 'exact') return solitonSurfaceAt(p).areaFinite - p.holo.vacuumAreaFinite(p.bulk.d, l);
+	if (p.order === 'exact') return p.holo.deltaArea(p.bulk, l);
+	return p.holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
+}
+
+export function stripArea(p: Point): number {
+	const l = p.q.l!;
+	if (p.bulk.name === 'soliton' && p.order === 'exact') return solitonSurfaceAt(p).areaFinite;
+	if (p.order === 'exact') return p.holo.areaFinite(p.bulk, l);
+	return p.holo.vacuumAreaFinite(p.bulk.d, l) + p.holo.deltaAreaSeries(p.bulk, l, requireSeries(p));
+}
+
+/** The soliton's strip surface in the line's phase (rt by default); other bulks have one phase, the connected. */
+export function solitonSurfaceAt(p: Point): SolitonSurface {
+	const phase = (p.words.phase ?? 'rt') as SolitonPhaseChoice;
+	return p.holo.solitonSurface({ d: p.bulk.d, z0: Number(p.bulk.params.z0) }, p.q.l!, phase);
+}
+
+/** phase=… outside the soliton: only the connected surface exists there (and it is the RT one). */
+function checkPhase(p: Point): void {
+	const phase = p.words.phase;
+	if (phase === undefined || p.bulk.name === 'soliton' || phase !== 'disconnected') return;
+	throw new p.holo.HoloError(
+		`the ${p.bulk.name} bulk has one strip surface (connected): phase=disconnected is for the soliton`,
+		'phase',
+		'use phase=rt or leave it out'
+	);
+}
+
+const short = (x: number) => String(Number(x.toPrecision(6)));
+
+/**
+ * What a soliton strip answer is about: its phase, whether that is the RT surface, and l_c, l_max beside it.
+ * Every verb with a phase= key passes its answer through here, so a phase the bulk lacks is refused here too.
+ */
+export function withSolitonPhase(p: Point, out: ScalarAt): ScalarAt {
+	checkPhase(p);
+	if (p.bulk.name !== 'soliton' || p.shape === 'ball' || p.q.l === undefined) return out;
+	const s = solitonSurfaceAt(p);
+	const ph = p.holo.solitonPhases({ d: p.bulk.d, z0: Number(p.bulk.params.z0) });
+	const which = `${s.phase}${s.minimal ? ', the RT surface' : ', not minimal'}`;
+	const note =
+		`${s.phase} surface (${s.minimal ? 'minimal: the RT surface' : 'not the minimal one: not the entanglement entropy'}); ` +
+		`l_c = ${short(ph.lc)}: connected below, disconnected above; connected surfaces exist up to l_max = ${short(ph.lmax)}` +
+		(s.phase === 'disconnected' ? '; the two sheets reach the cap z0, given as z*' : '');
+	return {
+		...out,
+		tag: `${out.tag ?? ''} [${which}]`,
+		note: out.note ? `${out.note}. ${note}` : note,
+		fields: { ...(out.fields ?? {}), l_c: ph.lc, l_max: ph.lmax, connected: s.phase === 'connected' ? 1 : 0 }
+	};
+}
+
+/** The engine's balls live in the brane (and trivially in vacuum). */
+export function ballZh(p: Point, verb: string): number | undefined {
+	if (p.bulk.name === 'vacuum') return undefined;
+	if (p.bulk.name !== 'brane') throw new p.holo.HoloError(`${verb} ball needs the brane or vacuum bulk`, 'bulk', 'use brane …');
+	return p.bulk.horizon!;
+}
+
+/** The ball's ΔA: exact by shooting, or its series, known to order 1 (Blanco, Casini, Hung & Myers 2013). */
+export function ballDeltaArea(p: Point, verb: string): number {
+	const R = p.q.R!;
+	const zh = ballZh(p, verb);
+	if (zh === undefined || p.order === 0) return 0;
+	if (p.order === 'exact') return p.holo.ballDeltaArea(p.bulk.d, R, zh).value;
+	if (p.order === 1) return p.holo.ballDeltaAreaFirstOrder(p.bulk.d, R, zh);
+	throw new p.holo.HoloError('the ball series is known to order 1: use o=1 or o=exact', 'o');
+}
+
+export function ballArea(p: Point, verb: string): number {
+	return p.holo.ballVacuumAreaFinite(p.bulk.d) + ballDeltaArea(p, verb);
+}
+
+/** The warning a series value of a strip carries at this point, if any. */
+export function seriesWarningAt(p: Point): string | undefined {
+	if (p.order === 'exact' || !p.bulk.series || p.shape === 'ball') return undefined;
+	const l = p.q.l;
+	if (l === undefined) return undefined;
+	return p.holo.seriesWarning(p.bulk, l, p.order) ?? undefined;
+}
+
+/** A value with the series warning of its point attached (when the verb's orders are truncations). */
+export function valueAt(p: Point, value: number, extra: Omit<ScalarAt, 'value'> = {}): ScalarAt {
+	const warning = seriesWarningAt(p);
+	return warning ? { value, ...extra, warning } : { value, ...extra };
+}
