@@ -73,36 +73,15 @@ async function lightLatencies(base, key) {
 
 const rows = [];
 const load = [];
-try {
-	// light lines: in-process, then through the fleet with one worker
-	workers = startWorkers(1);
-	while (!workers.every((w) => w.log.includes('ready'))) await sleep(200);
-	while ((await health(fleet.baseUrl)).queue !== 'fleet') await sleep(200);
-	const lightHere = await lightLatencies(here.baseUrl, keys.here);
-	const lightFleet = await lightLatencies(fleet.baseUrl, keys.fleet);
-	emit({ name: 'light line in-process', ...lightHere });
-	emit({ name: 'light line through the fleet', ...lightFleet });
-
-	// the heavy sweep in-process (one heavy evaluation process), then on 1, 2, 4 workers
-	load.push(loadavg()[0]);
-	const base = await evalOnce(here.baseUrl, keys.here, HEAVY);
-	rows.push({ label: 'in-process (one heavy evaluation process)', ms: base.ms });
-	emit({ name: 'heavy sweep in-process', ms: base.ms });
-	const reference = JSON.stringify(base.body.results);
-	for (const n of WORKER_COUNTS) {
-		await stopWorkers();
-		await sleep(1500);
-		workers = startWorkers(n);
-		while (!workers.every((w) => w.log.includes('ready'))) await sleep(200);
-		await sleep(2500); // the server sees every heartbeat
-		load.push(loadavg()[0]);
-		const r = await evalOnce(fleet.baseUrl, keys.fleet, HEAVY);
-		const same = JSON.stringify(r.body.results) === reference;
-		rows.push({ label: `fleet, ${n} worker${n > 1 ? 's' : ''} (${n} heavy process${n > 1 ? 'es' : ''})`, ms: r.ms, same });
-		emit({ name: `heavy sweep, ${n} workers`, ms: r.ms, same });
-	}
-
+let lightHere;
+let lightFleet;
+/** Rewritten after each measurement, so a run stopped early still leaves what it measured. */
+function report() {
 	const s = (ms) => (ms / 1000).toFixed(1);
+	const lightRows = lightHere
+		? `| in-process | ${lightHere.p50.toFixed(1)} | ${lightHere.p90.toFixed(1)} |
+| through the fleet (1 worker) | ${lightFleet.p50.toFixed(1)} | ${lightFleet.p90.toFixed(1)} |`
+		: '';
 	writeSection(
 		'fleet',
 		`## Fleet (\`npm run bench -- fleet\`)
@@ -118,12 +97,44 @@ Light line \`${LIGHT}\`, ${LIGHT_RUNS} requests back to back with an API key (af
 
 | evaluated | p50 ms | p90 ms |
 |---|---|---|
-| in-process | ${lightHere.p50.toFixed(1)} | ${lightHere.p90.toFixed(1)} |
-| through the fleet (1 worker) | ${lightFleet.p50.toFixed(1)} | ${lightFleet.p90.toFixed(1)} |
+${lightRows}
 
-Queue overhead per light line (p50 difference): ${(lightFleet.p50 - lightHere.p50).toFixed(1)} ms — a job added, taken, its progress and answer
-passed through Redis streams; it is paid once per line (or chunk), so it matters for light lines only.`
+Queue overhead per light line (p50 difference): ${(lightFleet.p50 - lightHere.p50).toFixed(1)} ms — a job added, taken and answered
+through Redis (list, lock, event stream); it is paid once per line (or chunk), so it matters for light lines only.`
 	);
+}
+
+try {
+	// light lines: in-process, then through the fleet with one worker
+	workers = startWorkers(1);
+	while (!workers.every((w) => w.log.includes('ready'))) await sleep(200);
+	while ((await health(fleet.baseUrl)).queue !== 'fleet') await sleep(200);
+	lightHere = await lightLatencies(here.baseUrl, keys.here);
+	lightFleet = await lightLatencies(fleet.baseUrl, keys.fleet);
+	report();
+	emit({ name: 'light line in-process', ...lightHere });
+	emit({ name: 'light line through the fleet', ...lightFleet });
+
+	// the heavy sweep in-process (one heavy evaluation process), then on 1, 2, 4 workers
+	load.push(loadavg()[0]);
+	const base = await evalOnce(here.baseUrl, keys.here, HEAVY);
+	rows.push({ label: 'in-process (one heavy evaluation process)', ms: base.ms });
+	emit({ name: 'heavy sweep in-process', ms: base.ms });
+	report();
+	const reference = JSON.stringify(base.body.results);
+	for (const n of WORKER_COUNTS) {
+		await stopWorkers();
+		await sleep(1500);
+		workers = startWorkers(n);
+		while (!workers.every((w) => w.log.includes('ready'))) await sleep(200);
+		await sleep(2500); // the server sees every heartbeat
+		load.push(loadavg()[0]);
+		const r = await evalOnce(fleet.baseUrl, keys.fleet, HEAVY);
+		const same = JSON.stringify(r.body.results) === reference;
+		rows.push({ label: `fleet, ${n} worker${n > 1 ? 's' : ''} (${n} heavy process${n > 1 ? 'es' : ''})`, ms: r.ms, same });
+		emit({ name: `heavy sweep, ${n} workers`, ms: r.ms, same });
+		report();
+	}
 } finally {
 	await stopWorkers();
 	await here.stop();
