@@ -98,6 +98,8 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		});
 		await until(`both workers ready:\n${workers.map((w) => w.log).join('\n')}`, () => workers.every(ready), 120_000);
 		await until('health says fleet', async () => (await health()).queue === 'fleet', 60_000);
+		// the server reads the workers' heartbeats every second: let it have seen both
+		await new Promise((r) => setTimeout(r, 2500));
 		fleet = new Client(server.baseUrl);
 		const r = await fleet.post('/api/auth/signin', { email: 'tomas@sable.test', password: DEMO_PASSWORD });
 		expect(r.status).toBe(200);
