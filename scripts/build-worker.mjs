@@ -18,3 +18,18 @@ await build({
 	banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" }
 });
 console.log(`built ${process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs'}`);
+
+// The fleet's evaluation worker (`npm run worker`, src/lib/server/eval/fleet/worker-main.ts): it forks the bundle
+// above like the server does; its packages (bullmq) load from node_modules.
+await build({
+	entryPoints: [resolve(root, 'src/lib/server/eval/fleet/worker-main.ts')],
+	outfile: resolve(root, 'dist/fleet-worker.mjs'),
+	bundle: true,
+	platform: 'node',
+	format: 'esm',
+	target: 'node20',
+	packages: 'external',
+	sourcemap: true,
+	logLevel: 'warning'
+});
+console.log('built dist/fleet-worker.mjs');

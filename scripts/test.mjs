@@ -1,6 +1,7 @@
 // `npm test`: the static checks (svelte-check, ESLint with the import boundaries, Prettier), then unit, API and
-// browser tests. The API and browser tests run against the real built server, so this builds first. Chromium and
-// pdflatex (the LaTeX export's compile test) are installed when missing or the run fails — never skipped.
+// browser tests. The API and browser tests run against the real built server, so this builds first. Chromium,
+// pdflatex (the LaTeX export's compile test) and redis-server (the fleet test) are installed when missing or the
+// run fails — never skipped.
 import { spawnSync } from 'node:child_process';
 
 const step = (label, cmd, args) => {
@@ -39,6 +40,7 @@ if (failed.length) {
 
 step('chromium', node, ['scripts/ensure-chromium.mjs']);
 step('pdflatex', node, ['scripts/ensure-texlive.mjs']);
+step('redis-server', node, ['scripts/ensure-redis.mjs']);
 step('build (worker + app)', node, ['scripts/build-worker.mjs']);
 step('vite build', node, ['node_modules/vite/bin/vite.js', 'build', '--logLevel', 'warn']);
 step('vitest (unit, api, e2e)', node, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)]);

@@ -3,6 +3,7 @@ import { json, text } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { warmPool } from '$lib/server/eval/pool';
+import { connectFleet } from '$lib/server/eval/fleet';
 import { randomUUID } from 'node:crypto';
 import { authenticateSession } from '$lib/server/auth/sessions';
 import { findUserByApiKey } from '$lib/server/auth/apikey';
@@ -12,6 +13,8 @@ import { judgeWrite } from '$lib/server/security/writes';
 export const init: ServerInit = () => {
 	// start the evaluation processes in the background; requests do not wait for them
 	if (!building) warmPool().catch((e) => console.error('could not warm the evaluation pool', e));
+	// fleet mode (BULKPAD_QUEUE): connect at start, so /api/health says where lines go from the first request
+	if (!building) connectFleet();
 };
 
 /** Outermost, so every answer gets the headers: pages, JSON, downloads, redirects and the refusals below. */

@@ -7,8 +7,10 @@ describe('health', () => {
 		const r = await new Client().get('/api/health');
 		expect(r.status).toBe(200);
 		expect(r.body).toMatchObject({ ok: true, db: 'ok' });
-		// anyone may ask, so it says nothing about the accounts (it used to count them)
-		expect(Object.keys(r.body).sort()).toEqual(['db', 'ok']);
+		// anyone may ask, so it says nothing about the accounts (it used to count them); `queue` says where lines are
+		// evaluated (in-process here: no BULKPAD_QUEUE; tests/api/fleet.test.ts has the fleet's answers)
+		expect(Object.keys(r.body).sort()).toEqual(['db', 'ok', 'queue']);
+		expect(r.body.queue).toBe('in-process');
 	});
 });
 

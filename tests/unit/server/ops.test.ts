@@ -1,7 +1,9 @@
 // The shipped systemd units (ops/): what README › Operations promises of them, and systemd's own check when
 // systemd-analyze is on the machine.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { readFileSync } from 'node:fs';
+import { copyFileSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 /** `Key=value` lines of a unit file by section; a key may repeat (Environment=). */
@@ -65,12 +67,54 @@ describe('ops/bulkpad.service', () => {
 
 	// reported as skipped, not passed, on a machine without systemd
 	it.skipIf(spawnSync('systemd-analyze', ['--version']).status !== 0)('passes systemd-analyze verify', () => {
-		for (const unit of ['ops/bulkpad.service', 'ops/bulkpad-backup.service', 'ops/bulkpad-backup.timer']) {
+		for (const unit of ['ops/bulkpad.service', 'ops/bulkpad-backup.service', 'ops/bulkpad-backup.timer', 'ops/bulkpad-redis.service']) {
 			const r = spawnSync('systemd-analyze', ['verify', '--man=no', unit], { encoding: 'utf8' });
 			expect(r.stderr + r.stdout, unit).toBe('');
 			expect(r.status, unit).toBe(0);
 		}
 		const exposure = execFileSync('systemd-analyze', ['security', '--offline=yes', 'ops/bulkpad.service'], { encoding: 'utf8' });
 		expect(Number(/Overall exposure level for bulkpad\.service: ([\d.]+)/.exec(exposure)?.[1])).toBeLessThan(3);
+	});
+});
+
+// the fleet's units (README › Operations › Several machines): a template for the workers and Redis beside the server
+describe('ops/bulkpad-worker@.service and ops/bulkpad-redis.service', () => {
+	const worker = parseUnit(readFileSync('ops/bulkpad-worker@.service', 'utf8'));
+	const redis = parseUnit(readFileSync('ops/bulkpad-redis.service', 'utf8'));
+
+	it('runs the bundled worker, restarted always, as the service user, without write access anywhere', () => {
+		const w = worker.Service!;
+		expect(values(w, 'ExecStart')).toEqual(['/usr/bin/node dist/fleet-worker.mjs']);
+		expect(values(w, 'Restart')).toEqual(['always']);
+		expect(values(w, 'User')).toEqual(['bulkpad']);
+		expect(values(w, 'ReadWritePaths')).toEqual([]);
+		expect(values(w, 'StateDirectory')).toEqual([]);
+		const env = values(w, 'Environment').map((e) => e.split('=')[0]);
+		expect(env).toContain('BULKPAD_QUEUE');
+		expect(values(w, 'Environment')).not.toContainEqual(expect.stringMatching(/^DATABASE_URL=/));
+	});
+
+	it('points the workers at the Redis instance of the redis unit', () => {
+		const port = /--port (\d+)/.exec(values(redis.Service!, 'ExecStart')[0]!)?.[1];
+		expect(values(worker.Service!, 'Environment')).toContain(`BULKPAD_QUEUE=redis://127.0.0.1:${port}`);
+		expect(values(redis.Service!, 'Restart')).toEqual(['always']);
+	});
+
+	it.skipIf(spawnSync('systemd-analyze', ['--version']).status !== 0)('are verified and as hardened as the server', () => {
+		// a template is verified as one of its instances
+		const dir = mkdtempSync(join(tmpdir(), 'bulkpad-units-'));
+		const instance = join(dir, 'bulkpad-worker@1.service');
+		copyFileSync('ops/bulkpad-worker@.service', instance);
+		const r = spawnSync('systemd-analyze', ['verify', '--man=no', instance], { encoding: 'utf8' });
+		expect(r.stderr + r.stdout).toBe('');
+		for (const [unit, name] of [
+			[instance, 'bulkpad-worker@1.service'],
+			['ops/bulkpad-redis.service', 'bulkpad-redis.service']
+		] as const) {
+			const exposure = execFileSync('systemd-analyze', ['security', '--offline=yes', unit], { encoding: 'utf8' });
+			const level = Number(new RegExp(`Overall exposure level for ${name.replace(/[.@]/g, '\\$&')}: ([\\d.]+)`).exec(exposure)?.[1]);
+			expect(level, name).toBeLessThan(3);
+		}
+		rmSync(dir, { recursive: true, force: true });
 	});
 });

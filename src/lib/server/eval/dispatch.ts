@@ -8,11 +8,13 @@ import { getPool } from './pool';
 import { isHeavyLine, reachableWords } from './plan';
 import { createEvalQueue, type EvalQueue, type Priority, type QueueAnswer } from './queue';
 import { evalSettings } from './settings';
+import { queueWithFleet } from './fleet'; // fleet mode (BULKPAD_QUEUE): see fleet/index.ts
 
 let queue: EvalQueue | undefined;
 
 export function getQueue(): EvalQueue {
-	queue ??= createEvalQueue(getPool(), evalSettings);
+	// fleet: BULKPAD_QUEUE sends lines to the evaluation fleet while it answers; unset, this is the local queue alone
+	queue ??= queueWithFleet(() => createEvalQueue(getPool(), evalSettings));
 	return queue;
 }
 
