@@ -125,10 +125,7 @@ function keysOf(bulk: string, verb: string | undefined, subject: string | undefi
 			// phase= picks a soliton surface: elsewhere there is only one, so it is not offered; t= is for the quench
 			.filter(
 				(k) =>
-					!given.has(k) &&
-					!(k === 'o' && given.has('order')) &&
-					!(k === 'phase' && bulk !== 'soliton') &&
-					!(k === 't' && bulk !== 'vaidya')
+					!given.has(k) && !(k === 'o' && given.has('order')) && !(k === 'phase' && bulk !== 'soliton') && !(k === 't' && bulk !== 'vaidya')
 			)
 			.map((k) => {
 				const h = help(k);

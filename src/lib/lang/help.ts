@@ -39,7 +39,12 @@ const ENTRIES: HelpEntry[] = [
 	E('bulk', 'wave', 'AdS plane wave (zero temperature)', 'use wave d=4 zp=1'),
 	E('bulk', 'soliton', 'AdS soliton: strips show a transition; answers say their phase (RT by default, phase=…)', 'use soliton d=4 z0=1'),
 	E('bulk', 'metric', 'custom static metric from f(z), g(z), h(z): strip, series, stress, thermo', 'use metric d=4 f="1 - (z/zh)^4" zh=1'),
-	E('bulk', 'vaidya', 'global quench: AdS until t=0, then a thin shell makes the brane (d ≤ 6); strip verbs take t=', 'use vaidya d=3 zh=1'),
+	E(
+		'bulk',
+		'vaidya',
+		'global quench: AdS until t=0, then a thin shell makes the brane (d ≤ 6); strip verbs take t=',
+		'use vaidya d=3 zh=1'
+	),
 	E('key', 'l', 'strip width (a number, range a..b:N or list)', 'darea l=0.05..1.5:120'),
 	E('key', 'R', 'ball radius', 'darea ball R=0.5'),
 	E('key', 'gap', 'gap between the two strips of a pair', 'mi pair l=1 gap=0.3'),

@@ -92,9 +92,7 @@ export function deletePad(pad: PadRow) {
 /** Approved macros, as the language expands them. */
 export function approvedMacros(): NonNullable<PadContext['macros']> {
 	const rows = getDb().select().from(schema.macros).where(eq(schema.macros.state, 'approved')).all();
-	return Object.fromEntries(
-		rows.map((m) => [m.name, { params: m.params as Record<string, string>, body: m.body as string[], effects: effectsOf(m) }])
-	);
+	return Object.fromEntries(rows.map((m) => [m.name, { params: m.params, body: m.body, effects: effectsOf(m) }]));
 }
 
 /**
@@ -109,7 +107,7 @@ export function lineLibrary(input: string): Pick<PadContext, 'macros'> {
 /** The references `#n` may read: every step that evaluated. */
 export function stepRefs(steps: Pick<StepRow, 'n' | 'status' | 'ref'>[]): Record<number, StepRef> {
 	const refs: Record<number, StepRef> = {};
-	for (const s of steps) if (s.status === 'ok' && s.ref) refs[s.n] = s.ref as StepRef;
+	for (const s of steps) if (s.status === 'ok' && s.ref) refs[s.n] = s.ref;
 	return refs;
 }
 
@@ -128,9 +126,9 @@ export function padContext(pad: PadRow, input: string): PadContext {
 		.where(eq(schema.steps.padId, pad.id))
 		.all();
 	return {
-		bulk: pad.bulk as BulkState,
-		units: pad.units as UnitsState,
-		lets: pad.lets as Record<string, LetValue>,
+		bulk: pad.bulk,
+		units: pad.units,
+		lets: pad.lets,
 		refs: stepRefs(refRows),
 		names: stepNames(refRows),
 		...lineLibrary(input)

@@ -11,14 +11,14 @@ import { getDb, schema } from './db';
 import { ApiFailure } from './http';
 import { newId } from './auth/accounts';
 import type { PadRow, StepRow } from './pads';
-import type { BulkState, LetValue, LineErrorShape, Result, StepRef, UnitsState } from '../lang/result';
+import type { BulkState, LetValue, StepError, Result, StepRef, UnitsState } from '../lang/result';
 
 export type AttemptRow = typeof schema.attempts.$inferSelect;
 export type StepVersionRow = typeof schema.stepVersions.$inferSelect;
 
 const HISTORY_MAX = 200;
 
-type LineError = LineErrorShape | { message: string; start: number; end: number; code: string };
+type LineError = StepError;
 export type LineAnswer =
 	| { ok: true; results: Result[]; ref: StepRef; bulk: BulkState; units: UnitsState; lets: Record<string, LetValue> }
 	| { ok: false; error: LineError };

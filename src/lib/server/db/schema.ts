@@ -108,7 +108,7 @@ export const attempts = sqliteTable(
 			.references(() => pads.id, { onDelete: 'cascade' }),
 		input: text('input').notNull(),
 		status: text('status', { enum: ['pending', 'error'] }).notNull(),
-		error: text('error', { mode: 'json' }),
+		error: text('error', { mode: 'json' }).$type<StepError>(),
 		/** the step number it was typed after (0: before any step), to place it in the pad */
 		afterN: integer('after_n').notNull().default(0),
 		/** a failed re-run of this step number (null for a new line) */
@@ -131,10 +131,10 @@ export const stepVersions = sqliteTable(
 		version: integer('version').notNull(),
 		input: text('input').notNull(),
 		status: text('status', { enum: ['pending', 'ok', 'error'] }).notNull(),
-		results: text('results', { mode: 'json' }),
-		error: text('error', { mode: 'json' }),
-		ref: text('ref', { mode: 'json' }),
-		bulkBefore: text('bulk_before', { mode: 'json' }),
+		results: text('results', { mode: 'json' }).$type<Result[]>(),
+		error: text('error', { mode: 'json' }).$type<StepError>(),
+		ref: text('ref', { mode: 'json' }).$type<StepRef>(),
+		bulkBefore: text('bulk_before', { mode: 'json' }).$type<BulkState>(),
 		ms: real('ms'),
 		/** when this version was first recorded (the step's time for version 1) */
 		createdAt: integer('created_at', { mode: 'timestamp_ms' }).notNull(),

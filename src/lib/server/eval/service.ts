@@ -91,7 +91,7 @@ export function evaluateInPad(padOf: () => PadRow, input: string, opts: EvalOpti
 		const q = tooLong(input) ?? (await evaluateLine(input, padContext(pad, input), pad.ownerId, pad.ownerId, opts));
 		const ms = performance.now() - t0;
 		const stored = finishStep(pad, typed.id, ms, q.answer.ok ? { ok: true, ...q.answer.outcome } : q.answer);
-		return reply(q, ms, stored, pad.bulk as BulkState);
+		return reply(q, ms, stored, pad.bulk);
 	});
 }
 
@@ -108,7 +108,7 @@ export function rerunInPad(padOf: () => PadRow, n: number, input: string, opts: 
 		const t0 = performance.now();
 		const typed = startStep(pad, input, n);
 		const ctx = padContext(pad, input);
-		const bulkBefore = (step.bulkBefore as BulkState | null) ?? (pad.bulk as BulkState);
+		const bulkBefore = (step.bulkBefore as BulkState | null) ?? pad.bulk;
 		const before = (m: number) => m < n;
 		ctx.bulk = bulkBefore;
 		ctx.refs = Object.fromEntries(Object.entries(ctx.refs).filter(([k]) => before(Number(k))));
@@ -221,7 +221,7 @@ export function markDrift(steps: ReplayStep[], fresh: FreshStep[]): ReplayedStep
 		}
 		const answer = f.answer;
 		if (answer.ok) {
-			const recorded = s.status === 'ok' ? (s.results as Result[]) : null;
+			const recorded = s.status === 'ok' ? s.results : null;
 			// the recorded results went through JSON (NaN and ±Infinity became null); compare like with like
 			const fresh = JSON.parse(JSON.stringify(answer.outcome.results)) as Result[];
 			const delta = recorded ? driftBetween(recorded, fresh) : null;

@@ -3,7 +3,6 @@ import type { Actions, PageServerLoad } from './$types';
 import { orPageError } from '$lib/server/http';
 import { deletePad, findOwnPad, findReadablePad, listPads, padSteps, renamePad } from '$lib/server/pads';
 import { titleSchema } from '$lib/server/pad-view';
-import type { BulkState, Result, UnitsState } from '$lib/lang/result';
 import type { AttemptData, StepData } from '$lib/client/types';
 import { padAttempts, padStepVersions } from '$lib/server/steps';
 
@@ -22,7 +21,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		n: s.n,
 		input: s.input,
 		status: s.status,
-		results: (s.results as Result[] | null) ?? [],
+		results: s.results ?? [],
 		error: (s.error as StepData['error']) ?? null,
 		ms: s.ms,
 		name: s.name,
@@ -32,7 +31,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			version: v.version,
 			input: v.input,
 			status: v.status,
-			results: (v.results as Result[] | null) ?? [],
+			results: v.results ?? [],
 			error: (v.error as StepData['error']) ?? null
 		}))
 	}));
@@ -53,9 +52,9 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		pad: {
 			id: pad.id,
 			title: pad.title,
-			bulk: pad.bulk as BulkState,
-			units: pad.units as UnitsState,
-			history: own ? ((pad.history as string[]) ?? []) : [],
+			bulk: pad.bulk,
+			units: pad.units,
+			history: own ? (pad.history ?? []) : [],
 			own
 		},
 		steps,
