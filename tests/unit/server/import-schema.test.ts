@@ -43,7 +43,8 @@ describe('bulks', () => {
 			{ name: 'dp', params: { p: 4, zh: 1 } },
 			{ name: 'wave', params: { d: 4, zp: 1 } },
 			{ name: 'soliton', params: { d: 4, z0: 1 } },
-			{ name: 'metric', params: { d: 4, f: '1 - z^4', h: '1' } }
+			{ name: 'metric', params: { d: 4, f: '1 - z^4', h: '1' } },
+			{ name: 'vaidya', params: { d: 3, zh: 1 } }
 		];
 		expect(examples.map((b) => b.name).sort()).toEqual([...BULKS].sort());
 		for (const bulk of examples) expect(parsePadDocument(doc({ bulk })).ok, bulk.name).toBe(true);
