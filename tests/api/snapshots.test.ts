@@ -98,9 +98,18 @@ describe('a snapshot', () => {
 
 describe('replay of a failed step', () => {
 	it('marks it failed, never reproduced, even when it fails exactly as recorded', async () => {
-		const pad = (await owner.post('/api/pads', { title: 'With a typo' })).body.pad.id;
-		expect((await owner.post('/api/eval', { input: 'darea l=0.3 d=4 zh=1', pad })).status).toBe(200);
-		expect((await owner.post('/api/eval', { input: 'dara l=0.3', pad })).status).toBe(400);
+		// a failed line is an attempt now (no step); a failed *step* comes from a pad kept before that change,
+		// which an exported document still carries: import one with a typo recorded as step #2
+		const first = (await owner.post('/api/pads', { title: 'With a typo' })).body.pad.id;
+		expect((await owner.post('/api/eval', { input: 'darea l=0.3 d=4 zh=1', pad: first })).status).toBe(200);
+		const doc = (await owner.get(`/api/pads/${first}/export?format=json`)).body;
+		const typo = await owner.post('/api/eval', { input: 'dara l=0.3' });
+		expect(typo.status).toBe(400);
+		const { message, start, end, hint, code } = typo.body.error;
+		doc.steps.push({ n: 2, input: 'dara l=0.3', status: 'error', results: null, error: { message, start, end, hint, code } });
+		const imported = await owner.post('/api/pads/import', doc);
+		expect(imported.status, JSON.stringify(imported.body)).toBe(201);
+		const pad = imported.body.pad.id;
 		const slug = (await owner.post(`/api/pads/${pad}/share`, {})).body.slug;
 		const t = (await anon.get(`/api/t/${slug}`)).body;
 		const failedN = t.steps.find((s: { status: string }) => s.status === 'error').n;

@@ -193,7 +193,7 @@ describe('the console', () => {
 		// once the page data reloads
 		const attempt = page.locator('article.attempt').last();
 		await expect.poll(() => attempt.getAttribute('data-attempt'), { timeout: 60_000 }).toMatch(/\w+/);
-		expect(await attempt.textContent()).toContain('sweep darea ball R=0.1..2:2000');
+		expect(await attempt.textContent()).toContain('sweep mi pair l=0.2..1.2:2000');
 		await screenshot(page, 'console-cancelled');
 
 		// one left to finish: a short sweep in a custom metric (milliseconds of work), so only its final state is
