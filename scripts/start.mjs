@@ -5,26 +5,15 @@
 // `npm run setup-admin`. BULKPAD_DEMO=1 or 0 overrides the choice. The server itself always runs as a
 // production build: whether there is a demo is decided here, not by NODE_ENV inside the server.
 import { spawnSync, spawn } from 'node:child_process';
-import { existsSync, readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { statSync } from 'node:fs';
+import { built, newest } from './freshness.mjs';
 
 const run = (args, env = {}) => {
 	const r = spawnSync(process.execPath, args, { stdio: 'inherit', env: { ...process.env, ...env } });
 	if (r.status !== 0) process.exit(r.status ?? 1);
 };
 
-function newest(dir) {
-	let t = 0;
-	for (const name of readdirSync(dir)) {
-		const p = join(dir, name);
-		const s = statSync(p);
-		t = Math.max(t, s.isDirectory() ? newest(p) : s.mtimeMs);
-	}
-	return t;
-}
-
 const sources = Math.max(newest('src'), newest('static'), statSync('package.json').mtimeMs, statSync('svelte.config.js').mtimeMs);
-const built = (f) => (existsSync(f) ? statSync(f).mtimeMs : 0);
 
 const demo = process.env.BULKPAD_DEMO ? process.env.BULKPAD_DEMO === '1' : process.env.NODE_ENV !== 'production';
 

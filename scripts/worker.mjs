@@ -1,21 +1,10 @@
 // `npm run worker`: one evaluation worker of the fleet (README › Operations). Needs BULKPAD_QUEUE=redis://host:port
 // and a built checkout (the same as the server's: jobs are refused across code versions). Builds the worker
 // bundles first when the sources are newer, as `npm start` does for the server.
-import { existsSync, readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { pathToFileURL } from 'node:url';
+import { built, newest } from './freshness.mjs';
 
-function newest(dir) {
-	let t = 0;
-	for (const name of readdirSync(dir)) {
-		const p = join(dir, name);
-		const s = statSync(p);
-		t = Math.max(t, s.isDirectory() ? newest(p) : s.mtimeMs);
-	}
-	return t;
-}
-const built = (f) => (existsSync(f) ? statSync(f).mtimeMs : 0);
 const bundle = process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs';
 if (Math.min(built(bundle), built('dist/fleet-worker.mjs')) < newest('src/lib')) {
 	const r = spawnSync(process.execPath, ['scripts/build-worker.mjs'], { stdio: 'inherit' });

@@ -3,7 +3,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { inject } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { launch, screenshot, signInThroughForm } from '../helpers/browser';
+import { launch, screenshot, signInThroughForm, openFreshPad } from '../helpers/browser';
 
 const baseUrl = inject('baseUrl');
 let ctx: BrowserContext;
@@ -32,10 +32,7 @@ beforeAll(async () => {
 	page = await ctx.newPage();
 	await signInThroughForm(page, baseUrl, 'ines@sable.test');
 	// a fresh pad of our own so the steps are numbered from #1
-	const before = page.url();
-	await page.click('button.new-pad');
-	await page.waitForURL((u) => u.pathname.startsWith('/pads/') && u.href !== before);
-	await page.waitForFunction(() => document.activeElement?.getAttribute('aria-label') === 'input line');
+	await openFreshPad(page);
 });
 afterAll(async () => {
 	await ctx?.close();

@@ -2,7 +2,7 @@
 // plots, the palette, the public transcript and the library all work, and the browser reports no violation.
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { launch, signInThroughForm } from '../helpers/browser';
+import { launch, signInThroughForm, openFreshPad } from '../helpers/browser';
 
 const baseUrl = inject('baseUrl');
 let ctx: BrowserContext;
@@ -64,10 +64,7 @@ describe('under the Content-Security-Policy', () => {
 
 	it('signs in and works a pad: KaTeX, a plot and the palette, with no violation', async () => {
 		await signInThroughForm(page, baseUrl, 'tomas@sable.test');
-		const before = page.url();
-		await page.click('button.new-pad');
-		await page.waitForURL((u) => u.pathname.startsWith('/pads/') && u.href !== before);
-		await page.waitForFunction(() => document.activeElement?.getAttribute('aria-label') === 'input line');
+		await openFreshPad(page);
 
 		await run('coeffs darea o=4 | tex');
 		await expect.poll(() => page.locator('article.step .katex').count()).toBeGreaterThan(0);

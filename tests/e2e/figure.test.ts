@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import { promisify } from 'node:util';
 import * as holo from '../../src/lib/holo/index';
 import { readDpi } from '../../src/lib/client/figure/png';
-import { launch, signInThroughForm } from '../helpers/browser';
+import { launch, signInThroughForm, openFreshPad } from '../helpers/browser';
 
 const baseUrl = inject('baseUrl');
 const SHOTS = 'shots';
@@ -66,10 +66,7 @@ beforeAll(async () => {
 	await page.waitForFunction(() => /uploaded|replaced/.test(document.querySelector('[role=status]')?.textContent ?? ''));
 	await page.goto(`${baseUrl}/pads`);
 	await page.waitForURL(/\/pads\/[0-9a-f]+$/);
-	const before = page.url();
-	await page.click('button.new-pad');
-	await page.waitForURL((u) => u.pathname.startsWith('/pads/') && u.href !== before);
-	await page.waitForFunction(() => document.activeElement?.getAttribute('aria-label') === 'input line');
+	await openFreshPad(page);
 });
 afterAll(async () => {
 	await ctx?.close();

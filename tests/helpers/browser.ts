@@ -33,3 +33,11 @@ export async function screenshot(page: Page, name: string) {
 	mkdirSync(ARTIFACTS, { recursive: true });
 	await page.screenshot({ path: join(ARTIFACTS, `${name}.png`), fullPage: false });
 }
+
+/** Opens a new pad of the signed-in user's from a pad page and waits until its input line has the focus. */
+export async function openFreshPad(page: Page): Promise<void> {
+	const before = page.url();
+	await page.click('button.new-pad');
+	await page.waitForURL((u) => u.pathname.startsWith('/pads/') && u.href !== before);
+	await page.waitForFunction(() => document.activeElement?.getAttribute('aria-label') === 'input line');
+}
