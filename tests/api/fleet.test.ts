@@ -10,6 +10,7 @@ import { freePort } from '../../scripts/free-port.mjs';
 import { emptyContext, runLine } from '../../src/lib/lang';
 import { codeVersion, queueNames } from '../../src/lib/server/eval/fleet/config';
 import { Client, DEMO_PASSWORD, signedIn } from '../helpers/client';
+import { padWithSteps } from './support/pads';
 import { startPrivateServer, type PrivateServer } from './support/server';
 
 const HAVE_REDIS = spawnSync('redis-server', ['--version'], { stdio: 'ignore' }).status === 0;
@@ -27,8 +28,14 @@ const LOCK_MS = '3000';
 const STRIP_SWEEP = 'sweep darea l=0.1..3:400';
 /** 12 exact ball surfaces: seconds of work, cut into three chunks of four points */
 const SWEEP = 'sweep darea ball R=0.1..0.3:12';
-/** minutes of work: never finishes within a test, so it can only stop by being cancelled */
-const ENDLESS = 'sweep darea ball R=0.1..2:2000';
+/**
+ * Half an hour of work (HRT surfaces of wide strips in the quench bulk, about a second each, and no two alike):
+ * every chunk runs for minutes, so each worker is inside one when the client hangs up, and the line can only stop
+ * by being cancelled. (Exact balls are no longer a candidate: they take about a millisecond each.)
+ */
+/** the pad's bulk for it: a stateless line of two statements would run whole, unsplit */
+const ENDLESS_BULK = 'use vaidya d=4 zh=1';
+const ENDLESS = 'sweep darea l=6..8:2000 t=5';
 
 interface Proc {
 	child: ChildProcess;
@@ -164,12 +171,13 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		await new Promise((r) => setTimeout(r, 3000)); // a heartbeat or two
 		// the fleet takes a heavy line again (and has forgotten the killed worker)
 		expect((await fleet.post('/api/eval', { input: STRIP_SWEEP })).status).toBe(200);
+		const pad = await padWithSteps(fleet, 'endless', [ENDLESS_BULK]);
 		const before = live.map((w) => started(w).length);
 		const hangUp = new AbortController();
 		const pending = fetch(`${server!.baseUrl}/api/eval`, {
 			method: 'POST',
 			headers: { 'content-type': 'application/json', origin: server!.baseUrl, cookie: fleet.cookie },
-			body: JSON.stringify({ input: ENDLESS }),
+			body: JSON.stringify({ input: ENDLESS, pad }),
 			signal: hangUp.signal
 		}).catch(() => undefined);
 		for (const [i, w] of live.entries()) {
