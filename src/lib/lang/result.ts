@@ -25,13 +25,21 @@ export interface RecordResult {
 	warning?: string;
 	note?: string;
 }
+/**
+ * A reference curve drawn under a table's plot for comparison, not data (a growth curve's thermal value, early-time
+ * law and linear-growth line): a dashed polyline in plot coordinates, labelled in the legend. LaTeX label.
+ */
+export interface PlotGuide {
+	label: string;
+	points: [number, number][];
+}
 export interface TableResult {
 	kind: 'table';
 	label: string;
 	columns: string[];
 	rows: (number | string | null)[][];
 	/** plot hints: which column is x, whether a plot was asked, the validity region per order column */
-	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string; show?: boolean };
+	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string; show?: boolean; guides?: PlotGuide[] };
 	warning?: string;
 	note?: string;
 	/** LaTeX of the table (a tabular), present when `| tex` was asked */
