@@ -1,5 +1,5 @@
-// Fleet mode (README › Operations › Several machines) on this machine: a heavy sweep of 400 exact ball surfaces
-// with 1, 2 and 4 workers (each with BULKPAD_EVAL_THREADS=2: one light and one heavy evaluation process) against
+// Fleet mode (README › Operations › Several machines) on this machine: a heavy sweep of 400 HRT surfaces after a
+// quench (exact balls, a millisecond each since the one-shot method, are too light to show the split) with 1, 2 and 4 workers (each with BULKPAD_EVAL_THREADS=2: one light and one heavy evaluation process) against
 // the in-process server, and the queue's overhead per light line (Redis round trips) against in-process.
 // Needs a build (npm run build) and redis-server. Writes the "fleet" section of bench/RESULTS.md.
 import { spawn, spawnSync } from 'node:child_process';
@@ -12,7 +12,7 @@ if (spawnSync('redis-server', ['--version'], { stdio: 'ignore' }).status !== 0) 
 	process.exit(1);
 }
 
-const HEAVY = 'sweep darea ball R=0.05..0.25:400';
+const HEAVY = 'use vaidya d=3 zh=1; sweep darea l=2..4:400 t=1.5';
 const LIGHT = 'darea l=0.5';
 const LIGHT_RUNS = Number(process.env.BULKPAD_BENCH_LIGHT_RUNS ?? 300);
 const WORKER_COUNTS = (process.env.BULKPAD_BENCH_WORKERS ?? '1,2,4').split(',').map(Number);
@@ -87,7 +87,7 @@ function report() {
 		`## Fleet (\`npm run bench -- fleet\`)
 ${machineLine()}; Redis ${spawnSync('redis-server', ['--version'], { encoding: 'utf8' }).stdout.match(/v=(\S+)/)?.[1]} on 127.0.0.1, the server and every worker on this same machine. Load average when measured: ${load.map((l) => l.toFixed(1)).join(', ')} (other work on the machine slows everything; this machine has 2 cores, so more than two busy evaluation processes cannot go faster here).
 
-\`${HEAVY}\` (400 exact ball surfaces) through \`POST /api/eval\`, one request:
+\`${HEAVY}\` (400 HRT surfaces of strips after a quench) through \`POST /api/eval\`, one request:
 
 | evaluated by | wall time (s) | speed-up | same numbers as in-process |
 |---|---|---|---|

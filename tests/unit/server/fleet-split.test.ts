@@ -10,6 +10,7 @@ import { parse } from '../../../src/lib/lang/parser';
 import { resolveValue } from '../../../src/lib/lang/values';
 import { DEFAULT_LIMITS } from '../../../src/lib/lang/limits';
 import { mergeChunks, splitSweep } from '../../../src/lib/server/eval/fleet/split';
+import type { LineOutcome, PlotGuide, TableResult } from '../../../src/lib/lang/result';
 
 const BOOSTED = { ...emptyContext(), bulk: { name: 'boosted', params: { d: 4, zh: 1, v: 0.4 } } };
 
@@ -30,13 +31,16 @@ describe('a split sweep merges to the whole line exactly', () => {
 		['sweep thermo zh=0.5..2:40', emptyContext()],
 		['sweep darea zh=0.5..3:33 l=1 | plot', emptyContext()],
 		['sweep mu l=0.2..2:24', BOOSTED],
-		['sweep darea v=-0.8..0.8:30 l=0.7', BOOSTED]
+		['sweep darea v=-0.8..0.8:30 l=0.7', BOOSTED],
+		// a stateless script picks its bulk on the line itself: every chunk repeats the settings
+		['use brane d=3 zh=2; sweep darea l=0.1..1:40', emptyContext()],
+		['use boosted d=4 v=0.3; units geo G=2; sweep dentropy l=0.1..1:24', emptyContext()]
 	])('%s', (input, ctx) => {
 		const { chunks, whole, merged } = wholeAndMerged(input, ctx);
 		expect(chunks.length).toBeGreaterThan(1);
 		expect(merged).toBeDefined();
 		expect(isDeepStrictEqual(merged, whole)).toBe(true);
-		expect(chunks.reduce((n, c) => n + c.points, 0)).toBe((whole.results[0] as { rows: unknown[] }).rows.length);
+		expect(chunks.reduce((n, c) => n + c.points, 0)).toBe((whole.results.at(-1) as { rows: unknown[] }).rows.length);
 	});
 
 	it('keeps every chunk within the language limits, however long the written points are', () => {
@@ -76,7 +80,9 @@ describe('a split sweep merges to the whole line exactly', () => {
 describe('lines left whole', () => {
 	it.each([
 		['one point', 'darea l=0.5'],
-		['two statements', 'use brane d=4; sweep darea l=0.1..1:40'],
+		['a sweep after a let', 'let w = 2; sweep darea l=0.1..1:40'],
+		['two sweeps', 'sweep darea l=0.1..1:40; sweep zstar l=0.1..1:40'],
+		['a sweep before a setting', 'sweep darea l=0.1..1:40; use brane d=3'],
 		['a sink that reshapes', 'sweep darea l=0.1..1:40 | tex'],
 		['a range written with names', 'sweep darea l=0.1..zh:40'],
 		['a step reference', 'sweep darea l=0.1..#1:40'],
@@ -90,6 +96,64 @@ describe('lines left whole', () => {
 		['a macro', '@growth l=0.1..1:40']
 	])('%s', (_, input) => {
 		expect(splitSweep(input, 8)).toBeUndefined();
+	});
+});
+
+describe('reference curves of the chunks', () => {
+	// guides sit at the table's own x values, so joining each label's points in chunk order is the whole line's
+	const table = (xs: number[], guides: PlotGuide[]) => ({
+		results: [
+			{ kind: 'table' as const, label: 'ΔA vs t', columns: ['t', 'exact'], rows: xs.map((x) => [x, x * x]), plot: { x: 't', guides } }
+		],
+		bulk: { name: 'vaidya', params: { d: 3, zh: 1 } },
+		units: emptyContext().units,
+		lets: {}
+	});
+	it('joins each label in chunk order, labels in order of first appearance', () => {
+		const merged = mergeChunks([
+			table(
+				[0.1, 0.2],
+				[
+					{
+						label: 'thermal',
+						points: [
+							[0.1, 1],
+							[0.2, 1]
+						]
+					},
+					{
+						label: 'early',
+						points: [
+							[0.1, 0.01],
+							[0.2, 0.04]
+						]
+					}
+				]
+			),
+			table(
+				[0.3, 0.4],
+				[
+					{
+						label: 'thermal',
+						points: [
+							[0.3, 1],
+							[0.4, 1]
+						]
+					},
+					{ label: 'linear', points: [[0.4, 0.5]] }
+				]
+			)
+		] as unknown as LineOutcome[]);
+		const t = merged!.results[0] as TableResult;
+		expect(t.rows).toHaveLength(4);
+		expect(t.plot!.guides!.map((g) => g.label)).toEqual(['thermal', 'early', 'linear']);
+		expect(t.plot!.guides![0]!.points).toEqual([
+			[0.1, 1],
+			[0.2, 1],
+			[0.3, 1],
+			[0.4, 1]
+		]);
+		expect(t.plot!.guides![2]!.points).toEqual([[0.4, 0.5]]);
 	});
 });
 

@@ -4,7 +4,7 @@
  * written so it reads back as the very same double. Each chunk is evaluated like any line; the chunks' tables
  * are put back together in order, and the line's answer is then the in-process answer bit for bit.
  *
- * Only lines where that is plainly true are split: one verb statement, with no sink but `table`/`plot`, one
+ * Only lines where that is plainly true are split: one verb statement (after `use`/`units` settings), with no sink but `table`/`plot`, one
  * swept key (not the order) whose list items or range ends and count are number literals, and exact values
  * only: a truncated order's table carries warnings merged over all its points (the largest l past the radius,
  * per order), which no chunk can say alone — and series sweeps are cheap, the heavy sweeps are exact ones
@@ -16,7 +16,7 @@ import { isDeepStrictEqual } from 'node:util';
 import type * as A from '../../../lang/ast';
 import { DEFAULT_LIMITS } from '../../../lang/limits';
 import { parse } from '../../../lang/parser';
-import type { LineOutcome, TableResult } from '../../../lang/result';
+import type { LineOutcome, PlotGuide, TableResult } from '../../../lang/result';
 
 export interface Chunk {
 	input: string;
@@ -27,6 +27,8 @@ export interface Chunk {
 /** Fewer points than this in a chunk and the queue's overhead outweighs the work. */
 const MIN_CHUNK_POINTS = 4;
 const SINKS_KEPT = new Set(['table', 'plot']);
+/** Statements that may come before the sweep: they set the pad's state and answer the same note in every chunk. */
+const SETTINGS = new Set<A.Statement['type']>(['use', 'units']);
 
 /** A literal number (`0.5`, `-2`, `+1e-3`), or undefined for anything that needs the pad's context. */
 function literal(e: A.Item | undefined): number | undefined {
@@ -75,8 +77,9 @@ export function splitSweep(input: string, target: number): Chunk[] | undefined {
 	} catch {
 		return undefined;
 	}
-	if (line.statements.length !== 1) return undefined;
-	const s = line.statements[0]!;
+	// `use …; sweep …` (a stateless script's way to pick a bulk) splits too: every chunk repeats the settings
+	const s = line.statements[line.statements.length - 1]!;
+	if (!line.statements.slice(0, -1).every((p) => SETTINGS.has(p.type))) return undefined;
 	if (s.type !== 'verb' || s.sinks.some((k) => !SINKS_KEPT.has(k.text))) return undefined;
 	const isOrder = (kv: A.KeyValue) => kv.key === 'o' || kv.key === 'order';
 	const many = s.keys.filter((kv) => !isOrder(kv) && (kv.value.type === 'list' || kv.value.type === 'range'));
@@ -115,24 +118,45 @@ export function splitSweep(input: string, target: number): Chunk[] | undefined {
 	return undefined;
 }
 
-const withoutRows = (t: TableResult) => ({ ...t, rows: [] });
+const withoutRows = (t: TableResult) => ({ ...t, rows: [], plot: t.plot && { ...t.plot, guides: [] } });
+
+/**
+ * Reference curves of the chunks joined into the whole line's: a guide's points sit at the table's own x values
+ * (over a part of the range fixed by the physics, not by the range), so joining each label's points in chunk
+ * order, labels in order of first appearance, gives the whole line's guides.
+ */
+function mergeGuides(tables: TableResult[]): PlotGuide[] | undefined {
+	const byLabel = new Map<string, PlotGuide>();
+	for (const t of tables) {
+		for (const g of t.plot?.guides ?? []) {
+			const seen = byLabel.get(g.label);
+			if (seen) seen.points.push(...g.points);
+			else byLabel.set(g.label, { label: g.label, points: [...g.points] });
+		}
+	}
+	return byLabel.size ? [...byLabel.values()] : undefined;
+}
 
 /**
  * The whole line's outcome from its chunks' outcomes, in order; undefined when they do not agree on anything
- * but their rows (the caller then runs the line whole). A split line has one statement answering one table
- * of at least two rows per chunk, so its `#n` exposes no single value, the same for each chunk and the whole.
+ * but their rows (the caller then runs the line whole). A split line answers the same notes of its settings
+ * (`use …`) in every chunk, then one table of at least two rows per chunk, so its `#n` exposes no single value,
+ * the same for each chunk and the whole.
  */
 export function mergeChunks(outcomes: LineOutcome[]): LineOutcome | undefined {
 	const first = outcomes[0];
-	if (!first || first.results.length !== 1 || first.results[0]!.kind !== 'table') return undefined;
-	const table = first.results[0] as TableResult;
-	const rows: TableResult['rows'] = [];
+	const last = first?.results.length ? first.results[first.results.length - 1] : undefined;
+	if (!first || last?.kind !== 'table') return undefined;
+	const tables: TableResult[] = [];
 	for (const o of outcomes) {
-		const t = o.results[0];
-		if (o.results.length !== 1 || t?.kind !== 'table') return undefined;
-		if (!isDeepStrictEqual(withoutRows(t), withoutRows(table))) return undefined;
-		if (!isDeepStrictEqual({ ...o, results: [] }, { ...first, results: [] })) return undefined;
-		rows.push(...t.rows);
+		const t = o.results[o.results.length - 1];
+		if (o.results.length !== first.results.length || t?.kind !== 'table') return undefined;
+		if (!isDeepStrictEqual(withoutRows(t), withoutRows(last))) return undefined;
+		if (!isDeepStrictEqual({ ...o, results: o.results.slice(0, -1) }, { ...first, results: first.results.slice(0, -1) })) return undefined;
+		tables.push(t);
 	}
-	return { ...first, results: [{ ...table, rows }] };
+	const table: TableResult = { ...last, rows: tables.flatMap((t) => t.rows) };
+	const guides = mergeGuides(tables);
+	if (guides) table.plot = { ...last.plot!, guides };
+	return { ...first, results: [...first.results.slice(0, -1), table] };
 }
