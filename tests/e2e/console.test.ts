@@ -206,6 +206,40 @@ describe('the console', () => {
 		await expect.poll(() => last.locator('path.series-path').count()).toBe(1);
 	});
 
+	it('queues lines typed while one runs, and a cancel gives back the running line and the queue', async () => {
+		// the endless line of the test above: it is certainly still running while the next line is typed
+		const junk = (fn: string) => Array(52).fill(`${fn}(z)`).join('+');
+		const endless = `use metric f="1-z^4+0*(${junk('sin')})" h="1+0*(${junk('cos')})"; sweep mi pair l=0.2..1.2:2000 gap=0.1`;
+		await input().fill(endless);
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('.status-running').count(), { timeout: 60_000 }).toBe(1);
+		expect(await input().inputValue()).toBe('');
+		await page.keyboard.type('darea l=0.45');
+		await page.keyboard.press('Enter');
+		await expect.poll(() => page.locator('.line-queued').count()).toBe(1);
+		expect(await page.locator('.line-queued').textContent()).toContain('darea l=0.45');
+		await page.keyboard.type('zstar l=0.3');
+		await screenshot(page, 'console-queued');
+		await page.keyboard.press('Escape');
+		await expect.poll(() => page.locator('.status-running').count(), { timeout: 60_000 }).toBe(0);
+		// nothing typed is lost: the cancelled line, the queued one and the half-typed one, in that order
+		await expect.poll(() => input().inputValue()).toBe(`${endless}\ndarea l=0.45\nzstar l=0.3`);
+		expect(await page.locator('.line-queued').count()).toBe(0);
+	});
+
+	it('runs lines typed in quick succession in order, none lost, whether or not the first is still running', async () => {
+		await input().fill('');
+		const before = await stepCount();
+		for (const l of ['darea l=0.31', 'darea l=0.32', 'darea l=0.33']) {
+			await page.keyboard.type(l);
+			await page.keyboard.press('Enter');
+		}
+		await expect.poll(stepCount, { timeout: 60_000 }).toBe(before + 3);
+		await expect.poll(() => page.locator('.line-running').count(), { timeout: 60_000 }).toBe(0);
+		const inputs = await page.locator('article.step code.step-input').evaluateAll((els) => els.slice(-3).map((e) => e.textContent));
+		expect(inputs).toEqual(['darea l=0.31', 'darea l=0.32', 'darea l=0.33']);
+	});
+
 	it('renames and deletes a pad from the side panel, after a confirm', async () => {
 		const id = new URL(page.url()).pathname.split('/').pop()!;
 		await page.click('.pad-title button');
