@@ -157,7 +157,8 @@ function onePoint(
 		.join(' ');
 	const order = p.order;
 	if (spec.kind === 'scalar') {
-		const { value, warning, fields: extra, symbol, tag, note } = call(x, () => spec.at(p));
+		const { value, warning, fields: extra, symbol, tag, note: verbNote, pointNote } = call(x, () => spec.at(p));
+		const note = [verbNote, pointNote].filter(Boolean).join('. ');
 		const fields = { ...args, ...(extra ?? {}) };
 		return {
 			result: {

@@ -19,6 +19,12 @@ describe('vaidya bulk and the key t', () => {
 		expect(r.fields?.saturated).toBe(0);
 		expect(r.note).toMatch(/HRT surface/);
 	});
+	it('a growth table does not put its first row’s surface note under the whole curve', () => {
+		const t = new Pad().run('use vaidya d=3 zh=1; sweep darea l=2 t=0..3:12').results[1] as TableResult;
+		expect(t.kind).toBe('table');
+		// rows from before the quench, on the shell and saturated: no single "HRT surface: …" describes them all
+		expect(t.note ?? '').not.toMatch(/HRT surface/);
+	});
 	it('several extremal surfaces near saturation: the record says which won and by how much', () => {
 		const r = new Pad().run('use vaidya d=3; darea l=2 t=1.48').results[1] as ScalarResult;
 		expect(r.fields?.surfaces).toBe(3);

@@ -32,7 +32,7 @@ export function quenchAt(p: Point): HrtAnswer | undefined {
 }
 
 /** What a quench answer carries beside its value: the winning surface's data and how it won. */
-export function quenchFields(a: HrtAnswer): Pick<ScalarAt, 'fields' | 'note'> {
+export function quenchFields(a: HrtAnswer): Pick<ScalarAt, 'fields' | 'pointNote'> {
 	const w = a.winner;
 	const fields: Record<string, number> = {
 		t: a.t,
@@ -52,7 +52,7 @@ export function quenchFields(a: HrtAnswer): Pick<ScalarAt, 'fields' | 'note'> {
 				? 'saturated: the static brane surface'
 				: `the surface crossing the shell at z_c${w.behindHorizon ? ' (partly behind the horizon)' : ''}`;
 	const of = a.surfaces.length > 1 ? `; smallest of ${a.surfaces.length} extremal surfaces, next by ${Number(a.gap.toPrecision(4))}` : '';
-	return { fields, note: `HRT surface: ${which}${of}` };
+	return { fields, pointNote: `HRT surface: ${which}${of}` };
 }
 
 export function stripDeltaArea(p: Point): number {

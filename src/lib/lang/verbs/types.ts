@@ -42,6 +42,11 @@ export interface ScalarAt {
 	tag?: string;
 	/** what the value is: scheme, phase, convention */
 	note?: string;
+	/**
+	 * what this one point alone is (which of several surfaces won): said after the note beside a single value,
+	 * never under a table, where it would describe the first row only (a growth curve is not all "before the quench")
+	 */
+	pointNote?: string;
 }
 
 export interface RecordAt {
