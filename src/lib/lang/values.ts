@@ -133,6 +133,12 @@ export function resolveValue(v: A.Value, scope: Scope, limits: Limits): Resolved
 			);
 		}
 	}
+	if (Number.isFinite(a) && Number.isFinite(b) && !Number.isFinite(b - a)) {
+		// each point is a + (b − a)·i/(n − 1): a span past the largest double would give NaN points
+		throw new LangError('the range is wider than double precision can step through', v.start, v.end, {
+			hint: 'narrow it: both ends within ±1e300 of each other'
+		});
+	}
 	const values: number[] = [];
 	for (let i = 0; i < n; i++) values.push(i === n - 1 ? b : a + ((b - a) * i) / (n - 1));
 	return { many: true, values };

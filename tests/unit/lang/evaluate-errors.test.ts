@@ -6,6 +6,7 @@ import { Pad } from './pad';
 /** [setup lines, bad line, message (exact or pattern), the text the span covers, code] */
 const BAD: [string[], string, string | RegExp, string, ('limit' | 'language')?][] = [
 	[[], 'darea l=-1', 'l must be > 0', '-1'],
+	[[], 'sweep darea l=-1e308..1e308:5', 'the range is wider than double precision can step through', '-1e308..1e308:5'],
 	[[], 'darea l=0', 'l must be > 0', '0'],
 	[[], 'darea o=2', 'darea needs l=… (the strip width)', 'darea'],
 	[[], 'darea ball', 'darea ball needs R=… (the ball radius)', 'darea ball'],
