@@ -18,6 +18,7 @@ import { applySinks } from './sinks';
 import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import type { Point, VerbSpec } from './verbs/index';
+import type { PointCarry } from './verbs/types';
 import { verbSpec } from './verbs/index';
 import { type BulkName, canonicalKey } from './vocab';
 
@@ -90,6 +91,14 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	// the bulk, G and the quantity keys that do not move are built once per line, not once per point
 	const fixed = sweptIsBulk ? undefined : bulkAt(bulkName, base, s.keys, verbSpan, '', spec, env);
 	const fixedQ = sweptIsBulk ? undefined : quantitiesAt(sorted.quantityKeys, qres.values, undefined, env, swept, '');
+	// a swept line walks its points in order: each order column hands its last answer's start to the next point
+	const carries = new Map<Order, PointCarry>();
+	const carryOf = (order: Order): PointCarry | undefined => {
+		if (!swept) return undefined;
+		let c = carries.get(order);
+		if (!c) carries.set(order, (c = {}));
+		return c;
+	};
 	const pointAt = (x: Scalar | undefined, order: Order): Point => {
 		const where = whereAt(x);
 		const b = fixed ?? bulkAt(bulkName, withKey(base, swept!.key, x!), s.keys, verbSpan, where, spec, env);
@@ -98,7 +107,8 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			qw = { q: { ...fixedQ.q }, words: { ...fixedQ.words } };
 			setQuantity(qw, swept, x, where);
 		} else qw = fixedQ ?? quantitiesAt(sorted.quantityKeys, qres.values, { ...qscope, bulk: b.checked }, env, swept, where, x);
-		return { holo: engine, bulk: b.bulk, q: qw.q, words: qw.words, order, shape: sorted.shape, G: qw.q.G ?? b.G };
+		const carry = carryOf(order);
+		return { holo: engine, bulk: b.bulk, q: qw.q, words: qw.words, order, shape: sorted.shape, G: qw.q.G ?? b.G, ...(carry ? { carry } : {}) };
 	};
 
 	const shown = { ...base };
