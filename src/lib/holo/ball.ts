@@ -154,7 +154,13 @@ export function ballStartFrom(trail: BallTrail | undefined, d: number, R: number
 }
 
 /** Adds a solved ball to a sweep's trail (a new trail when d changes); keeps the last three. */
-export function extendBallTrail(trail: BallTrail | undefined, d: number, R: number, zh: number, v: number | undefined): BallTrail | undefined {
+export function extendBallTrail(
+	trail: BallTrail | undefined,
+	d: number,
+	R: number,
+	zh: number,
+	v: number | undefined
+): BallTrail | undefined {
 	if (v === undefined || !Number.isFinite(v)) return trail;
 	const t = trail && trail.d === d ? trail : { d, lx: [], v: [] };
 	t.lx.push(Math.log(R / zh));
