@@ -17,12 +17,14 @@ export {
 	ballDeltaAreaFirstOrder,
 	ballDeltaArea,
 	ballDeltaAreaSweep,
+	ballStartFrom,
+	extendBallTrail,
 	ballTent,
 	ballEnergy,
 	ballTip,
 	sphereArea
 } from './ball';
-export type { BallDeltaArea } from './ball';
+export type { BallDeltaArea, BallTrail } from './ball';
 
 export { mutualInformationArea, criticalGap } from './mutual';
 export type { MutualInformation, StripArea } from './mutual';

@@ -48,6 +48,16 @@ function landingDepth(d: number): number {
 }
 const N = 10; // r z φ q K, then ∂_τ of r z φ q K
 
+let shotsTaken = 0;
+
+/**
+ * Shots taken by this process so far (one per Newton step): what a sweep's continuation saves is counted with it
+ * in the tests, since timings cannot be asserted on a busy machine.
+ */
+export function ballShotsTaken(): number {
+	return shotsTaken;
+}
+
 /** One shot from the tip (z0 = 1) in f = 1 − τ z^d: R̂, ΔÂ/Ω and their τ-derivatives. */
 export interface BallTipShot {
 	R: number;
@@ -286,6 +296,7 @@ export function solveBall(d: number, R: number, zh: number, rtol = 1e-12, from?:
 		// the fixtures: at τ = 1e-5, d = 5, rtol 1e-12 alone leaves 2e-9)
 		const shot = shootBallTip(d, tau, omt, Math.max(rtol * Math.min(1, Math.sqrt(tau / 0.01)), 1e-15));
 		shots++;
+		shotsTaken++;
 		last = { v, tau, shot };
 		const g = Math.log(shot.R) + Math.log(tau) / d - lx;
 		const dgdtau = 1 / (d * tau) + shot.dR / shot.R;

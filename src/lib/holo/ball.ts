@@ -122,12 +122,62 @@ export function ballDeltaArea(d: number, R: number, zh: number, rtol = 1e-12, fr
 	return { value: om * s.K, error: om * s.correction, firstOrder, from: Number.isNaN(s.v) ? undefined : s.v };
 }
 
-/** Exact ΔA along a list of radii, each ball started from the previous one. */
+/**
+ * The tips a sweep has found so far, newest last, for the next ball's Newton start: v = logit (z0/zh)^d as a
+ * function of ln(R/zh) is smooth (≈ d ln x for small balls, ≈ κx for large ones), so a quadratic through the last
+ * three tips lands ~1e-6 from the next one on a 200-point sweep, and Newton needs 2 shots instead of 4–5.
+ */
+export interface BallTrail {
+	d: number;
+	lx: number[];
+	v: number[];
+}
+
+/** Where the next ball of a sweep starts Newton (undefined: cold). Deterministic for the same trail. */
+export function ballStartFrom(trail: BallTrail | undefined, d: number, R: number, zh: number): number | undefined {
+	if (!trail || trail.d !== d || trail.v.length === 0) return undefined;
+	const x = Math.log(R / zh);
+	const { lx, v } = trail;
+	const n = v.length;
+	const last = v[n - 1]!;
+	if (n < 3) return last;
+	const [x0, x1, x2] = [lx[n - 3]!, lx[n - 2]!, lx[n - 1]!];
+	const h = x2 - x1;
+	// extrapolate only a step or two onwards in the sweep's own direction; any other jump starts from the last tip
+	if (!(h !== 0 && (x - x2) / h > 0 && (x - x2) / h <= 2.5 && (x1 - x0) * h > 0)) return last;
+	const [v0, v1, v2] = [v[n - 3]!, v[n - 2]!, v[n - 1]!];
+	const l0 = ((x - x1) * (x - x2)) / ((x0 - x1) * (x0 - x2));
+	const l1 = ((x - x0) * (x - x2)) / ((x1 - x0) * (x1 - x2));
+	const l2 = ((x - x0) * (x - x1)) / ((x2 - x0) * (x2 - x1));
+	const guess = l0 * v0 + l1 * v1 + l2 * v2;
+	return Number.isFinite(guess) ? guess : last;
+}
+
+/** Adds a solved ball to a sweep's trail (a new trail when d changes); keeps the last three. */
+export function extendBallTrail(
+	trail: BallTrail | undefined,
+	d: number,
+	R: number,
+	zh: number,
+	v: number | undefined
+): BallTrail | undefined {
+	if (v === undefined || !Number.isFinite(v)) return trail;
+	const t = trail && trail.d === d ? trail : { d, lx: [], v: [] };
+	t.lx.push(Math.log(R / zh));
+	t.v.push(v);
+	if (t.v.length > 3) {
+		t.lx.shift();
+		t.v.shift();
+	}
+	return t;
+}
+
+/** Exact ΔA along a list of radii, each ball started from the ones before it. */
 export function ballDeltaAreaSweep(d: number, Rs: readonly number[], zh: number, rtol = 1e-12): number[] {
-	let from: number | undefined;
+	let trail: BallTrail | undefined;
 	return Rs.map((R) => {
-		const r = ballDeltaArea(d, R, zh, rtol, from);
-		from = r.from;
+		const r = ballDeltaArea(d, R, zh, rtol, ballStartFrom(trail, d, R, zh));
+		trail = extendBallTrail(trail, d, R, zh, r.from);
 		return r.value;
 	});
 }

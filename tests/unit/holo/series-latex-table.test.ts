@@ -1,13 +1,29 @@
 import { describe, it, expect } from 'vitest';
 import { EXACT_ORDER, exactLatex, computeExactLatex } from '../../../src/lib/holo/series/exact-latex';
-import table from '../../../src/lib/holo/series/boosted-latex.json';
+import packed from '../../../src/lib/holo/series/boosted-latex.json';
+import { packBoostedRow, unpackBoostedRow } from '../../../src/lib/holo/series/boosted-latex';
 
 // The boosted brane's exact LaTeX is served from a table written by scripts/gen-series-latex.ts; these checks
 // recompute entries from the algebra, so a change to series/exact*.ts that is not followed by regenerating the
 // table fails here (run: node --import tsx scripts/gen-series-latex.ts).
 describe('boosted LaTeX table', () => {
 	it('covers d = 3…10 to the exact order', () => {
-		for (let d = 3; d <= 10; d++) expect((table as Record<string, string[]>)[d]?.length, `d=${d}`).toBe(EXACT_ORDER.boosted);
+		for (let d = 3; d <= 10; d++)
+			expect(unpackBoostedRow(d, (packed as Record<string, string>)[d]!).length, `d=${d}`).toBe(EXACT_ORDER.boosted);
+	});
+
+	it('packs exactly: every row round-trips, and packing the algebra gives the stored row (d = 3)', () => {
+		for (let d = 3; d <= 10; d++) {
+			const row = unpackBoostedRow(d, (packed as Record<string, string>)[d]!);
+			expect(packBoostedRow(d, row), `d=${d}`).toBe((packed as Record<string, string>)[d]);
+			expect(
+				row.every((t) => t.includes('\\mathrm{B}(\\tfrac{') && !/[#~|<>]/.test(t)),
+				`d=${d}`
+			).toBe(true);
+		}
+		const fromAlgebra = Array.from({ length: EXACT_ORDER.boosted }, (_, i) => computeExactLatex(3, 'boosted', i + 1));
+		expect(packBoostedRow(3, fromAlgebra)).toBe((packed as Record<string, string>)[3]);
+		expect(() => packBoostedRow(4, ['a # b'])).toThrow(/'#' occurs/);
 	});
 
 	it('equals the algebra for d = 3, 4 to order 12 and d = 7 to order 6', () => {

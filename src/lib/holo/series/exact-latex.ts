@@ -2,7 +2,7 @@ import { exactSeries, type ExactKind } from './exact';
 import { evaluateTerms, type Fraction, type Term } from './laurent';
 import { beta } from '../special/beta';
 import { gcd } from './btz';
-import boostedTable from './boosted-latex.json';
+import { boostedLatex } from './boosted-latex';
 
 /**
  * Exact a_k as KaTeX: a rational content and a common monomial in front, then the primitive part with
@@ -17,7 +17,8 @@ import boostedTable from './boosted-latex.json';
  * brane and wave to order 14 ≲ 0.1 s for any d; the boosted brane carries κ as well and grows like n⁴ —
  * order 8 ≈ 0.2–0.5 s, order 12 ≈ 0.3–0.7 s (d = 3…10), order 14 above 1 s — so the boosted LaTeX is exact
  * up to order 12 and printed as decimals (with a note) for 13 and 14; its strings to order 12 are precomputed
- * in boosted-latex.json (scripts/gen-series-latex.ts), so a cold request costs a table lookup.
+ * in boosted-latex.json (scripts/gen-series-latex.ts; packed and unpacked per d on first use, boosted-latex.ts), so a
+ * cold request costs a table lookup.
  */
 export const EXACT_ORDER: Record<ExactKind, number> = { brane: 14, wave: 14, boosted: 12 };
 
@@ -47,8 +48,7 @@ export function exactTerms(d: number, kind: ExactKind, n: number): Term[][] {
  * cold it would cost 0.1–0.5 s of BigInt algebra per d), everything else computed once and cached per (d, kind, k).
  */
 export function exactLatex(d: number, kind: ExactKind, k: number): string {
-	const row = kind === 'boosted' ? (boostedTable as Record<string, string[] | undefined>)[d] : undefined;
-	return row?.[k - 1] ?? computeExactLatex(d, kind, k);
+	return (kind === 'boosted' ? boostedLatex(d, k) : undefined) ?? computeExactLatex(d, kind, k);
 }
 
 /** LaTeX of the exact a_k from the algebra (cached per (d, kind, k)); the table's source. */

@@ -122,9 +122,28 @@ export function ballDeltaArea(p: Point, verb: string): number {
 	const R = p.q.R!;
 	const zh = ballZh(p, verb);
 	if (zh === undefined || p.order === 0) return 0;
-	if (p.order === 'exact') return p.holo.ballDeltaArea(p.bulk.d, R, zh).value;
+	if (p.order === 'exact') return exactBall(p, R, zh);
 	if (p.order === 1) return p.holo.ballDeltaAreaFirstOrder(p.bulk.d, R, zh);
 	throw new p.holo.HoloError('the ball series is known to order 1: use o=1 or o=exact', 'o');
+}
+
+/**
+ * The exact ball, started from the previous point's tip in a sweep (holo/ball.ts, ballStartFrom).
+ * A warm start that fails is retried cold, so a sweep answers whatever its points would answer one by one.
+ */
+function exactBall(p: Point, R: number, zh: number): number {
+	const c = p.carry;
+	const d = p.bulk.d;
+	const from = p.holo.ballStartFrom(c?.ballTrail, d, R, zh);
+	let r: ReturnType<Point['holo']['ballDeltaArea']>;
+	try {
+		r = p.holo.ballDeltaArea(d, R, zh, undefined, from);
+	} catch (e) {
+		if (from === undefined || !(e instanceof p.holo.HoloError)) throw e;
+		r = p.holo.ballDeltaArea(d, R, zh);
+	}
+	if (c) c.ballTrail = p.holo.extendBallTrail(c.ballTrail, d, R, zh, r.from);
+	return r.value;
 }
 
 export function ballArea(p: Point, verb: string): number {

@@ -7,7 +7,7 @@
  * the registry ships to the browser without the numerics.
  */
 import type { Engine } from '../engine';
-import type { Bulk } from '../../holo/index';
+import type { BallTrail, Bulk } from '../../holo/index';
 import type { Order } from '../result';
 
 export interface VerbForm {
@@ -29,6 +29,18 @@ export interface Point {
 	shape: string;
 	/** Newton's constant in force on this line (a G= key, or the pad's units for verbs that use G) */
 	G: number;
+	/**
+	 * What the previous point of the same sweep and order left for this one (a sweep walks its points in order):
+	 * one object per line and order, absent for a single point. Only a start, never the answer: a verb must give
+	 * the same value with or without it.
+	 */
+	carry?: PointCarry;
+}
+
+/** Per-sweep state passed from point to point (run-verb.ts makes one per order column). */
+export interface PointCarry {
+	/** the exact balls found so far (their tips), where Newton starts the next one */
+	ballTrail?: BallTrail;
 }
 
 /** A scalar verb's value at one point, with the warning and side fields it carries. */

@@ -4,6 +4,7 @@
  * thread's resourceLimits did not stop V8 from taking the whole server down. It runs one line at a time and
  * holds the datasets it was sent, by id, so a replay or a run of `compare` lines sends each one once.
  */
+import type { PadContext } from '../../lang/result';
 import type { DatasetRows, FromChild, ToChild } from './protocol';
 import { evaluateTask } from './worker';
 import type { EvalAnswer } from './worker';
@@ -54,9 +55,38 @@ function run(m: Extract<ToChild, { type: 'run' }>) {
 	send({ type: 'answer', id: m.id, answer });
 }
 
+/**
+ * JIT warm-up while the process is idle. A fresh process runs the engine's hot loops interpreted for its first
+ * thousands of calls: a 2000-point exact strip sweep took 5–10× its warm time on its first run and 2–5× on the
+ * next, and every evaluation process is fresh after a fork. These lines are small (≲ 25 strip solves, a few ms
+ * cold) and stateless and run one per turn of the event loop after 'ready', so a real line that arrives meanwhile
+ * waits for at most one of them, and its budget starts only when it starts. BULKPAD_EVAL_WARMUP=0 turns it off.
+ */
+const WARMUP: readonly string[] = [
+	'darea l=0.5',
+	'zstar l=0.5',
+	'dentropy l=0.5 o=2',
+	...Array.from({ length: 48 }, (_, i) => `sweep darea l=${0.05 + 0.002 * i}..1.2:25`),
+	'sweep darea l=0.1..1:20 o=1,2,3',
+	...Array.from({ length: 4 }, (_, i) => `sweep darea ball R=${0.2 + 0.05 * i}..1.5:4`)
+];
+function warmUp(i: number): void {
+	if (i >= WARMUP.length) return;
+	const ctx: PadContext = {
+		bulk: { name: 'brane', params: { d: 4, zh: 1 } },
+		units: { system: 'geo', G: 1 },
+		refs: {},
+		lets: {},
+		macros: {}
+	};
+	evaluateTask({ input: WARMUP[i]!, ctx });
+	setImmediate(() => warmUp(i + 1));
+}
+
 process.on('message', (m: ToChild) => {
 	if (m?.type === 'run') run(m);
 });
 // the server going away closes the channel: nothing left to answer
 process.on('disconnect', () => process.exit(0));
 send({ type: 'ready' });
+if (process.env.BULKPAD_EVAL_WARMUP !== '0') setImmediate(() => warmUp(0));
