@@ -94,7 +94,9 @@ describe('lines left whole', () => {
 		['one truncated order', 'sweep darea l=0.1..3:400 o=2'],
 		['an order sweep', 'thermo o=1,2,3,4,5,6,7,8,9'],
 		['a line that does not parse', 'sweep darea l=0.1..'],
-		['a macro', '@growth l=0.1..1:40']
+		['a macro', '@growth l=0.1..1:40'],
+		// each exact ball starts from the previous ones: chunks starting afresh would differ in the last bits
+		['a ball sweep', 'sweep darea ball R=0.1..2:200']
 	])('%s', (_, input) => {
 		expect(splitSweep(input, 8)).toBeUndefined();
 	});

@@ -8,7 +8,7 @@
  * swept key (not the order) whose list items or range ends and count are number literals, and exact values
  * only: a truncated order's table carries warnings merged over all its points (the largest l past the radius,
  * per order), which no chunk can say alone — and series sweeps are cheap, the heavy sweeps are exact ones
- * (balls, quench growth, metric bulks). Anything else runs whole on one worker. Merging checks that every chunk answered the same table apart from its rows (label,
+ * (quench growth, metric bulks; exact balls continue from point to point, so they stay whole). Anything else runs whole on one worker. Merging checks that every chunk answered the same table apart from its rows (label,
  * columns, plot hints, warning, note, the pad's state); when they differ, or a chunk answers a language error
  * (its span points into the chunk's text), the caller runs the line whole instead — exactness over speed.
  */
@@ -81,6 +81,9 @@ export function splitSweep(input: string, target: number): Chunk[] | undefined {
 	const s = line.statements[line.statements.length - 1]!;
 	if (!line.statements.slice(0, -1).every((p) => SETTINGS.has(p.type))) return undefined;
 	if (s.type !== 'verb' || s.sinks.some((k) => !SINKS_KEPT.has(k.text))) return undefined;
+	// a ball sweep starts each exact ball from the previous ones (verbs/point.ts, Point.carry): a chunk would start
+	// afresh and land within 1e-14 of the whole line's numbers but not on them — and balls take a millisecond each
+	if (s.subject?.text === 'ball') return undefined;
 	const isOrder = (kv: A.KeyValue) => kv.key === 'o' || kv.key === 'order';
 	const many = s.keys.filter((kv) => !isOrder(kv) && (kv.value.type === 'list' || kv.value.type === 'range'));
 	if (many.length !== 1) return undefined;
