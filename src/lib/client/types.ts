@@ -63,6 +63,8 @@ export interface PadState {
 	history: string[];
 	/** false for a pad the user was only invited to: read it, but type nothing */
 	own: boolean;
+	/** the pad's relative validity tolerance; null: the default 1e-3 */
+	validityTol?: number | null;
 }
 
 /** `boosted d=4 zh=1 v=0.6` */

@@ -19,6 +19,7 @@ import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import type { Point, VerbSpec } from './verbs/index';
 import { verbSpec } from './verbs/index';
+import { DEFAULT_VALIDITY_TOL } from './verbs/validity';
 import { type BulkName, canonicalKey } from './vocab';
 
 /** Asks the engine at a point; engine errors point at the line's characters (env.ts). */
@@ -90,6 +91,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 	// the bulk, G and the quantity keys that do not move are built once per line, not once per point
 	const fixed = sweptIsBulk ? undefined : bulkAt(bulkName, base, s.keys, verbSpan, '', spec, env);
 	const fixedQ = sweptIsBulk ? undefined : quantitiesAt(sorted.quantityKeys, qres.values, undefined, env, swept, '');
+	const validityTol = env.ctx.validityTol ?? DEFAULT_VALIDITY_TOL;
 	const pointAt = (x: Scalar | undefined, order: Order): Point => {
 		const where = whereAt(x);
 		const b = fixed ?? bulkAt(bulkName, withKey(base, swept!.key, x!), s.keys, verbSpan, where, spec, env);
@@ -98,7 +100,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			qw = { q: { ...fixedQ.q }, words: { ...fixedQ.words } };
 			setQuantity(qw, swept, x, where);
 		} else qw = fixedQ ?? quantitiesAt(sorted.quantityKeys, qres.values, { ...qscope, bulk: b.checked }, env, swept, where, x);
-		return { holo: engine, bulk: b.bulk, q: qw.q, words: qw.words, order, shape: sorted.shape, G: qw.q.G ?? b.G };
+		return { holo: engine, bulk: b.bulk, q: qw.q, words: qw.words, order, shape: sorted.shape, G: qw.q.G ?? b.G, validityTol };
 	};
 
 	const shown = { ...base };
@@ -134,7 +136,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		if (plotted) table.plot = { ...table.plot!, show: true };
 		if (plotted && xKey === 'l' && spec.kind === 'scalar' && spec.series && !sweptIsBulk) {
 			const validity = validityHints(orders, (o) => call(xs[0], () => pointAt(xs[0], o)));
-			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity };
+			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity, tol: validityTol };
 		}
 		results.push(table);
 		ref = tableRef(table);

@@ -23,6 +23,8 @@ export interface Snapshot extends PadSource {
 	units: UnitsState;
 	lets: Record<string, LetValue>;
 	steps: SnapshotStep[];
+	/** the pad's validity tolerance when frozen (absent: the default); a fork and a replay of the link use it */
+	validityTol?: number;
 }
 
 export type ShareRow = typeof schema.shares.$inferSelect;
@@ -43,6 +45,7 @@ export function freezePad(pad: PadRow, steps: StepRow[] = padSteps(pad.id)): Sna
 		bulk: pad.bulk,
 		units: pad.units,
 		lets: pad.lets,
+		...(pad.validityTol != null ? { validityTol: pad.validityTol } : {}),
 		steps: steps
 			.filter((s) => s.status !== 'pending')
 			.map((s) => ({

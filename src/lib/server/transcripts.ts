@@ -146,6 +146,7 @@ export function forkSnapshot({ snapshot }: OpenedShare, user: AppUser): PadRow {
 			bulk: snapshot.bulk,
 			units: snapshot.units,
 			lets: snapshot.lets ?? {},
+			validityTol: snapshot.validityTol ?? null,
 			history: snapshot.steps.map((s) => s.input).slice(-200),
 			createdAt: now,
 			updatedAt: now

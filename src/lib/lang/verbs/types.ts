@@ -29,6 +29,8 @@ export interface Point {
 	shape: string;
 	/** Newton's constant in force on this line (a G= key, or the pad's units for verbs that use G) */
 	G: number;
+	/** the pad's relative validity tolerance (series warnings, `validity` without tol=) */
+	validityTol: number;
 }
 
 /** A scalar verb's value at one point, with the warning and side fields it carries. */

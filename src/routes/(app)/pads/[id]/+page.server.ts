@@ -55,7 +55,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			bulk: pad.bulk,
 			units: pad.units,
 			history: own ? (pad.history ?? []) : [],
-			own
+			own,
+			validityTol: pad.validityTol ?? null
 		},
 		steps,
 		attempts
