@@ -69,6 +69,10 @@ export interface SeriesResult {
 	/** `power`: the exponent of l/scale the term multiplies (k·d, except for the charged brane's mixed powers) */
 	terms: { k: number; coeff: number; latex: string; power?: number }[];
 	latex: string;
+	/** the coefficients for a paper: an aligned LaTeX list, one per line, every symbol defined (lang/coeff-list.ts) */
+	list?: string;
+	/** the same list in plain text (full-precision numbers) */
+	text?: string;
 	order?: Order;
 	warning?: string;
 }

@@ -16,6 +16,7 @@ import type { Order, Result, StepRef } from './result';
 import { checkBulk, checkKey } from './schema';
 import { applySinks } from './sinks';
 import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
+import { coefficientList } from './coeff-list';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import type { Point, VerbSpec } from './verbs/index';
 import { verbSpec } from './verbs/index';
@@ -115,7 +116,16 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const st = call(undefined, () => spec.at(p));
 		tick();
 		const n = orders[0] as number;
-		results.push({ kind: 'series', label: `ΔA series to order ${n} · ${bulkText}`, terms: st.terms, latex: seriesLatex(st), order: n });
+		const list = coefficientList(st, { name: bulkName, params: base });
+		results.push({
+			kind: 'series',
+			label: `ΔA series to order ${n} · ${bulkText}`,
+			terms: st.terms,
+			latex: seriesLatex(st),
+			list: list.latex,
+			text: list.text,
+			order: n
+		});
 		ref = { fields: Object.fromEntries(st.terms.map((t) => [`a${t.k}`, t.coeff])), order: n };
 	} else if (!s.sweep && !orderSweep && xs.length === 1 && orders.length === 1) {
 		const out = onePoint(
