@@ -25,6 +25,8 @@ export interface StepData {
 	version?: number;
 	/** earlier versions, newest first */
 	versions?: StepVersionData[];
+	/** labels typed in the label editor of the step's figures, by result index */
+	figureLabels?: Record<string, { xlabel?: string; ylabel?: string; legends?: Record<string, string> }> | null;
 }
 
 export interface StepVersionData {

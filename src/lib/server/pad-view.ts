@@ -56,7 +56,9 @@ export function stepView(s: StepRow) {
 		ms: s.ms,
 		name: s.name,
 		hidden: s.hiddenAt !== null,
-		version: s.version
+		version: s.version,
+		/** labels typed for the step's figures, by result index (null: the defaults) */
+		figureLabels: s.figureLabels ?? null
 	};
 }
 

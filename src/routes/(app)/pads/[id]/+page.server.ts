@@ -27,6 +27,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		name: s.name,
 		hidden: s.hiddenAt !== null,
 		version: s.version,
+		figureLabels: s.figureLabels ?? null,
 		versions: (versions.get(s.id) ?? []).map((v) => ({
 			version: v.version,
 			input: v.input,
