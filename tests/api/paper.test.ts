@@ -138,6 +138,11 @@ describe('figure labels are kept with their step', () => {
 		expect(blank.body.step.figureLabels).toEqual({ '0': { ylabel: 'A' } });
 		expectFailure(await owner.patch(`/api/pads/${padId}/steps/1`, { figureLabels: { '0': { xlabel: 'x'.repeat(201) } } }), 400);
 		expectFailure(await member.patch(`/api/pads/${padId}/steps/1`, { figureLabels: { '0': labels } }), 404);
+		// a link made now and its fork keep the labels
+		expect((await owner.patch(`/api/pads/${padId}/steps/1`, { figureLabels: { '0': labels } })).status).toBe(200);
+		const share = await owner.post(`/api/pads/${padId}/share`, {});
+		const fork = await member.post(`/api/t/${share.body.slug}/fork`);
+		expect((await member.get(`/api/pads/${fork.body.pad.id}`)).body.steps[0].figureLabels).toEqual({ '0': labels });
 		const cleared = await owner.patch(`/api/pads/${padId}/steps/1`, { figureLabels: { '0': null } });
 		expect(cleared.body.step.figureLabels).toBeNull();
 	});

@@ -16,7 +16,11 @@ import type { PadSource } from './export/schema';
 import type { BulkState, LetValue, UnitsState } from '../lang/result';
 
 /** One step as a snapshot keeps it: a step row's recorded fields, its name when it had one. */
-export type SnapshotStep = Pick<StepRow, 'n' | 'input' | 'status' | 'results' | 'error' | 'ref' | 'bulkBefore'> & { name?: string | null };
+export type SnapshotStep = Pick<StepRow, 'n' | 'input' | 'status' | 'results' | 'error' | 'ref' | 'bulkBefore'> & {
+	name?: string | null;
+	/** labels typed for the step's figures (branch paper): a fork keeps them */
+	figureLabels?: StepRow['figureLabels'];
+};
 /** What a snapshot holds: the export document's source shape (typed), so exports of a snapshot need nothing new. */
 export interface Snapshot extends PadSource {
 	bulk: BulkState;
@@ -56,7 +60,8 @@ export function freezePad(pad: PadRow, steps: StepRow[] = padSteps(pad.id)): Sna
 				error: s.error ?? null,
 				ref: s.ref ?? null,
 				bulkBefore: s.bulkBefore ?? null,
-				...(s.name ? { name: s.name } : {})
+				...(s.name ? { name: s.name } : {}),
+				...(s.figureLabels ? { figureLabels: s.figureLabels } : {})
 			}))
 	};
 }

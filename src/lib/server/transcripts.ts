@@ -173,6 +173,7 @@ export function forkSnapshot(opened: OpenedShare, user: AppUser): PadRow & { dat
 					ref: s.ref ?? null,
 					bulkBefore: s.bulkBefore ?? null,
 					name: s.name ?? null,
+					figureLabels: s.figureLabels ?? null,
 					createdAt: now
 				})
 				.run();
