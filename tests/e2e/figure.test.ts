@@ -100,7 +100,7 @@ describe('figures for a paper', () => {
 				).toBe(true);
 			}
 		expect(await fig.locator('text.legend-text').allTextContents()).toContain(
-			'shaded: order reliable, ℓ ≤ ℓ_max (relative tolerance 0.001)'
+			'shaded: series within 1e-3 of exact (relative), ℓ ≤ ℓ_max'
 		);
 		await fig.screenshot({ path: join(SHOTS, 'sweep-orders-bands.png') });
 	});

@@ -17,7 +17,15 @@ function failureText(b: Record<string, unknown>, status: number): string {
 }
 
 /** PATCH a step: hide/restore or (un)name. Resolves to an error message, or null when it worked. */
-export async function patchStep(pad: string, n: number, change: { hidden?: boolean; name?: string | null }): Promise<string | null> {
+export async function patchStep(
+	pad: string,
+	n: number,
+	change: {
+		hidden?: boolean;
+		name?: string | null;
+		figureLabels?: Record<string, { xlabel?: string; ylabel?: string; legends?: Record<string, string> } | null>;
+	}
+): Promise<string | null> {
 	const r = await send('PATCH', `/api/pads/${pad}/steps/${n}`, change);
 	return r.body.ok ? null : failureText(r.body, r.status);
 }

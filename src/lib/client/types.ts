@@ -25,6 +25,8 @@ export interface StepData {
 	version?: number;
 	/** earlier versions, newest first */
 	versions?: StepVersionData[];
+	/** labels typed in the label editor of the step's figures, by result index */
+	figureLabels?: Record<string, { xlabel?: string; ylabel?: string; legends?: Record<string, string> }> | null;
 }
 
 export interface StepVersionData {
@@ -63,6 +65,8 @@ export interface PadState {
 	history: string[];
 	/** false for a pad the user was only invited to: read it, but type nothing */
 	own: boolean;
+	/** the pad's relative validity tolerance; null: the default 1e-3 */
+	validityTol?: number | null;
 }
 
 /** `boosted d=4 zh=1 v=0.6` */

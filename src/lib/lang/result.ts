@@ -38,8 +38,19 @@ export interface TableResult {
 	label: string;
 	columns: string[];
 	rows: (number | string | null)[][];
-	/** plot hints: which column is x, whether a plot was asked, the validity region per order column */
-	plot?: { x: string; log?: boolean; validity?: Record<string, number>; dataset?: string; show?: boolean; guides?: PlotGuide[] };
+	/**
+	 * plot hints: which column is x, whether a plot was asked, the validity region per order column and the
+	 * relative tolerance it was found with (`tol`, the pad's validity tolerance)
+	 */
+	plot?: {
+		x: string;
+		log?: boolean;
+		validity?: Record<string, number>;
+		tol?: number;
+		dataset?: string;
+		show?: boolean;
+		guides?: PlotGuide[];
+	};
 	warning?: string;
 	note?: string;
 	/** LaTeX of the table (a tabular), present when `| tex` was asked */
@@ -58,6 +69,10 @@ export interface SeriesResult {
 	/** `power`: the exponent of l/scale the term multiplies (k·d, except for the charged brane's mixed powers) */
 	terms: { k: number; coeff: number; latex: string; power?: number }[];
 	latex: string;
+	/** the coefficients for a paper: an aligned LaTeX list, one per line, every symbol defined (lang/coeff-list.ts) */
+	list?: string;
+	/** the same list in plain text (full-precision numbers) */
+	text?: string;
 	order?: Order;
 	warning?: string;
 }
@@ -133,6 +148,11 @@ export interface PadContext {
 	macros?: Record<string, { params: Record<string, string>; body: string[]; effects?: MacroEffect[] }>;
 	/** datasets by name: numeric columns from an uploaded CSV */
 	datasets?: Record<string, { columns: string[]; rows: number[][] }>;
+	/**
+	 * the pad's validity tolerance (relative): series warnings, `validity` without tol= and the plot's shading
+	 * all use it; absent means DEFAULT_VALIDITY_TOL (1e-3, lang/verbs/validity.ts)
+	 */
+	validityTol?: number;
 }
 
 /** What a macro's header may declare it leaves changed in the pad; everything else is restored after it runs. */

@@ -16,10 +16,12 @@ import type { Order, Result, StepRef } from './result';
 import { checkBulk, checkKey } from './schema';
 import { applySinks } from './sinks';
 import { buildTable, seriesLatex, tableRef, validityHints } from './tables';
+import { coefficientList } from './coeff-list';
 import { type Resolved, type Scalar, resolveValue } from './values';
 import type { Point, VerbSpec } from './verbs/index';
 import type { PointCarry } from './verbs/types';
 import { verbSpec } from './verbs/index';
+import { DEFAULT_VALIDITY_TOL } from './verbs/validity';
 import { type BulkName, canonicalKey } from './vocab';
 
 /** Asks the engine at a point; engine errors point at the line's characters (env.ts). */
@@ -108,6 +110,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		if (!c) carries.set(order, (c = {}));
 		return c;
 	};
+	const validityTol = env.ctx.validityTol ?? DEFAULT_VALIDITY_TOL;
 	const pointAt = (x: Scalar | undefined, order: Order): Point => {
 		const where = (): string => whereAt(x);
 		const b = fixed ?? bulkAt(bulkName, withKey(base, swept!.key, x!), s.keys, verbSpan, where(), spec, env);
@@ -125,6 +128,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			order,
 			shape: sorted.shape,
 			G: qw.q.G ?? b.G,
+			validityTol,
 			...(carry ? { carry } : {})
 		};
 	};
@@ -141,7 +145,16 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const st = call(undefined, () => spec.at(p));
 		tick();
 		const n = orders[0] as number;
-		results.push({ kind: 'series', label: `ΔA series to order ${n} · ${bulkText}`, terms: st.terms, latex: seriesLatex(st), order: n });
+		const list = coefficientList(st, { name: bulkName, params: base });
+		results.push({
+			kind: 'series',
+			label: `ΔA series to order ${n} · ${bulkText}`,
+			terms: st.terms,
+			latex: seriesLatex(st),
+			list: list.latex,
+			text: list.text,
+			order: n
+		});
 		ref = { fields: Object.fromEntries(st.terms.map((t) => [`a${t.k}`, t.coeff])), order: n };
 	} else if (!s.sweep && !orderSweep && xs.length === 1 && orders.length === 1) {
 		const out = onePoint(
@@ -162,7 +175,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		if (plotted) table.plot = { ...table.plot!, show: true };
 		if (plotted && xKey === 'l' && spec.kind === 'scalar' && spec.series && !sweptIsBulk) {
 			const validity = validityHints(orders, (o) => call(xs[0], () => pointAt(xs[0], o)));
-			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity };
+			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity, tol: validityTol };
 		}
 		results.push(table);
 		ref = tableRef(table);

@@ -10,7 +10,6 @@ import type { Order, StepRef, TableResult } from './result';
 import type { EngineCall } from './run-verb';
 import type { Scalar } from './values';
 import type { Point, SeriesTerms, VerbSpec } from './verbs/index';
-import { DEFAULT_VALIDITY_TOL } from './verbs/validity';
 
 export function buildTable(
 	spec: Exclude<VerbSpec, { kind: 'series' }>,
@@ -111,7 +110,7 @@ export function seriesLatex(st: SeriesTerms): string {
 }
 
 /**
- * The largest l where each order column stays within the default tolerance of the exact value, for the plot
+ * The largest l where each order column stays within the pad's validity tolerance of the exact value, for the plot
  * to shade. A hint only: an order the engine cannot bound is left unshaded rather than failing the line.
  */
 export function validityHints(orders: Order[], pointOf: (o: Order) => Point): Record<string, number> {
@@ -121,7 +120,7 @@ export function validityHints(orders: Order[], pointOf: (o: Order) => Point): Re
 		try {
 			const p = pointOf(o);
 			if (!p.bulk.series) continue;
-			const r = p.holo.validity(p.bulk, o, DEFAULT_VALIDITY_TOL);
+			const r = p.holo.validity(p.bulk, o, p.validityTol);
 			if (Number.isFinite(r.l_max)) out[orderName(o)] = r.l_max;
 		} catch (e) {
 			if (e instanceof LangError || isHoloError(e)) continue;

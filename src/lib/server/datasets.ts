@@ -43,14 +43,16 @@ const CSV_TYPES = new Set([
 
 type DatasetRow = typeof schema.datasets.$inferSelect;
 
-function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes' | 'createdAt'>) {
+function summary(d: Pick<DatasetRow, 'id' | 'name' | 'columns' | 'rows' | 'bytes' | 'createdAt'> & { origin?: string | null }) {
 	return {
 		id: d.id,
 		name: d.name,
 		columns: d.columns as string[],
 		rows: (d.rows as number[][]).length,
 		bytes: d.bytes,
-		createdAt: d.createdAt
+		createdAt: d.createdAt,
+		/** where a fork's copy came from (the original dataset and its owner); null for an upload */
+		origin: d.origin ?? null
 	};
 }
 export type DatasetSummary = ReturnType<typeof summary>;
@@ -65,7 +67,8 @@ export function listDatasets(owner: AppUser): DatasetSummary[] {
 			columns: d.columns,
 			rows: sql<number>`json_array_length(${d.rows})`,
 			bytes: d.bytes,
-			createdAt: d.createdAt
+			createdAt: d.createdAt,
+			origin: d.origin
 		})
 		.from(d)
 		.where(eq(d.ownerId, owner.id))
@@ -180,4 +183,57 @@ export function datasetTexts(ownerId: string, ids: string[]): { id: string; colu
 	return openDb()
 		.sqlite.prepare('select id, columns, rows from datasets where owner_id = ? and id in (select value from json_each(?))')
 		.all(ownerId, JSON.stringify(ids)) as { id: string; columns: string; rows: string }[];
+}
+
+// ── paper output (branch paper): forks carry the datasets their steps compare against ──
+
+export interface ForkedDatasets {
+	/** names copied into the forker's datasets, each with its origin */
+	copied: string[];
+	/** names the forker already had: theirs is kept (a replay of the fork uses it) */
+	kept: string[];
+	/** names not copied because the forker's dataset count or byte quota would be exceeded */
+	skipped: string[];
+}
+
+/**
+ * Copies the datasets of `fromOwnerId` named in `names` to `toOwnerId`, inside the fork's transaction, each
+ * named as before (the steps say `compare <name>`) and attributed in `origin` to the original dataset and
+ * owner. The copy is the dataset as it is now: a snapshot keeps steps, not the rows they compared against.
+ */
+export function copyDatasetsForFork(
+	tx: Pick<ReturnType<typeof getDb>, 'select' | 'insert'>,
+	fromOwnerId: string,
+	toOwnerId: string,
+	names: Set<string>,
+	origin: (name: string) => string
+): ForkedDatasets {
+	const out: ForkedDatasets = { copied: [], kept: [], skipped: [] };
+	if (!names.size || fromOwnerId === toOwnerId) return out;
+	const theirs = tx.select().from(schema.datasets).where(eq(schema.datasets.ownerId, fromOwnerId)).all();
+	const wanted = theirs.filter((d) => names.has(d.name));
+	if (!wanted.length) return out;
+	const mine = tx.select({ name: schema.datasets.name }).from(schema.datasets).where(eq(schema.datasets.ownerId, toOwnerId)).all();
+	const have = new Set(mine.map((d) => d.name));
+	let count = mine.length;
+	let bytes = storedBytes(tx, toOwnerId);
+	let groupBytes = storedBytes(tx);
+	for (const d of wanted) {
+		if (have.has(d.name)) {
+			out.kept.push(d.name);
+			continue;
+		}
+		if (count + 1 > DATASETS_PER_OWNER || bytes + d.bytes > DATASET_QUOTA.perUser || groupBytes + d.bytes > DATASET_QUOTA.perGroup) {
+			out.skipped.push(d.name);
+			continue;
+		}
+		tx.insert(schema.datasets)
+			.values({ id: newId(), ownerId: toOwnerId, name: d.name, columns: d.columns, rows: d.rows, bytes: d.bytes, createdAt: new Date(), origin: origin(d.name) })
+			.run();
+		count++;
+		bytes += d.bytes;
+		groupBytes += d.bytes;
+		out.copied.push(d.name);
+	}
+	return out;
 }

@@ -19,6 +19,15 @@ export const titleSchema = z
 	.regex(/^[^\r\n\t]*$/, 'A title is one line.')
 	.refine((t) => !HIDDEN_CHARACTERS.test(t), 'A title may not contain control characters or direction overrides.');
 
+/**
+ * A pad's validity tolerance: relative, strictly between 0 and 1 as the engine's validity demands; below
+ * 1e-12 the bisection (1e-6 relative in l) and double precision say nothing finer.
+ */
+export const validityTolSchema = z
+	.number({ error: 'The validity tolerance is a number, e.g. 1e-3.' })
+	.min(1e-12, 'Keep the validity tolerance at least 1e-12.')
+	.max(0.5, 'Keep the validity tolerance at most 0.5 (it is relative).');
+
 /** GET /api/pads/[id]'s shape (API.md). */
 export function padView(pad: PadRow, owner = ownerName(pad)) {
 	return {
@@ -28,6 +37,8 @@ export function padView(pad: PadRow, owner = ownerName(pad)) {
 		units: pad.units,
 		lets: pad.lets,
 		history: pad.history,
+		/** null: the default validity tolerance (1e-3 relative) */
+		validityTol: pad.validityTol ?? null,
 		createdAt: pad.createdAt,
 		updatedAt: pad.updatedAt,
 		owner: { name: owner }
@@ -45,7 +56,9 @@ export function stepView(s: StepRow) {
 		ms: s.ms,
 		name: s.name,
 		hidden: s.hiddenAt !== null,
-		version: s.version
+		version: s.version,
+		/** labels typed for the step's figures, by result index (null: the defaults) */
+		figureLabels: s.figureLabels ?? null
 	};
 }
 

@@ -37,6 +37,7 @@ export function createPad(
 		units: state?.units ?? DEFAULT_UNITS,
 		lets: state?.lets ?? {},
 		history: [] as string[],
+		validityTol: null as number | null,
 		createdAt: now,
 		updatedAt: now
 	};
@@ -131,8 +132,19 @@ export function padContext(pad: PadRow, input: string): PadContext {
 		lets: pad.lets,
 		refs: stepRefs(refRows),
 		names: stepNames(refRows),
+		...validityOf(pad),
 		...lineLibrary(input)
 	};
+}
+
+/** The pad's own validity tolerance for the evaluation context; none set leaves the language's default. */
+export function validityOf(pad: Pick<PadRow, 'validityTol'>): Pick<PadContext, 'validityTol'> {
+	return pad.validityTol != null ? { validityTol: pad.validityTol } : {};
+}
+
+/** Sets (a number) or clears (null: back to the default 1e-3) the pad's validity tolerance. */
+export function setValidityTol(pad: PadRow, validityTol: number | null) {
+	getDb().update(schema.pads).set({ validityTol, updatedAt: new Date() }).where(eq(schema.pads.id, pad.id)).run();
 }
 
 /** Lines of one pad run one after another: each sees the bulk and references the previous left. */

@@ -40,7 +40,7 @@ const flights = new Map<string, { promise: Promise<FreshStep[]>; controller: Abo
  * (macros, datasets) can give other answers for the same text, so those transcripts are never reused.
  */
 function fingerprint(pad: PadRow, steps: ReplayStep[]): { key: string; reusable: boolean } {
-	const key = JSON.stringify([pad.id, steps[0]?.bulkBefore ?? null, steps.map((s) => [s.n, s.input])]);
+	const key = JSON.stringify([pad.id, pad.validityTol ?? null, steps[0]?.bulkBefore ?? null, steps.map((s) => [s.n, s.input])]);
 	return { key, reusable: !steps.some((s) => s.input.includes('@') || s.input.includes('compare')) };
 }
 

@@ -16,13 +16,19 @@ import type { PadSource } from './export/schema';
 import type { BulkState, LetValue, UnitsState } from '../lang/result';
 
 /** One step as a snapshot keeps it: a step row's recorded fields, its name when it had one. */
-export type SnapshotStep = Pick<StepRow, 'n' | 'input' | 'status' | 'results' | 'error' | 'ref' | 'bulkBefore'> & { name?: string | null };
+export type SnapshotStep = Pick<StepRow, 'n' | 'input' | 'status' | 'results' | 'error' | 'ref' | 'bulkBefore'> & {
+	name?: string | null;
+	/** labels typed for the step's figures (branch paper): a fork keeps them */
+	figureLabels?: StepRow['figureLabels'];
+};
 /** What a snapshot holds: the export document's source shape (typed), so exports of a snapshot need nothing new. */
 export interface Snapshot extends PadSource {
 	bulk: BulkState;
 	units: UnitsState;
 	lets: Record<string, LetValue>;
 	steps: SnapshotStep[];
+	/** the pad's validity tolerance when frozen (absent: the default); a fork and a replay of the link use it */
+	validityTol?: number;
 }
 
 export type ShareRow = typeof schema.shares.$inferSelect;
@@ -43,6 +49,7 @@ export function freezePad(pad: PadRow, steps: StepRow[] = padSteps(pad.id)): Sna
 		bulk: pad.bulk,
 		units: pad.units,
 		lets: pad.lets,
+		...(pad.validityTol != null ? { validityTol: pad.validityTol } : {}),
 		steps: steps
 			.filter((s) => s.status !== 'pending')
 			.map((s) => ({
@@ -53,7 +60,8 @@ export function freezePad(pad: PadRow, steps: StepRow[] = padSteps(pad.id)): Sna
 				error: s.error ?? null,
 				ref: s.ref ?? null,
 				bulkBefore: s.bulkBefore ?? null,
-				...(s.name ? { name: s.name } : {})
+				...(s.name ? { name: s.name } : {}),
+				...(s.figureLabels ? { figureLabels: s.figureLabels } : {})
 			}))
 	};
 }

@@ -7,6 +7,7 @@ import { newId } from './auth/accounts';
 import type { AppUser } from './auth/guards';
 import { padSteps, type PadRow, type StepRow } from './pads';
 import { freezePad, gone, isLive, type OpenedShare, type ShareRow, type Snapshot } from './snapshots';
+import { copyDatasetsForFork, type ForkedDatasets } from './datasets';
 
 export type { ShareRow } from './snapshots';
 
@@ -134,9 +135,16 @@ export function snapshotTranscript({ pad, share, snapshot, frozenAt }: OpenedSha
 	};
 }
 
-/** A new pad of the caller's holding a snapshot's steps and the state it had then (the fork of a link). */
-export function forkSnapshot({ snapshot }: OpenedShare, user: AppUser): PadRow {
+/**
+ * A new pad of the caller's holding a snapshot's steps and the state it had then (the fork of a link), with
+ * copies of the datasets its steps compare against, attributed to their owner, so the fork replays for the
+ * forker (see copyDatasetsForFork).
+ */
+export function forkSnapshot(opened: OpenedShare, user: AppUser): PadRow & { datasets: ForkedDatasets } {
+	const { snapshot } = opened;
 	const db = getDb();
+	const owner = ownerName(opened.pad);
+	const names = datasetWords(snapshot.steps.map((s) => s.input));
 	return db.transaction((tx) => {
 		const now = new Date();
 		const pad: PadRow = {
@@ -146,6 +154,7 @@ export function forkSnapshot({ snapshot }: OpenedShare, user: AppUser): PadRow {
 			bulk: snapshot.bulk,
 			units: snapshot.units,
 			lets: snapshot.lets ?? {},
+			validityTol: snapshot.validityTol ?? null,
 			history: snapshot.steps.map((s) => s.input).slice(-200),
 			createdAt: now,
 			updatedAt: now
@@ -164,9 +173,27 @@ export function forkSnapshot({ snapshot }: OpenedShare, user: AppUser): PadRow {
 					ref: s.ref ?? null,
 					bulkBefore: s.bulkBefore ?? null,
 					name: s.name ?? null,
+					figureLabels: s.figureLabels ?? null,
 					createdAt: now
 				})
 				.run();
-		return pad;
+		const datasets = copyDatasetsForFork(
+			tx,
+			opened.pad.ownerId,
+			user.id,
+			names,
+			(name) => `${name} of ${owner || 'another member'}, copied when forking '${snapshot.title}'`.slice(0, 500)
+		);
+		return { ...pad, datasets };
 	});
+}
+
+/** Words of the lines that compare: a superset of the dataset names they use (as eval/plan.ts's reachableWords). */
+function datasetWords(inputs: string[]): Set<string> {
+	const words = new Set<string>();
+	for (const input of inputs) {
+		if (!/\bcompare\b/i.test(input)) continue;
+		for (const w of input.toLowerCase().match(/[a-z][a-z0-9_]*/g) ?? []) words.add(w);
+	}
+	return words;
 }

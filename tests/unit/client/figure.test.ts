@@ -128,7 +128,7 @@ describe('figure geometry', () => {
 	it('states the tolerance the bands use, the same as the engine', () => {
 		expect(VALIDITY_TOLERANCE).toBe(DEFAULT_VALIDITY_TOL);
 		const svg = sceneSvg(layoutFigure(figureOfTable(sweep, { tolerance: VALIDITY_TOLERANCE })), { file: true, id: 'f', label: 'x' });
-		expect(svg).toContain('relative tolerance 0.001');
+		expect(svg).toContain('shaded: series within 1e-3 of exact (relative)');
 	});
 	it('a comparison draws markers with error bars under the engine line, and a residual panel', () => {
 		const cmp: TableResult = {

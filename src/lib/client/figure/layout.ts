@@ -5,7 +5,7 @@
  */
 import { formatNumber } from '$lib/client/format';
 import { linearScale, logDomain, logScale, niceDomain, type Scale } from '$lib/client/scale';
-import { DATASET_COLOUR, INK } from './palette';
+import { DATASET_COLOUR, GUIDE_STYLE, INK } from './palette';
 import type { FigureSpec } from './spec';
 import { labelRuns, type LabelRun } from './texlabel';
 
@@ -193,6 +193,17 @@ export function layoutFigure(f: FigureSpec): Scene {
 		cls: 'axis-label'
 	});
 
+	// guides under everything else: reference curves, clipped to the main panel; they never set the axes' range
+	for (const g of f.guides ?? [])
+		prims.push({
+			t: 'path',
+			segs: segments(g.points, xs, ys),
+			stroke: GUIDE_STYLE.stroke,
+			width: GUIDE_STYLE.width,
+			dash: GUIDE_STYLE.dash,
+			clip: 0,
+			cls: 'plot-guide'
+		});
 	if (f.markers) markerPrims(prims, f.markers.points, f.markers.errors, xs, ys, 0);
 	// curves after the data, so the engine's line is never hidden under the markers
 	for (const c of f.curves)
@@ -308,17 +319,43 @@ function legend(prims: Prim[], f: FigureSpec) {
 		});
 		y += 14;
 	}
+	for (const g of f.guides ?? []) {
+		prims.push({
+			t: 'line',
+			x1: x,
+			x2: x + 22,
+			y1: y + 4,
+			y2: y + 4,
+			stroke: GUIDE_STYLE.stroke,
+			width: GUIDE_STYLE.width,
+			dash: GUIDE_STYLE.dash,
+			cls: 'legend-line legend-guide'
+		});
+		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(g.legend), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
+		y += 14;
+	}
 	if (f.bands.length) {
-		const tol = f.tolerance !== undefined ? ` (relative tolerance ${formatNumber(f.tolerance, 3)})` : '';
 		prims.push({
 			t: 'text',
 			x,
 			y: y + 8,
-			runs: plain(`shaded: order reliable, ℓ ≤ ℓ_max${tol}`),
+			runs: plain(bandLegend(f.tolerance)),
 			size: 9,
 			anchor: 'start',
 			fill: INK,
 			cls: 'legend-text'
 		});
 	}
+}
+
+/** 0.001 → 1e-3, 0.00025 → 2.5e-4: how a tolerance is written in a paper. */
+export function tolText(t: number): string {
+	return t.toExponential().replace('e+', 'e').replace(/\.?0+e/, 'e');
+}
+
+/** The shading's legend line: what the band means and the relative tolerance it was found with. */
+export function bandLegend(tolerance: number | undefined): string {
+	return tolerance !== undefined
+		? `shaded: series within ${tolText(tolerance)} of exact (relative), ℓ ≤ ℓ_max`
+		: 'shaded: order reliable, ℓ ≤ ℓ_max';
 }

@@ -22,6 +22,11 @@ export const BACKGROUNDS = { light: '#ffffff', dark: '#0b0f0e' } as const;
 export const ORDER_COLOURS = ['#D55E00', '#0072B2', '#CC79A7', '#009E73', '#B07D00', '#6A7FA8'];
 export const ORDER_DASHES = ['6 3', '2 2', '8 3 2 3', '1 3', '10 4', '4 2 1 2'];
 export const DATASET_COLOUR = '#009E73';
+/**
+ * Reference curves (plot guides) are reading aids, not data: thin dashed neutral grey, 3.3:1 against white and
+ * 6:1 against the dark background (WCAG 2.1 relative luminance, computed), so they show and never compete.
+ */
+export const GUIDE_STYLE: CurveStyle = { stroke: '#8C8C8C', dash: '5 3', width: 1 };
 
 export function curveStyle(column: string, index: number, overlay: boolean): CurveStyle {
 	if (overlay) {

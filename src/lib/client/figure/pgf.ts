@@ -4,11 +4,17 @@
  * \usepackage{pgfplots}. Same curves, colours, dash patterns, bands, markers and residual panel as the screen.
  */
 import { exactNumber } from '$lib/client/format';
-import { INK, INK_FILE, ORDER_COLOURS } from './palette';
+import { GUIDE_STYLE, INK, INK_FILE, ORDER_COLOURS } from './palette';
+import { layoutFigure, tolText } from './layout';
 import type { FigureSpec } from './spec';
 import { texForPgf } from './texlabel';
 
-const colourName = (hex: string) => (hex === INK ? 'bpink' : `bp${ORDER_COLOURS.indexOf(hex) >= 0 ? ORDER_COLOURS.indexOf(hex) : 'data'}`);
+const colourName = (hex: string) =>
+	hex === INK
+		? 'bpink'
+		: hex === GUIDE_STYLE.stroke
+			? 'bpguide'
+			: `bp${ORDER_COLOURS.indexOf(hex) >= 0 ? ORDER_COLOURS.indexOf(hex) : 'data'}`;
 /** pgf's dash pattern from an SVG dash array (px → pt) */
 function dash(d: string): string {
 	if (!d) return 'solid';
@@ -40,6 +46,16 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 	};
 	const res = f.residual && f.residual.points.some((p) => Number.isFinite(p[1])) ? f.residual : null;
 	const body: string[] = [];
+	// guides must not widen the axes (pgfplots fits every \addplot): with guides the main panel's range is the
+	// screen layout's, and pgfplots clips the guides to it
+	const guides = f.guides ?? [];
+	const box = guides.length ? layoutFigure({ ...f, guides: [] }).panels[0] : undefined;
+	const limits = box
+		? [
+				`xmin=${exactNumber(Math.min(...box.xs.domain))}, xmax=${exactNumber(Math.max(...box.xs.domain))}`,
+				`ymin=${exactNumber(Math.min(...box.ys.domain))}, ymax=${exactNumber(Math.max(...box.ys.domain))}`
+			]
+		: [];
 	const axisOpts = [
 		res ? 'name=main, xticklabels={}' : `xlabel={${texForPgf(f.xlabel)}}`,
 		`ylabel={${texForPgf(f.ylabel)}}`,
@@ -48,7 +64,8 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 		f.integerX ? 'xtick distance=1' : null,
 		'width=0.8\\linewidth, height=6cm',
 		'legend pos=north west, legend cell align=left',
-		'grid=major, grid style={black!10}'
+		'grid=major, grid style={black!10}',
+		...limits
 	].filter(Boolean);
 	body.push(`\\begin{axis}[${axisOpts.join(', ')}]`);
 	const legend: string[] = [];
@@ -74,6 +91,12 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 		);
 		legend.push(texForPgf(c.legend));
 	}
+	for (const g of guides) {
+		const lines = coords(g.points, f.logX, f.logY);
+		if (!lines.length) continue;
+		body.push(`\\addplot[${dash(GUIDE_STYLE.dash)}, line width=${(GUIDE_STYLE.width * 0.5).toFixed(2)}pt, color=${use(GUIDE_STYLE.stroke)}, no markers] coordinates {`, ...lines, '};');
+		legend.push(texForPgf(g.legend));
+	}
 	// validity: shaded to each order's l_max with a dashed edge, labelled at staggered heights so none overlap
 	f.bands.forEach((b, k) => {
 		if (!Number.isFinite(b.lmax) || (f.logX && b.lmax <= 0)) return;
@@ -84,6 +107,13 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 			`\\draw[${c}, densely dashed] (${at}|-{rel axis cs:0,0}) -- (${at}|-{rel axis cs:0,1}) node[pos=${(0.08 + 0.09 * k).toFixed(2)}, anchor=east, font=\\tiny] {${texForPgf(b.legend)}};`
 		);
 	});
+	if (f.bands.length && f.tolerance !== undefined) {
+		// the legend's note on the shading, in ASCII TeX: what the band means and the tolerance it was found with
+		const tol = tolText(f.tolerance).replace(/e(-?\d+)$/, (_, e) => `\\times 10^{${e}}`).replace(/^1\\times /, '');
+		body.push(
+			`\\node[font=\\tiny, anchor=south east, fill=white, fill opacity=0.8, text opacity=1] at (rel axis cs:0.99,0.01) {shaded: series within $${tol}$ of exact (relative), $\\ell \\le \\ell_{\\max}$};`
+		);
+	}
 	if (legend.length) body.push(`\\legend{${legend.map((l) => `{${l}}`).join(', ')}}`);
 	body.push('\\end{axis}');
 	if (res) {

@@ -32,6 +32,11 @@ export interface Residual {
 	points: [number, number][];
 	errors?: number[];
 }
+/** A reference curve under the data (TableResult.plot.guides): LaTeX legend, points in plot coordinates. */
+export interface Guide {
+	legend: string;
+	points: [number, number][];
+}
 export interface FigureSpec {
 	title: string;
 	xlabel: string;
@@ -46,6 +51,8 @@ export interface FigureSpec {
 	logY: boolean;
 	/** shown in the legend: the tolerance the validity bands were computed with */
 	tolerance?: number;
+	/** reference curves: thin dashed grey, clipped to the plot box, never widening the axes */
+	guides?: Guide[];
 }
 
 /** Labels a user typed over the defaults: x, y and per-curve legends by curve id. */
@@ -78,6 +85,13 @@ function tableCurves(t: TableResult, step?: number, offset = 0): Curve[] {
 		points: t.rows.map((r) => [num(r[xi]), num(r[i])] as [number, number]),
 		style: curveStyle(c, offset + k, step !== undefined)
 	}));
+}
+
+/** The table's guides with finite points only (a stored result went through JSON: non-finite numbers are null). */
+function guidesOf(t: TableResult): Guide[] {
+	return (t.plot?.guides ?? [])
+		.map((g) => ({ legend: g.label, points: g.points.map((p) => [num(p[0]), num(p[1])] as [number, number]) }))
+		.filter((g) => g.points.some((p) => Number.isFinite(p[0]) && Number.isFinite(p[1])));
 }
 
 function integerValues(xs: number[]): boolean {
@@ -128,7 +142,8 @@ export function figureOfTable(t: TableResult, opts: { logX?: boolean; logY?: boo
 			xName === 'o' || xName === 'order' || xName === 'k' || (integerValues(xs) && xs.length <= 30 && xs.length > 1 && xName !== 'l'),
 		logX: opts.logX ?? !!t.plot?.log,
 		logY: opts.logY ?? !!t.plot?.log,
-		...(opts.tolerance !== undefined ? { tolerance: opts.tolerance } : {})
+		...(opts.tolerance !== undefined ? { tolerance: opts.tolerance } : {}),
+		...(guidesOf(t).length ? { guides: guidesOf(t) } : {})
 	};
 }
 
@@ -156,6 +171,10 @@ export function figureOfSteps(parts: { step: number; table: TableResult }[], opt
 			points: b.points.map((p, i) => [p[0], p[1] - a.points[i]![1]])
 		};
 	}
+	// each step's guides, named by their step when several steps are overlaid
+	const guides = parts.flatMap((p) =>
+		guidesOf(p.table).map((g) => (parts.length > 1 ? { ...g, legend: `\\#${p.step}\\;${g.legend}` } : g))
+	);
 	return {
 		title: parts.map((p) => `#${p.step}`).join(', '),
 		xlabel: xNames.length === 1 ? keyLabel(xNames[0]!) : xNames.map(keyLabel).join(',\\;'),
@@ -166,7 +185,8 @@ export function figureOfSteps(parts: { step: number; table: TableResult }[], opt
 		residual,
 		integerX: xNames.every((x) => x === 'o' || x === 'k'),
 		logX: opts.logX ?? !!first?.plot?.log,
-		logY: opts.logY ?? !!first?.plot?.log
+		logY: opts.logY ?? !!first?.plot?.log,
+		...(guides.length ? { guides } : {})
 	};
 }
 

@@ -156,10 +156,13 @@ export function validity(bulk: Bulk, n: number, tol: number): ValidityResult {
 	return out;
 }
 
-/** undefined when order n is reliable at l (within 1% of exact); otherwise a sentence saying why not. */
-export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefined {
+/**
+ * undefined when order n is reliable at l (within the relative tolerance `tol` of exact — the pad's validity
+ * tolerance, 1e-3 by default, the same the plot shades with); otherwise a sentence saying why not.
+ */
+export function seriesWarning(bulk: Bulk, l: number, n: number, tol = 1e-3): string | undefined {
 	if (n === 0 || !bulk.series) return undefined;
-	const { l_max, radius, radius_err } = validity(bulk, n, 1e-2);
+	const { l_max, radius, radius_err } = validity(bulk, n, tol);
 	const how = bulk.series.mixedPowers ? ', estimated from the growth of the coefficients' : ', Domb–Sykes extrapolation';
 	// only past the radius by more than its uncertainty: a still-converging series must not be called divergent
 	if (l > radius + radius_err) {
@@ -169,7 +172,7 @@ export function seriesWarning(bulk: Bulk, l: number, n: number): string | undefi
 		return `l=${fmt(l)} is at the series' radius of convergence (${fmt(radius)} ± ${fmt(radius_err)}${how}): convergence is too slow to trust an order-${n} truncation — use o=exact`;
 	}
 	if (l > l_max) {
-		return `order ${n} is off by more than 1% beyond l ≈ ${fmt(l_max)} (l=${fmt(l)}): use a higher order or o=exact`;
+		return `order ${n} is off by more than ${fmt(tol)} (relative, the pad's validity tolerance) beyond l ≈ ${fmt(l_max)} (l=${fmt(l)}): use a higher order or o=exact`;
 	}
 	return undefined;
 }

@@ -155,7 +155,7 @@ export function seriesWarningAt(p: Point): string | undefined {
 	if (p.order === 'exact' || !p.bulk.series || p.shape === 'ball') return undefined;
 	const l = p.q.l;
 	if (l === undefined) return undefined;
-	return p.holo.seriesWarning(p.bulk, l, p.order) ?? undefined;
+	return p.holo.seriesWarning(p.bulk, l, p.order, p.validityTol) ?? undefined;
 }
 
 /** A value with the series warning of its point attached (when the verb's orders are truncations). */

@@ -29,6 +29,8 @@ export interface Point {
 	shape: string;
 	/** Newton's constant in force on this line (a G= key, or the pad's units for verbs that use G) */
 	G: number;
+	/** the pad's relative validity tolerance (series warnings, `validity` without tol=) */
+	validityTol: number;
 	/**
 	 * What the previous point of the same sweep and order left for this one (a sweep walks its points in order):
 	 * one object per line and order, absent for a single point. Only a start, never the answer: a verb must give

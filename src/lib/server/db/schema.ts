@@ -54,10 +54,20 @@ export const pads = sqliteTable(
 		createdAt: createdAt(),
 		updatedAt: integer('updated_at', { mode: 'timestamp_ms' })
 			.notNull()
-			.$defaultFn(() => new Date())
+			.$defaultFn(() => new Date()),
+		// ── paper output (branch paper): the pad's validity tolerance ──
+		/** relative tolerance of series warnings, `validity` and plot shading; null: the default (1e-3) */
+		validityTol: real('validity_tol')
 	},
 	(t) => [index('pads_owner_idx').on(t.ownerId, t.updatedAt)]
 );
+
+/** Labels typed for one figure (branch paper): LaTeX, each absent one keeps the figure's default. */
+export interface FigureLabels {
+	xlabel?: string;
+	ylabel?: string;
+	legends?: Record<string, string>;
+}
 
 export const steps = sqliteTable(
 	'steps',
@@ -84,7 +94,10 @@ export const steps = sqliteTable(
 		/** hidden, not deleted: the step keeps its number and its references; restoring clears this */
 		hiddenAt: integer('hidden_at', { mode: 'timestamp_ms' }),
 		/** 1, then +1 for each re-run with an edited line; earlier versions live in step_versions */
-		version: integer('version').notNull().default(1)
+		version: integer('version').notNull().default(1),
+		// ── paper output (branch paper): figure labels typed in the label editor, by result index ──
+		/** LaTeX labels the reader typed for the step's figures ({ "0": { xlabel, ylabel, legends } }); null: defaults */
+		figureLabels: text('figure_labels', { mode: 'json' }).$type<Record<string, FigureLabels>>()
 	},
 	(t) => [uniqueIndex('steps_pad_n_idx').on(t.padId, t.n), uniqueIndex('steps_pad_name_idx').on(t.padId, t.name)]
 );
@@ -258,7 +271,10 @@ export const datasets = sqliteTable('datasets', {
 	columns: text('columns', { mode: 'json' }).$type<string[]>().notNull(),
 	rows: text('rows', { mode: 'json' }).$type<number[][]>().notNull(),
 	bytes: integer('bytes').notNull(),
-	createdAt: createdAt()
+	createdAt: createdAt(),
+	// ── paper output (branch paper): a copy made by a fork names where it came from ──
+	/** "<original name> of <owner>, copied when forking '<pad title>'"; null for an upload */
+	origin: text('origin')
 });
 
 export const apiKeys = sqliteTable('api_keys', {

@@ -11,6 +11,7 @@ import {
 	padContext,
 	serialisePad,
 	stepNames,
+	validityOf,
 	type PadRow,
 	type StepRow
 } from '../pads';
@@ -181,7 +182,7 @@ export async function replaySteps(pad: PadRow, steps: ReplayStep[], opts: Replay
 		}
 		const q = await evaluateLine(
 			s.input,
-			{ bulk, units, lets, refs, names, macros },
+			{ bulk, units, lets, refs, names, macros, ...validityOf(pad) },
 			opts.owner,
 			pad.ownerId,
 			{ priority: 'replay', signal: opts.signal, budgetMs: Math.min(evalSettings.budgetMs, left) },

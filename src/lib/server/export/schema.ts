@@ -65,6 +65,8 @@ export const resultSchema = z.discriminatedUnion('kind', [
 		label,
 		terms: z.array(shape({ k: z.number(), coeff: num, latex, power: z.number().optional() })).max(200),
 		latex,
+		list: latex.optional(),
+		text: z.string().max(20_000).optional(),
 		order: order.optional(),
 		warning
 	}),

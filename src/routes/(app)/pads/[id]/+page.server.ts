@@ -27,6 +27,7 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 		name: s.name,
 		hidden: s.hiddenAt !== null,
 		version: s.version,
+		figureLabels: s.figureLabels ?? null,
 		versions: (versions.get(s.id) ?? []).map((v) => ({
 			version: v.version,
 			input: v.input,
@@ -55,7 +56,8 @@ export const load: PageServerLoad = async ({ locals, params, url }) => {
 			bulk: pad.bulk,
 			units: pad.units,
 			history: own ? (pad.history ?? []) : [],
-			own
+			own,
+			validityTol: pad.validityTol ?? null
 		},
 		steps,
 		attempts

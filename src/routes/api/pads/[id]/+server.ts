@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireUser, requireWriter } from '$lib/server/auth/guards';
-import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad } from '$lib/server/pads';
-import { attemptView, padView, stepView, titleSchema } from '$lib/server/pad-view';
+import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad, setValidityTol } from '$lib/server/pads';
+import { attemptView, padView, stepView, titleSchema, validityTolSchema } from '$lib/server/pad-view';
 import { padAttempts } from '$lib/server/steps';
 
 /**
@@ -16,13 +16,30 @@ export const GET = api((event) => {
 	return ok({ pad: padView(pad), steps: padSteps(pad.id).map(stepView), attempts });
 });
 
-/** PATCH {title}: owner only; an invited person gets 404, as if the pad were not there to change. */
+/**
+ * PATCH {title?, validityTol?}: owner only; an invited person gets 404, as if the pad were not there to change.
+ * validityTol is the pad's relative validity tolerance (series warnings, `validity`, plot shading); null clears
+ * it back to the default 1e-3. Lines already evaluated keep what they said; new lines and replays use it.
+ */
 export const PATCH = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
-	const { title } = await readBody(event, z.object({ title: titleSchema }));
-	renamePad(pad, title);
-	return ok({ pad: padView({ ...pad, title, updatedAt: new Date() }, user.name) });
+	const body = await readBody(
+		event,
+		z
+			.object({ title: titleSchema.optional(), validityTol: validityTolSchema.nullable().optional() })
+			.refine((b) => b.title !== undefined || b.validityTol !== undefined, 'Give a title or a validityTol.')
+	);
+	let next = pad;
+	if (body.title !== undefined) {
+		renamePad(pad, body.title);
+		next = { ...next, title: body.title };
+	}
+	if (body.validityTol !== undefined) {
+		setValidityTol(pad, body.validityTol);
+		next = { ...next, validityTol: body.validityTol };
+	}
+	return ok({ pad: padView({ ...next, updatedAt: new Date() }, user.name) });
 });
 
 export const DELETE = api((event) => {

@@ -15,7 +15,9 @@ export const POST = api(async (event) => {
 	const gone = clientGone(event);
 	try {
 		const owner = event.locals.user ? event.locals.user.id : `replay:${address}`;
-		return ok(await replayAnswer(pad, snapshotStepRows(snapshot), { owner, signal: gone.signal, limitTranscript: !event.locals.user }));
+		// the snapshot's validity tolerance, not the live pad's: the link replays the pad as it was shared
+		const frozen = { ...pad, validityTol: snapshot.validityTol ?? null };
+		return ok(await replayAnswer(frozen, snapshotStepRows(snapshot), { owner, signal: gone.signal, limitTranscript: !event.locals.user }));
 	} finally {
 		gone.done();
 	}

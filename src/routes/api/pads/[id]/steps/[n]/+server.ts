@@ -6,6 +6,7 @@ import { findOwnPad, findReadablePad } from '$lib/server/pads';
 import { stepView, versionView } from '$lib/server/pad-view';
 import { findStep, hideStep, nameStep, stepNameSchema, stepVersions } from '$lib/server/steps';
 import { rerunInPad } from '$lib/server/eval/service';
+import { figureLabelsPatchSchema, setFigureLabels } from '$lib/server/figure-labels';
 import { clientGone } from '$lib/server/eval/disconnect';
 
 function stepNumber(raw: string | undefined): number {
@@ -22,14 +23,21 @@ export const GET = api((event) => {
 	return ok({ step: stepView(step), versions: stepVersions(step.id).map(versionView) });
 });
 
-/** PATCH {hidden?, name?}: hide or restore, name or unname (null). Nothing is deleted. */
+/**
+ * PATCH {hidden?, name?, figureLabels?}: hide or restore, name or unname (null), and keep the labels typed in
+ * a figure's label editor ({ "<result index>": {xlabel?, ylabel?, legends?} | null }). Nothing is deleted.
+ */
 export const PATCH = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
 	let step = findStep(pad, stepNumber(event.params.n));
-	const body = await readBody(event, z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional() }).strict());
+	const body = await readBody(
+		event,
+		z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional(), figureLabels: figureLabelsPatchSchema.optional() }).strict()
+	);
 	if (body.hidden !== undefined) step = hideStep(pad, step, body.hidden);
 	if (body.name !== undefined) step = nameStep(pad, step, body.name);
+	if (body.figureLabels !== undefined) step = setFigureLabels(step, body.figureLabels);
 	return ok({ step: stepView(step) });
 });
 
