@@ -74,3 +74,29 @@ export function evaluateDPoly(p: DPoly, vars: readonly string[], values: Readonl
 	}
 	return s;
 }
+
+/**
+ * First-order dual numbers in k directions, [value, ∂₁, …, ∂_k]: running the series (series.ts) over them
+ * differentiates every coefficient exactly in the parameters (forward-mode; no differencing step). A number is
+ * zero only when its value and every derivative are, so the series code's structural-zero skips stay exact.
+ */
+export type Dual = Float64Array;
+
+export function dualRing(k: number): Ring<Dual> {
+	const zero = new Float64Array(k + 1);
+	const one = new Float64Array(k + 1);
+	one[0] = 1;
+	return {
+		zero,
+		one,
+		add: (a, b) => a.map((x, i) => x + b[i]!),
+		mul(a, b) {
+			const out = new Float64Array(k + 1);
+			out[0] = a[0]! * b[0]!;
+			for (let i = 1; i <= k; i++) out[i] = a[0]! * b[i]! + a[i]! * b[0]!;
+			return out;
+		},
+		scale: (a, c) => a.map((x) => x * c),
+		isZero: (a) => a.every((x) => x === 0)
+	};
+}
