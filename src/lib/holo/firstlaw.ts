@@ -282,8 +282,14 @@ function metricLaw(bulk: Bulk, l: number, order: Order, G = 1) {
 function alongLaw(bulk: Bulk, l: number, order: Order, along: string[] | undefined): AlongLaw | undefined {
 	if (along === undefined) return undefined;
 	const data = metricModelOf(bulk);
-	if (!data) throw new HoloError(`along= names a metric's parameters; ${bulk.name} has its own fixed directions`, 'along', 'use metric d=… f="…" with named parameters');
-	if (data.model.symbols.length) throw new HoloError(`${data.model.symbols.join(', ')} need numbers for the first law`, data.model.symbols[0]!);
+	if (!data)
+		throw new HoloError(
+			`along= names a metric's parameters; ${bulk.name} has its own fixed directions`,
+			'along',
+			'use metric d=… f="…" with named parameters'
+		);
+	if (data.model.symbols.length)
+		throw new HoloError(`${data.model.symbols.join(', ')} need numbers for the first law`, data.model.symbols[0]!);
 	return metricAlongLaw(bulk, data.model, along, l, order, MAX_ASKED_ORDER);
 }
 
@@ -328,8 +334,13 @@ export function mu(bulk: Bulk, l: number, order: Order, of?: MuOf, along?: strin
 		const r = firstLawCoefficients(bulk, l, order, along);
 		const law = r.along!;
 		if (law.params.length < 2)
-			throw new HoloError('mu along= needs two parameters: the first carries the energy, μ is the second’s', 'along', 'e.g. mu l=0.5 along=m,q');
-		if (of === 'momentum') throw new HoloError('a static metric carries no momentum: its μ is conjugate to a parameter', 'of', 'leave out of=');
+			throw new HoloError(
+				'mu along= needs two parameters: the first carries the energy, μ is the second’s',
+				'along',
+				'e.g. mu l=0.5 along=m,q'
+			);
+		if (of === 'momentum')
+			throw new HoloError('a static metric carries no momentum: its μ is conjugate to a parameter', 'of', 'leave out of=');
 		return { value: r.mu, order, of: 'charge', param: law.params[1] };
 	}
 	const charged = bulk.name === 'charged' && bulk.d > 2;

@@ -1,7 +1,7 @@
 import { HoloError } from '../errors';
 import { fgStress } from '../metric/fg';
 import { findHorizon, type Horizon } from '../metric/horizon';
-import { metricCoeffsNumeric, metricTerms, type MetricTerms } from '../metric/coeffs';
+import { metricCoeffsNumeric, metricExactLatex, metricTerms, type MetricTerms } from '../metric/coeffs';
 import { checkBoundary, readMetric, taylorOf, type MetricModel } from '../metric/model';
 import { evaluateQPoly } from '../metric/rational';
 import type { Bulk, PowerTerm, SeriesCapability, Stress } from '../types';
@@ -38,7 +38,8 @@ export function metricSeriesTerms(bulk: Bulk, n: number): MetricTerms {
 
 /**
  * Bulk.series of a numeric metric: the powers K ≤ n d of l/scale with a nonzero coefficient (mixed powers, like
- * the charged brane's), decimals for LaTeX (coeffs with named parameters goes through metricSeriesTerms).
+ * the charged brane's); LaTeX exact (π/B forms, metric/exact-series.ts) for a rational metric measured in l
+ * itself, else decimals (coeffs with named parameters goes through metricSeriesTerms).
  */
 function metricSeriesCapability(model: MetricModel, scale: number): SeriesCapability {
 	const at = (n: number) => metricCoeffsNumeric(model, n, scale);
@@ -48,13 +49,12 @@ function metricSeriesCapability(model: MetricModel, scale: number): SeriesCapabi
 		values: (n) => at(n).values,
 		coeffs: (n) => {
 			const { powers, values } = at(n);
-			return values.map((value, i) => ({
-				k: i + 1,
-				power: powers[i],
-				value,
-				latex: `\\approx ${Number(value.toPrecision(12))}`,
-				exact: false
-			}));
+			// exact π/B forms are coefficients of l^K: used when l/scale is l itself
+			const exact = scale === 1 ? metricExactLatex(model, n) : undefined;
+			return values.map((value, i) => {
+				const tex = exact?.get(powers[i]!);
+				return { k: i + 1, power: powers[i], value, latex: tex ?? `\\approx ${Number(value.toPrecision(12))}`, exact: tex !== undefined };
+			});
 		}
 	};
 }

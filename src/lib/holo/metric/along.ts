@@ -151,8 +151,7 @@ function exactGradient(bulk: Bulk, model: MetricModel, along: string[], l: numbe
 	const dh = taylorDual(model, 'h', N, along);
 	const sol = solveStrip(slice, l);
 	return along.map((_, i) => {
-		const terms = (c: Dual[]) =>
-			c.map((x, k) => ({ c: x[i + 1]! * Math.pow(scale, k), p: k })).filter((t) => t.p > 0 && t.c !== 0);
+		const terms = (c: Dual[]) => c.map((x, k) => ({ c: x[i + 1]! * Math.pow(scale, k), p: k })).filter((t) => t.p > 0 && t.c !== 0);
 		return areaParameterDerivative(slice, sol.point, terms(df), terms(dh));
 	});
 }

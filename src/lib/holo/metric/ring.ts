@@ -12,6 +12,20 @@ export interface Ring<T> {
 	mul(a: T, b: T): T;
 	scale(a: T, c: number): T;
 	isZero(a: T): boolean;
+	/**
+	 * Exact constants (exact-series.ts): the series' rational factors, Beta values and powers of W₀ applied as
+	 * ring operations instead of doubles. Absent for the numeric rings, which use `scale`.
+	 */
+	exact?: {
+		/** a · num/den */
+		scaleQ(a: T, num: number, den: number): T;
+		/** a · C(−½, n) B(r/m, ½ − n)/m */
+		scaleBeta(a: T, r: number, n: number): T;
+		/** a · W₀^{−1} */
+		divW0(a: T): T;
+		/** a · 2/K: the last factor of c_K but W₀^{d−2−K}, which the caller applies on the finished terms */
+		finish(a: T, K: number): T;
+	};
 }
 
 export const NUMBERS: Ring<number> = {
