@@ -3,6 +3,7 @@ import { fgStress } from '../metric/fg';
 import { findHorizon, type Horizon } from '../metric/horizon';
 import { metricCoeffsNumeric, metricExactLatex, metricTerms, type MetricTerms } from '../metric/coeffs';
 import { checkBoundary, readMetric, taylorOf, type MetricModel } from '../metric/model';
+import { differenceFromOne } from '../metric/near-boundary';
 import { evaluateQPoly } from '../metric/rational';
 import type { Bulk, PowerTerm, SeriesCapability, Stress } from '../types';
 import { readDimension } from './params';
@@ -187,6 +188,13 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		zmax: Number.isFinite(zmax) ? zmax : zh === undefined && horizon.zh !== undefined ? horizon.zh : undefined
 	};
 	if (zh !== undefined && !terms) slice.zmax = Math.min(slice.zmax ?? Infinity, zh);
+	if (!terms) {
+		// a black box: f − 1 and h − 1 near the boundary from the Taylor series (metric/near-boundary.ts)
+		const fm1 = differenceFromOne(model.trees.f, values, f);
+		const hm1 = differenceFromOne(model.trees.h, values, h);
+		if (fm1) slice.fm1 = fm1;
+		if (hm1) slice.hm1 = hm1;
+	}
 	const fg = fgStress(model);
 	const stress = (G: number): Stress => {
 		if (fg.kind === 'deformation')
