@@ -6,6 +6,7 @@
 import katex from 'katex';
 import { describe, expect, it } from 'vitest';
 import type { RecordResult, Result, ScalarResult, SeriesResult, CheckResult } from '../../../src/lib/lang/result';
+import { exactLatex } from '../../../src/lib/holo/series/exact-latex';
 import { Pad } from './pad';
 
 const one = <T extends Result>(p: Pad, line: string) => p.run(line).results.at(-1) as T;
@@ -15,7 +16,9 @@ describe('use metric', () => {
 		const p = new Pad();
 		const r = one<SeriesResult>(p, 'use metric d=4 f="1-m*z^4+q^2*z^6"; coeffs darea o=3 | tex');
 		expect(r.terms.map((t) => t.power)).toEqual([4, 6, 8, 10, 12]);
-		expect(r.terms[0]!.latex).toBe('0.565637954628\\,m');
+		// exact π/B forms (holo/metric/exact-series.ts): c_4 = a_1 m with the brane's a_1 (0.565637954628…)
+		expect(r.terms[0]!.latex).toBe(`${exactLatex(4, 'brane', 1)}\\,m`);
+		expect(r.terms.every((t) => /\\pi/.test(t.latex) && !/\d\.\d/.test(t.latex))).toBe(true);
 		expect(r.terms[4]!.latex).toMatch(/m\^\{3\}.*q\^\{4\}/);
 		// no numbers for the symbols: the coefficient's value is not a number
 		expect(r.terms.every((t) => Number.isNaN(t.coeff))).toBe(true);
