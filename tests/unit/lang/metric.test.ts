@@ -78,3 +78,27 @@ function findZh(m: number, q2: number): number {
 	}
 	return (lo + hi) / 2;
 }
+
+describe('along= (a metric first law over its named parameters)', () => {
+	const use = 'use metric d=4 f="1 - m*z^4 + q^2*z^6" m=1.2 q=0.4';
+	it('is a list of names, not a sweep: tent over widths and orders, mu labelled by the second parameter', () => {
+		const p = new Pad();
+		p.run(use);
+		const t = p.run('tent l=0.1,0.3 o=1,2 along=m,q').results.at(-1) as { kind: string; columns: string[]; rows: number[][] };
+		expect(t.kind).toBe('table');
+		expect(t.columns).toEqual(['l', 'o1', 'o2']);
+		// the same number as the single line
+		const single = one<ScalarResult>(p, 'tent l=0.3 o=2 along=m,q');
+		expect(t.rows[1]![2]).toBe(single.value);
+		const m = one<ScalarResult>(p, 'mu l=0.3 o=2 along=m,q');
+		expect(m.label).toContain('μ_q');
+	});
+
+	it('errors: an unknown parameter and a first parameter that does not move the energy, each naming along', () => {
+		const p = new Pad();
+		p.run(use);
+		expect(() => p.run('tent l=0.3 o=2 along=m,r')).toThrow("along: 'r' is not a parameter of this metric");
+		expect(() => p.run('firstlaw l=0.3 o=2 along=q,m')).toThrow('does not move the energy');
+		expect(() => p.run('tent l=0.3 o=2 along=2')).toThrow('along takes parameter names');
+	});
+});
