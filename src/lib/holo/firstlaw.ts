@@ -48,6 +48,7 @@
  */
 import { metricModelOf } from './bulks/metric';
 import { HoloError } from './errors';
+import { metricAlongLaw, type AlongLaw } from './metric/along';
 import { metricFirstLaw } from './metric/firstlaw';
 import { MAX_ASKED_ORDER } from './limits';
 import { solveStrip } from './strip';
@@ -125,6 +126,8 @@ export interface FirstLawCoefficients {
 	Aw: number;
 	Aq: number;
 	series?: FirstLawSeries;
+	/** a metric along its named parameters: every direction's numbers (metric/along.ts) */
+	along?: AlongLaw;
 }
 
 /** The order-n series of ∂_wΔA, ∂_qΔA, α, ζ, T_ent and μ in x (module comment). */
@@ -223,9 +226,11 @@ function multiplySeries(a: number[], b: number[]): number[] {
 const sumSeries = (a: number[], x: number) => a.reduce((s, v, i) => s + v * Math.pow(x, i), 0);
 
 /** α, ζ, T_ent = 1/α and μ = −ζ/α at order n (1…MAX_ASKED_ORDER) or 'exact'. G cancels. */
-export function firstLawCoefficients(bulk: Bulk, l: number, order: Order): FirstLawCoefficients {
+export function firstLawCoefficients(bulk: Bulk, l: number, order: Order, along?: string[]): FirstLawCoefficients {
 	checkOrder(order);
 	if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+	const law = alongLaw(bulk, l, order, along);
+	if (law) return alongCoefficients(law, l, order);
 	const metric = metricLaw(bulk, l, order);
 	if (metric) {
 		const { alpha, dA } = metric;
@@ -270,6 +275,41 @@ function metricLaw(bulk: Bulk, l: number, order: Order, G = 1) {
 	return data && metricFirstLaw(bulk, data.model, l, order, G);
 }
 
+/**
+ * A metric's first law along its named parameters (metric/along.ts), or undefined without along=; along= on
+ * any other bulk is an error naming the key (their parameter directions are fixed by their family).
+ */
+function alongLaw(bulk: Bulk, l: number, order: Order, along: string[] | undefined): AlongLaw | undefined {
+	if (along === undefined) return undefined;
+	const data = metricModelOf(bulk);
+	if (!data)
+		throw new HoloError(
+			`along= names a metric's parameters; ${bulk.name} has its own fixed directions`,
+			'along',
+			'use metric d=… f="…" with named parameters'
+		);
+	if (data.model.symbols.length)
+		throw new HoloError(`${data.model.symbols.join(', ')} need numbers for the first law`, data.model.symbols[0]!);
+	return metricAlongLaw(bulk, data.model, along, l, order, MAX_ASKED_ORDER);
+}
+
+function alongCoefficients(law: AlongLaw, l: number, order: Order): FirstLawCoefficients {
+	const two = law.params.length > 1;
+	return {
+		order,
+		l,
+		alpha: law.alpha,
+		zeta: two ? law.beta[1]! : 0,
+		tent: 1 / law.alpha,
+		mu: two ? law.mu[1]! : 0,
+		twoParameter: two,
+		conjugate: two ? 'charge' : null,
+		Aw: law.dA[0]!,
+		Aq: two ? law.dA[1]! : 0,
+		along: law
+	};
+}
+
 export interface TentResult {
 	value: number;
 	order: Order;
@@ -277,8 +317,8 @@ export interface TentResult {
 }
 
 /** Entanglement temperature T_ent = 1/α at order n or exact. */
-export function tent(bulk: Bulk, l: number, order: Order): TentResult {
-	const r = firstLawCoefficients(bulk, l, order);
+export function tent(bulk: Bulk, l: number, order: Order, along?: string[]): TentResult {
+	const r = firstLawCoefficients(bulk, l, order, along);
 	return { value: r.tent, order, series: r.series };
 }
 
@@ -288,7 +328,21 @@ export type MuOf = 'momentum' | 'charge';
  * Chemical potential μ = −ζ/α at order n or exact, conjugate to ΔP_y (boosted, wave; 0 for the static brane)
  * or to ΔQ (charged: μ_Q). `of` names which; asking for the one a bulk does not carry is an error, not a 0.
  */
-export function mu(bulk: Bulk, l: number, order: Order, of?: MuOf): TentResult & { of: MuOf } {
+export function mu(bulk: Bulk, l: number, order: Order, of?: MuOf, along?: string[]): TentResult & { of: MuOf; param?: string } {
+	if (along !== undefined) {
+		// μ of the second listed parameter (metric/along.ts): along=m,q gives μ_q
+		const r = firstLawCoefficients(bulk, l, order, along);
+		const law = r.along!;
+		if (law.params.length < 2)
+			throw new HoloError(
+				'mu along= needs two parameters: the first carries the energy, μ is the second’s',
+				'along',
+				'e.g. mu l=0.5 along=m,q'
+			);
+		if (of === 'momentum')
+			throw new HoloError('a static metric carries no momentum: its μ is conjugate to a parameter', 'of', 'leave out of=');
+		return { value: r.mu, order, of: 'charge', param: law.params[1] };
+	}
 	const charged = bulk.name === 'charged' && bulk.d > 2;
 	const want: MuOf = of ?? (charged ? 'charge' : 'momentum');
 	if (want === 'charge' && !charged) {
@@ -320,6 +374,8 @@ export interface FirstLawCheck extends FirstLawCoefficients {
 	scale: FirstLawDirection;
 	/** second direction of a two-parameter bulk: boosted (0, q) (κ only), wave (q, 0) (switch on a temperature) */
 	shape?: FirstLawDirection;
+	/** a metric along its named parameters: one direction per listed parameter (δp_i = 1), `scale` = the first */
+	directions?: FirstLawDirection[];
 	G: number;
 }
 
@@ -328,8 +384,23 @@ export interface FirstLawCheck extends FirstLawCoefficients {
  * the directions named in FirstLawCheck. By construction the order-n relation holds exactly for ΔS⁽ⁿ⁾, so
  * `residual` is the variation of the (n+1)-th term: at fixed l it scales like (l/zh)^{(n+1)d}.
  */
-export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1): FirstLawCheck {
+export function firstLaw(bulk: Bulk, l: number, order: Order, G = 1, along?: string[]): FirstLawCheck {
 	if (!(G > 0) || !Number.isFinite(G)) throw new HoloError('G must be positive', 'G');
+	if (along !== undefined) {
+		checkOrder(order);
+		if (!(l > 0) || !Number.isFinite(l)) throw new HoloError('l must be a positive number', 'l');
+		const law = alongLaw(bulk, l, order, along)!;
+		const co = alongCoefficients(law, l, order);
+		// direction i: δp_i = 1; δΔE = l e_i/(16πG), δΔX_j = l δ_ij/(16πG); the residual is the next order's part
+		const dirs = law.params.map((_, i): FirstLawDirection => {
+			const rhs = (law.alpha * l * law.e[i]! + (i > 0 ? law.beta[i]! * l : 0)) / (16 * Math.PI * G);
+			const lhs = law.dARef[i]! / (4 * G);
+			const residual = law.dANext ? law.dANext[i]! / (4 * G) : lhs - rhs;
+			const residualExact = law.dAExact ? law.dAExact[i]! / (4 * G) - rhs : NaN;
+			return { lhs, rhs, residual, residualExact };
+		});
+		return { ...co, G, scale: dirs[0]!, shape: dirs[1], directions: dirs };
+	}
 	const metric = metricLaw(bulk, l, order, G);
 	if (metric) {
 		// the scale direction δλ = 1/d (metric/firstlaw.ts): δΔE = l T_tt, δΔS = ∂_λΔA/(4G d)

@@ -185,7 +185,7 @@ export class BlackBoxIntegrand implements StripIntegrand {
 		this.zs = zs;
 		this.fstar = slice.f(zs);
 		this.hstar = slice.h(zs);
-		this.hstarM1 = this.hstar - 1;
+		this.hstarM1 = slice.hm1 ? slice.hm1(zs) : this.hstar - 1;
 		// a one-sided difference from inside, where f is known to be defined (past z* may lie a horizon)
 		const dz = 1e-6 * zs;
 		this.cslope = (zs * (this.fstar - slice.f(zs - dz))) / dz;
@@ -195,13 +195,18 @@ export class BlackBoxIntegrand implements StripIntegrand {
 		const { slice } = this.P;
 		for (let q = 0; q < X.n; q++) {
 			const z = X.u[q] * this.zs;
+			// f − 1, h − 1 from the slice when it can form them without cancellation (near z = 0); f itself stays
+			// the function's value (near a horizon 1 + (f − 1) would lose f's relative accuracy)
 			const F = slice.f(z);
 			const hu = slice.h(z);
+			const Fm1 = slice.fm1 ? slice.fm1(z) : F - 1;
+			const hm1 = slice.hm1 ? slice.hm1(z) : hu - 1;
 			v.F[q] = F;
-			v.Fm1[q] = F - 1;
-			v.hm1[q] = hu - 1;
-			v.dh[q] = hu - this.hstar;
-			v.dN[q] = hu / X.um[q] - this.hstar - X.N0[q];
+			v.Fm1[q] = Fm1;
+			v.hm1[q] = hm1;
+			v.dh[q] = hm1 - this.hstarM1;
+			// N − N₀ = (h − 1)/u^m − (h* − 1): the same number without forming u^{−m} − 1 twice (which cancels near u = 1)
+			v.dN[q] = hm1 / X.um[q] - this.hstarM1;
 			// strip.ts rejects the first node where f or N is not positive; the user's formula is not asked
 			// about the nodes after it (it may not evaluate there), just as before the split
 			if (!(F > 0) || !(X.N0[q] + v.dN[q] > 0) || !(hu - 1 > -1)) break;

@@ -29,6 +29,12 @@ export interface Slice {
 	zh?: number;
 	/** Largest admissible turning point when there is no horizon (e.g. a cap); undefined = unbounded. */
 	zmax?: number;
+	/**
+	 * f − 1 and h − 1 without the cancellation of forming f(z) − 1 near z = 0 (a black-box slice: the strip's
+	 * area integrand weighs f − 1 by u^{1−d} there). Optional; the custom metric gives them from its Taylor series.
+	 */
+	fm1?(z: number): number;
+	hm1?(z: number): number;
 }
 
 export interface Stress {

@@ -58,6 +58,12 @@ const ENTRIES: HelpEntry[] = [
 	E('key', 'zp', 'scale of the plane wave', 'use wave zp=2'),
 	E('key', 't', 'boundary time since the quench (vaidya; t ≤ 0 is before it)', 'sweep darea l=2 t=0..3:60'),
 	E('key', 'z0', 'tip of the soliton', 'use soliton z0=1'),
+	E(
+		'key',
+		'along',
+		"a metric's first law along its named parameters: the first carries the energy, the rest are held as charges (mu gives the second's μ)",
+		'use metric d=4 f="1 - m*z^4 + q^2*z^6" m=1.2 q=0.4; firstlaw l=0.3 o=2 along=m,q'
+	),
 	E('key', 'of', 'which chemical potential mu gives: charge or momentum', 'mu l=0.5 of=charge'),
 	E('key', 'phase', 'soliton surface: rt (the minimal one, default), connected or disconnected', 'zstar l=0.65 phase=connected'),
 	E('key', 'tol', 'tolerance (validity, firstlaw, compare)', 'validity o=3 tol=1e-4'),

@@ -44,7 +44,7 @@ export function sortKeys(
 	for (const kv of keys) {
 		const k = canonicalKey(kv.key);
 		if (k === 'o' && form.keys.includes('o')) out.orderKey = kv;
-		else if (form.keys.includes(k)) out.quantityKeys.push(asWord(k, kv));
+		else if (form.keys.includes(k)) out.quantityKeys.push(k === 'along' ? asNames(kv) : asWord(k, kv));
 		else if (own.includes(k) || (bulkName === 'metric' && !(QUANTITY_KEYS as readonly string[]).includes(k))) out.bulkKeys.push(kv);
 		else throw misplacedKey(spec, shape, kv, bulkName);
 	}
@@ -63,6 +63,18 @@ function asWord(k: string, kv: A.KeyValue): A.KeyValue {
 	if (!(k in WORD_KEYS) || kv.value.type !== 'name') return kv;
 	const v = kv.value;
 	return { ...kv, value: { type: 'string', value: v.name, start: v.start, end: v.end } };
+}
+
+/**
+ * `along=m,q`: names of a metric's parameters, not let-names and not a list to sweep over; kept as one string
+ * 'm,q' (a string "m,q" works too). Anything else stays as written, so its schema names the problem.
+ */
+function asNames(kv: A.KeyValue): A.KeyValue {
+	const v = kv.value;
+	const items = v.type === 'list' ? v.items : [v];
+	if (!items.every((x) => x.type === 'name')) return kv;
+	const value = items.map((x) => (x as A.NameExpr).name).join(',');
+	return { ...kv, value: { type: 'string', value, start: v.start, end: v.end } };
 }
 
 function meaning(k: string): string {

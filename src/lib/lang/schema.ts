@@ -128,6 +128,10 @@ export const KEY_SCHEMAS: Record<string, z.ZodType> = {
 	o: ORDER,
 	of: word('of'),
 	phase: word('phase'),
+	// a metric's named parameters for the first law (`along=m,q`): one string of names, read by keys.ts
+	along: z
+		.string('along takes parameter names, e.g. along=m,q')
+		.regex(/^[A-Za-z_][A-Za-z0-9_]*(,[A-Za-z_][A-Za-z0-9_]*)*$/, 'along takes parameter names, e.g. along=m,q'),
 	// boundary time since the quench (time-dependent bulks); t < 0 is before it
 	t: z.number('t must be a number').refine((t) => Number.isFinite(t), 't must be finite')
 };

@@ -35,7 +35,7 @@ export const BULK_KEYS: Record<BulkName, readonly string[]> = {
 export const ALL_BULK_KEYS = ['d', 'zh', 'v', 'rapidity', 'q', 'p', 'zp', 'z0', 'f', 'h'] as const;
 
 /** keys that are not bulk keys */
-export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y', 'of', 'phase', 't'] as const;
+export const QUANTITY_KEYS = ['l', 'R', 'gap', 'o', 'zstar', 'tol', 'G', 'x', 'y', 'of', 'phase', 't', 'along'] as const;
 
 /** keys whose value is a word (`of=charge`, `phase=rt`), not a number: a bare name there is that word */
 export const WORD_KEYS: Record<string, readonly string[]> = {

@@ -6,6 +6,7 @@
 import katex from 'katex';
 import { describe, expect, it } from 'vitest';
 import type { RecordResult, Result, ScalarResult, SeriesResult, CheckResult } from '../../../src/lib/lang/result';
+import { exactLatex } from '../../../src/lib/holo/series/exact-latex';
 import { Pad } from './pad';
 
 const one = <T extends Result>(p: Pad, line: string) => p.run(line).results.at(-1) as T;
@@ -15,7 +16,9 @@ describe('use metric', () => {
 		const p = new Pad();
 		const r = one<SeriesResult>(p, 'use metric d=4 f="1-m*z^4+q^2*z^6"; coeffs darea o=3 | tex');
 		expect(r.terms.map((t) => t.power)).toEqual([4, 6, 8, 10, 12]);
-		expect(r.terms[0]!.latex).toBe('0.565637954628\\,m');
+		// exact π/B forms (holo/metric/exact-series.ts): c_4 = a_1 m with the brane's a_1 (0.565637954628…)
+		expect(r.terms[0]!.latex).toBe(`${exactLatex(4, 'brane', 1)}\\,m`);
+		expect(r.terms.every((t) => /\\pi/.test(t.latex) && !/\d\.\d/.test(t.latex))).toBe(true);
 		expect(r.terms[4]!.latex).toMatch(/m\^\{3\}.*q\^\{4\}/);
 		// no numbers for the symbols: the coefficient's value is not a number
 		expect(r.terms.every((t) => Number.isNaN(t.coeff))).toBe(true);
@@ -75,3 +78,27 @@ function findZh(m: number, q2: number): number {
 	}
 	return (lo + hi) / 2;
 }
+
+describe('along= (a metric first law over its named parameters)', () => {
+	const use = 'use metric d=4 f="1 - m*z^4 + q^2*z^6" m=1.2 q=0.4';
+	it('is a list of names, not a sweep: tent over widths and orders, mu labelled by the second parameter', () => {
+		const p = new Pad();
+		p.run(use);
+		const t = p.run('tent l=0.1,0.3 o=1,2 along=m,q').results.at(-1) as { kind: string; columns: string[]; rows: number[][] };
+		expect(t.kind).toBe('table');
+		expect(t.columns).toEqual(['l', 'o1', 'o2']);
+		// the same number as the single line
+		const single = one<ScalarResult>(p, 'tent l=0.3 o=2 along=m,q');
+		expect(t.rows[1]![2]).toBe(single.value);
+		const m = one<ScalarResult>(p, 'mu l=0.3 o=2 along=m,q');
+		expect(m.label).toContain('μ_q');
+	});
+
+	it('errors: an unknown parameter and a first parameter that does not move the energy, each naming along', () => {
+		const p = new Pad();
+		p.run(use);
+		expect(() => p.run('tent l=0.3 o=2 along=m,r')).toThrow("along: 'r' is not a parameter of this metric");
+		expect(() => p.run('firstlaw l=0.3 o=2 along=q,m')).toThrow('does not move the energy');
+		expect(() => p.run('tent l=0.3 o=2 along=2')).toThrow('along takes parameter names');
+	});
+});

@@ -1,8 +1,9 @@
 import { HoloError } from '../errors';
 import { fgStress } from '../metric/fg';
 import { findHorizon, type Horizon } from '../metric/horizon';
-import { metricCoeffsNumeric, metricTerms, type MetricTerms } from '../metric/coeffs';
+import { metricCoeffsNumeric, metricExactLatex, metricTerms, type MetricTerms } from '../metric/coeffs';
 import { checkBoundary, readMetric, taylorOf, type MetricModel } from '../metric/model';
+import { differenceFromOne } from '../metric/near-boundary';
 import { evaluateQPoly } from '../metric/rational';
 import type { Bulk, PowerTerm, SeriesCapability, Stress } from '../types';
 import { readDimension } from './params';
@@ -38,23 +39,38 @@ export function metricSeriesTerms(bulk: Bulk, n: number): MetricTerms {
 
 /**
  * Bulk.series of a numeric metric: the powers K ≤ n d of l/scale with a nonzero coefficient (mixed powers, like
- * the charged brane's), decimals for LaTeX (coeffs with named parameters goes through metricSeriesTerms).
+ * the charged brane's); LaTeX exact (π/B forms, metric/exact-series.ts) for a rational metric measured in l
+ * itself, else decimals (coeffs with named parameters goes through metricSeriesTerms).
  */
-function metricSeriesCapability(model: MetricModel, scale: number): SeriesCapability {
-	const at = (n: number) => metricCoeffsNumeric(model, n, scale);
+function metricSeriesCapability(model: MetricModel, scale: number, onePerOrder: boolean): SeriesCapability {
+	// per order, in an array: deltaAreaSeries asks for values and powers on every call
+	const memo: { powers: number[]; values: number[] }[] = [];
+	const at = (n: number) => {
+		let r = memo[n];
+		if (!r) {
+			r = metricCoeffsNumeric(model, n, scale);
+			if (onePerOrder) {
+				// the brane's layout: a_k at power k d, k = 1..n (zeros kept), so Horner in τ = (l/scale)^d applies
+				const byPower = new Map(r.powers.map((K, i) => [K, r!.values[i]!]));
+				const powers = Array.from({ length: n }, (_, i) => (i + 1) * model.d);
+				r = { powers, values: powers.map((K) => byPower.get(K) ?? 0) };
+			}
+			memo[n] = r;
+		}
+		return r;
+	};
 	return {
-		mixedPowers: true,
+		mixedPowers: !onePerOrder,
 		powers: (n) => at(n).powers,
 		values: (n) => at(n).values,
 		coeffs: (n) => {
 			const { powers, values } = at(n);
-			return values.map((value, i) => ({
-				k: i + 1,
-				power: powers[i],
-				value,
-				latex: `\\approx ${Number(value.toPrecision(12))}`,
-				exact: false
-			}));
+			// exact π/B forms are coefficients of l^K: used when l/scale is l itself
+			const exact = scale === 1 ? metricExactLatex(model, n) : undefined;
+			return values.map((value, i) => {
+				const tex = exact?.get(powers[i]!);
+				return { k: i + 1, power: powers[i], value, latex: tex ?? `\\approx ${Number(value.toPrecision(12))}`, exact: tex !== undefined };
+			});
 		}
 	};
 }
@@ -72,6 +88,16 @@ function readSymbols(v: number | string | undefined): string[] {
 /** c_k zh^k at powers k (units of `scale`) for a polynomial's numeric coefficients. */
 function termsOf(coeffs: number[], scale: number): PowerTerm[] {
 	return coeffs.map((c, k) => ({ c: c * Math.pow(scale, k), p: k })).filter((t) => t.c !== 0 || t.p === 0);
+}
+
+/**
+ * f and h polynomials in z^d with a z^d term: every c_K sits at K = k d, one power per order as for the brane,
+ * so the series uses the brane's Horner evaluation, Padé in τ and Domb–Sykes radius instead of the mixed-power ones.
+ */
+function onePerOrder(d: number, f: number[] | undefined, h: number[] | undefined): boolean {
+	if (!f || !h) return false;
+	const only = (c: number[]) => c.every((x, k) => k === 0 || x === 0 || k % d === 0);
+	return only(f) && only(h) && ((f[d] ?? 0) !== 0 || (h[d] ?? 0) !== 0);
 }
 
 export function makeMetric(params: Record<string, number | string>): Bulk {
@@ -162,6 +188,13 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		zmax: Number.isFinite(zmax) ? zmax : zh === undefined && horizon.zh !== undefined ? horizon.zh : undefined
 	};
 	if (zh !== undefined && !terms) slice.zmax = Math.min(slice.zmax ?? Infinity, zh);
+	if (!terms) {
+		// a black box: f − 1 and h − 1 near the boundary from the Taylor series (metric/near-boundary.ts)
+		const fm1 = differenceFromOne(model.trees.f, values, f);
+		const hm1 = differenceFromOne(model.trees.h, values, h);
+		if (fm1) slice.fm1 = fm1;
+		if (hm1) slice.hm1 = hm1;
+	}
 	const fg = fgStress(model);
 	const stress = (G: number): Stress => {
 		if (fg.kind === 'deformation')
@@ -175,7 +208,7 @@ export function makeMetric(params: Record<string, number | string>): Bulk {
 		horizon: zh,
 		scale: d >= 3 ? scale : undefined,
 		slice,
-		series: d >= 3 ? metricSeriesCapability(model, scale) : undefined,
+		series: d >= 3 ? metricSeriesCapability(model, scale, onePerOrder(d, fPoly, hPoly)) : undefined,
 		stress,
 		thermo: (G) => {
 			const s = stress(G);

@@ -1,9 +1,14 @@
 import { HoloError } from '../errors';
 import { taylorOf, type MetricModel } from './model';
 import { evaluateQPoly } from './rational';
+import { exactMetricCoeffs, type ExactCoeff } from './exact-series';
 import { NUMBERS, polyRing, type DPoly } from './ring';
 import { metricSeries } from './series';
 import { texName } from './taylor-exact';
+import { atomValues as atomValuesOf0 } from '../series/exact-latex';
+import { evaluateTerms } from '../series/laurent';
+
+const atomValuesOf = (d: number) => atomValuesOf0(d, 0);
 
 /**
  * The metric's small-width series (series.ts) at its numbers or in its symbolic parameters. "Order n" keeps the
@@ -111,6 +116,58 @@ export function evaluateCoeff(c: SymbolicCoeff, vars: readonly string[], values:
 	return s;
 }
 
+const exactCache = new WeakMap<MetricModel, Map<number, Map<number, string> | null>>();
+
+/**
+ * The exact π/B LaTeX of each c_K (power → LaTeX) when f and h are rational in z and exact-series.ts can carry
+ * the order; each coefficient checked against the double-precision series first, monomial by monomial in the
+ * shown parameters (1e−9 relative), so a disagreement leaves the decimals. Undefined when not available.
+ */
+export function metricExactLatex(model: MetricModel, n: number): Map<number, string> | undefined {
+	let cache = exactCache.get(model);
+	if (!cache) exactCache.set(model, (cache = new Map()));
+	if (cache.has(n)) return cache.get(n) ?? undefined;
+	let out: Map<number, string> | null = null;
+	const M = n * model.d;
+	const f = taylorOf(model, 'f', M);
+	const h = taylorOf(model, 'h', M);
+	if (f.exact && h.exact) {
+		const exact = exactMetricCoeffs(model.d, n, f.exact.coeffs, h.exact.coeffs, model.shown, {});
+		if (exact && agrees(model, n, exact)) out = new Map(exact.map((c) => [c.power, c.latex]));
+	}
+	cache.set(n, out);
+	return out ?? undefined;
+}
+
+/** Every exact coefficient's monomials (in the shown parameters) against the double-precision ones. */
+function agrees(model: MetricModel, n: number, exact: ExactCoeff[]): boolean {
+	const d = model.d;
+	const vars = model.shown;
+	const numeric = new Map<number, DPoly>();
+	if (vars.length) for (const c of metricCoeffsSymbolic(model, n).coeffs) numeric.set(c.power, c.poly);
+	else {
+		const { powers, values } = metricCoeffsNumeric(model, n);
+		powers.forEach((K, i) => numeric.set(K, new Map([['', values[i]!]])));
+	}
+	if (numeric.size !== exact.length) return false;
+	const atoms = atomValuesOf(d);
+	return exact.every((c) => {
+		const want = numeric.get(c.power);
+		if (!want) return false;
+		const groups = new Map<string, number>();
+		for (const t of c.terms) {
+			const key = vars.length ? t.e.slice(d).join(',') : '';
+			groups.set(key, (groups.get(key) ?? 0) + evaluateTerms([{ c: t.c, e: t.e.slice(0, d) }], atoms));
+		}
+		if (groups.size !== want.size) return false;
+		for (const [k, v] of groups) {
+			const w = want.get(k);
+			if (w === undefined || !(Math.abs(v - w) <= 1e-9 * Math.max(Math.abs(v), Math.abs(w)))) return false;
+		}
+		return true;
+	});
+}
+
 export interface MetricTerms {
 	terms: { k: number; coeff: number; latex: string; power: number }[];
 	/** what l is measured in: the horizon (or a zh= key), or nothing (coefficients of l^K) */
@@ -126,14 +183,27 @@ export function metricTerms(model: MetricModel, n: number, scale: number | undef
 	if (model.shown.length) {
 		const { vars, coeffs } = metricCoeffsSymbolic(model, n);
 		const known = model.symbols.length === 0;
+		const exact = metricExactLatex(model, n);
 		return {
 			scale: '1',
-			terms: coeffs.map((c, i) => ({ k: i + 1, power: c.power, latex: c.latex, coeff: known ? evaluateCoeff(c, vars, model.values) : NaN }))
+			terms: coeffs.map((c, i) => ({
+				k: i + 1,
+				power: c.power,
+				latex: exact?.get(c.power) ?? c.latex,
+				coeff: known ? evaluateCoeff(c, vars, model.values) : NaN
+			}))
 		};
 	}
 	const { powers, values } = metricCoeffsNumeric(model, n, scale ?? 1);
+	// the exact forms are coefficients of l^K: shown as they are only when l is not measured in another unit
+	const exact = (scale ?? 1) === 1 ? metricExactLatex(model, n) : undefined;
 	return {
 		scale: scale === undefined ? '1' : 'z_h',
-		terms: values.map((v, i) => ({ k: i + 1, power: powers[i]!, coeff: v, latex: `\\approx ${Number(v.toPrecision(12))}` }))
+		terms: values.map((v, i) => ({
+			k: i + 1,
+			power: powers[i]!,
+			coeff: v,
+			latex: exact?.get(powers[i]!) ?? `\\approx ${Number(v.toPrecision(12))}`
+		}))
 	};
 }

@@ -12,6 +12,20 @@ export interface Ring<T> {
 	mul(a: T, b: T): T;
 	scale(a: T, c: number): T;
 	isZero(a: T): boolean;
+	/**
+	 * Exact constants (exact-series.ts): the series' rational factors, Beta values and powers of W₀ applied as
+	 * ring operations instead of doubles. Absent for the numeric rings, which use `scale`.
+	 */
+	exact?: {
+		/** a · num/den */
+		scaleQ(a: T, num: number, den: number): T;
+		/** a · C(−½, n) B(r/m, ½ − n)/m */
+		scaleBeta(a: T, r: number, n: number): T;
+		/** a · W₀^{−1} */
+		divW0(a: T): T;
+		/** a · 2/K: the last factor of c_K but W₀^{d−2−K}, which the caller applies on the finished terms */
+		finish(a: T, K: number): T;
+	};
 }
 
 export const NUMBERS: Ring<number> = {
@@ -73,4 +87,30 @@ export function evaluateDPoly(p: DPoly, vars: readonly string[], values: Readonl
 		s += t;
 	}
 	return s;
+}
+
+/**
+ * First-order dual numbers in k directions, [value, ∂₁, …, ∂_k]: running the series (series.ts) over them
+ * differentiates every coefficient exactly in the parameters (forward-mode; no differencing step). A number is
+ * zero only when its value and every derivative are, so the series code's structural-zero skips stay exact.
+ */
+export type Dual = Float64Array;
+
+export function dualRing(k: number): Ring<Dual> {
+	const zero = new Float64Array(k + 1);
+	const one = new Float64Array(k + 1);
+	one[0] = 1;
+	return {
+		zero,
+		one,
+		add: (a, b) => a.map((x, i) => x + b[i]!),
+		mul(a, b) {
+			const out = new Float64Array(k + 1);
+			out[0] = a[0]! * b[0]!;
+			for (let i = 1; i <= k; i++) out[i] = a[0]! * b[i]! + a[i]! * b[0]!;
+			return out;
+		},
+		scale: (a, c) => a.map((x) => x * c),
+		isZero: (a) => a.every((x) => x === 0)
+	};
 }

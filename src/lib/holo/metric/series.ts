@@ -23,7 +23,12 @@ function binomHalf(n: number): number {
 	return r;
 }
 
-/** a^p for a series with a₀ = 1, p a real constant (Miller's recurrence, skipping zero coefficients). */
+/** a · num/den: exactly in an exact ring, else one rounding of num/den. */
+function scaleQ<T>(R: Ring<T>, a: T, num: number, den: number): T {
+	return R.exact ? R.exact.scaleQ(a, num, den) : R.scale(a, num / den);
+}
+
+/** a^p for a series with a₀ = 1, p a half-integer or integer (Miller's recurrence, skipping zero coefficients). */
 function powSeries<T>(R: Ring<T>, a: T[], p: number, M: number): T[] {
 	const nz = a.map((x, k) => (k > 0 && !R.isZero(x) ? k : -1)).filter((k) => k > 0);
 	const c: T[] = [R.one];
@@ -31,7 +36,7 @@ function powSeries<T>(R: Ring<T>, a: T[], p: number, M: number): T[] {
 		let s = R.zero;
 		for (const k of nz) {
 			if (k > n) break;
-			if (!R.isZero(c[n - k]!)) s = R.add(s, R.scale(R.mul(a[k]!, c[n - k]!), ((p + 1) * k - n) / n));
+			if (!R.isZero(c[n - k]!)) s = R.add(s, scaleQ(R, R.mul(a[k]!, c[n - k]!), (2 * p + 2) * k - 2 * n, 2 * n));
 		}
 		c.push(s);
 	}
@@ -107,7 +112,11 @@ export function metricSeries<T>(R: Ring<T>, d: number, f: T[], h: T[], M: number
 				for (const [e, x] of row) {
 					if (R.isZero(x)) continue;
 					const K = K1 + K2;
-					if (!R.isZero(a)) IW[K] = R.add(IW[K]!, R.scale(R.mul(a, x), (cn * betaHalfShift((d + K1 + e) / m, n)) / m));
+					if (!R.isZero(a))
+						IW[K] = R.add(
+							IW[K]!,
+							R.exact ? R.exact.scaleBeta(R.mul(a, x), d + K1 + e, n) : R.scale(R.mul(a, x), (cn * betaHalfShift((d + K1 + e) / m, n)) / m)
+						);
 					if (!R.isZero(b)) {
 						const s = (2 - d + K1 + e) / m;
 						if (s <= 0 && Number.isInteger(s)) {
@@ -117,21 +126,24 @@ export function metricSeries<T>(R: Ring<T>, d: number, f: T[], h: T[], M: number
 								'ΔA then depends on the cutoff; use a metric whose departure from AdS starts at z^d or later'
 							);
 						}
-						IA[K] = R.add(IA[K]!, R.scale(R.mul(b, x), (cn * betaHalfShift(s, n)) / m));
+						IA[K] = R.add(
+							IA[K]!,
+							R.exact ? R.exact.scaleBeta(R.mul(b, x), 2 - d + K1 + e, n) : R.scale(R.mul(b, x), (cn * betaHalfShift(s, n)) / m)
+						);
 					}
 				}
 			}
 		}
 	});
 	const W0 = (2 * betaHalfShift(d / m, 0)) / m;
-	const W = mulSeries(R, sigma, IW, M).map((x) => R.scale(x, 2 / W0)); // P = W/W₀
+	const W = mulSeries(R, sigma, IW, M).map((x) => (R.exact ? R.exact.divW0(R.scale(x, 2)) : R.scale(x, 2 / W0))); // P = W/W₀
 	const G = mulSeries(R, powSeries(R, W, d - 2, M), IA, M);
 	const c: T[] = [];
 	for (let K = 1; K <= M; K++) {
 		const PK = powSeries(R, W, -K, K - 1);
 		let s = R.zero;
 		for (let i = 0; i < K; i++) if (!R.isZero(G[i + 1]!)) s = R.add(s, R.scale(R.mul(G[i + 1]!, PK[K - 1 - i]!), i + 1));
-		c.push(R.scale(s, (2 * Math.pow(W0, d - 2 - K)) / K));
+		c.push(R.exact ? R.exact.finish(s, K) : R.scale(s, (2 * Math.pow(W0, d - 2 - K)) / K));
 	}
 	return { c };
 }

@@ -3,6 +3,14 @@ import type { Point } from './types';
 
 export function firstLawNote(p: Point, verb: 'tent' | 'mu'): string | undefined {
 	const n = p.bulk.name;
+	if (p.words.along !== undefined) {
+		const [first, ...rest] = p.words.along.split(',');
+		return (
+			`from δΔS = α δΔE${rest.map((x) => ` + β_${x} δΔ${x}`).join('')} over ${p.words.along} at fixed l (ΔE = l T_tt from the metric's z^d terms` +
+			`${rest.length ? `, each Δp = l p/16πG held as a charge` : ''}): T_ent = 1/α is δΔS/δΔE at fixed ${rest.length ? rest.join(', ') : 'nothing else'}, ` +
+			`moved along ${first}${rest.length ? `; μ_${rest[0]} = −β_${rest[0]}/α (a convention of these labels: only μ Δp is convention-free)` : ''}`
+		);
+	}
 	if (n === 'boosted' || n === 'wave') {
 		return (
 			'from δΔS = α δΔE + ζ δΔP_y over (zh, v) at fixed l, ΔP_y = l T^{ty} (> 0 for v > 0): T_ent = 1/α, μ = −ζ/α. ' +

@@ -1,5 +1,5 @@
 import { FIRSTLAW_TOL } from './first-law-notes';
-import { ballZh } from './point';
+import { alongOf, ballZh } from './point';
 import { defineVerb, type CheckAt, type Point } from './types';
 
 /**
@@ -28,7 +28,40 @@ function ballFirstLaw(p: Point): CheckAt {
 	};
 }
 
+/**
+ * A metric along its named parameters (holo/metric/along.ts): one direction per parameter, δp = 1; the first is
+ * shown (lhs, rhs, residual), every one is in the fields as lhs_<p>, rhs_<p>, residual_<p>.
+ */
+function alongFirstLaw(p: Point, along: string[]): CheckAt {
+	const c = p.holo.firstLaw(p.bulk, p.q.l!, p.order, p.G, along);
+	const tol = p.q.tol ?? FIRSTLAW_TOL;
+	const dirs = c.directions!;
+	const pass = dirs.every((d) => Math.abs(d.residual) <= tol * Math.abs(d.lhs));
+	const fields: Record<string, number> = { alpha: c.alpha, tent: c.tent };
+	const law = c.along!;
+	law.params.forEach((name, i) => {
+		const d = dirs[i]!;
+		Object.assign(fields, { [`lhs_${name}`]: d.lhs, [`rhs_${name}`]: d.rhs, [`residual_${name}`]: d.residual });
+		if (Number.isFinite(d.residualExact)) fields[`residual_exact_${name}`] = d.residualExact;
+		if (i > 0) Object.assign(fields, { [`beta_${name}`]: law.beta[i]!, [`mu_${name}`]: law.mu[i]! });
+	});
+	const rest = law.params.slice(1);
+	const relation = `T_ent δΔS = δΔE${rest.map((x) => ` − μ_${x} δΔ${x}`).join('')}`;
+	return {
+		relation,
+		note: `${relation}, along δ${law.params[0]} (shown)${rest.length ? ` and ${rest.map((x) => `δ${x} (fields *_${x})`).join(', ')}` : ''}; Δp = l p/16πG held as charges; residual = the next order's term (o=exact: the relation's own rounding)`,
+		lhs: dirs[0]!.lhs,
+		rhs: dirs[0]!.rhs,
+		residual: dirs[0]!.residual,
+		tolerance: tol * Math.abs(dirs[0]!.lhs),
+		pass,
+		fields
+	};
+}
+
 function stripFirstLaw(p: Point): CheckAt {
+	const named = alongOf(p);
+	if (named) return alongFirstLaw(p, named);
 	const c = p.holo.firstLaw(p.bulk, p.q.l!, p.order, p.G);
 	const tol = p.q.tol ?? FIRSTLAW_TOL;
 	// the scale direction (δ ln zh) is the one every bulk has; a boosted bulk's second direction must hold too
@@ -63,7 +96,7 @@ export const firstlaw = defineVerb({
 	kind: 'check',
 	series: true,
 	usesG: true,
-	forms: { strip: { keys: ['l', 'o', 'tol', 'G'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol', 'G'], required: ['R'] } },
+	forms: { strip: { keys: ['l', 'o', 'tol', 'G', 'along'], required: ['l'] }, ball: { keys: ['R', 'o', 'tol', 'G'], required: ['R'] } },
 	symbol: { text: 'first law', tex: '\\delta\\Delta S' },
 	help: {
 		summary: 'checks T_ent δΔS = δΔE − μ δΔX at order n (X = P_y or Q) in each parameter direction; each side and the residual',
@@ -72,7 +105,11 @@ export const firstlaw = defineVerb({
 		accuracy: 'passes when |residual| ≤ tol·|δΔS| (tol = 1e-3 by default); the residual itself is accurate to ~1e-11 relative',
 		source:
 			'strips, order 1: Bhattacharya, Nozaki, Takayanagi & Ugajin 2013; balls: Blanco, Casini, Hung & Myers 2013; higher orders derived here',
-		examples: ['firstlaw l=0.4 o=3', 'use boosted d=4 v=0.6; firstlaw l=0.3 o=1,2,3']
+		examples: [
+			'firstlaw l=0.4 o=3',
+			'use boosted d=4 v=0.6; firstlaw l=0.3 o=1,2,3',
+			'use metric d=4 f="1 - m*z^4 + q^2*z^6" m=1.2 q=0.4; firstlaw l=0.3 o=2 along=m,q'
+		]
 	},
 	at: (p) => (p.shape === 'ball' ? ballFirstLaw(p) : stripFirstLaw(p))
 });

@@ -158,6 +158,12 @@ export function seriesWarningAt(p: Point): string | undefined {
 	return p.holo.seriesWarning(p.bulk, l, p.order, p.validityTol) ?? undefined;
 }
 
+/** `along=m,q` as the list of names the engine takes (undefined when the line has no along=). */
+export function alongOf(p: Point): string[] | undefined {
+	const a = p.words.along;
+	return a === undefined ? undefined : a.split(',');
+}
+
 /** A value with the series warning of its point attached (when the verb's orders are truncations). */
 export function valueAt(p: Point, value: number, extra: Omit<ScalarAt, 'value'> = {}): ScalarAt {
 	const warning = seriesWarningAt(p);

@@ -1,12 +1,12 @@
 import { firstLawNote } from './first-law-notes';
-import { valueAt } from './point';
+import { alongOf, valueAt } from './point';
 import { defineVerb } from './types';
 
 export const tent = defineVerb({
 	name: 'tent',
 	kind: 'scalar',
 	series: true,
-	forms: { strip: { keys: ['l', 'o'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
+	forms: { strip: { keys: ['l', 'o', 'along'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
 	symbol: { text: 'T_ent', tex: 'T_{\\mathrm{ent}}' },
 	help: {
 		summary:
@@ -16,7 +16,11 @@ export const tent = defineVerb({
 		accuracy: 'exact α, ζ agree with 25-digit mpmath central differences of ΔA to 3e-11 relative (tests/fixtures/holo/analysis)',
 		source:
 			'order 1: Bhattacharya, Nozaki, Takayanagi & Ugajin, PRL 110 (2013) 091602; balls: Blanco, Casini, Hung & Myers, JHEP 08 (2013) 060; higher orders derived here',
-		examples: ['tent l=0.4 o=3', 'sweep tent l=0.1..4:40 o=1,2,exact']
+		examples: [
+			'tent l=0.4 o=3',
+			'sweep tent l=0.1..4:40 o=1,2,exact',
+			'use metric d=4 f="1 - m*z^4 + q^2*z^6" m=1.2 q=0.4; tent l=0.3 o=2 along=m,q'
+		]
 	},
 	at: (p) => {
 		if (p.shape === 'ball') {
@@ -25,6 +29,6 @@ export const tent = defineVerb({
 			return { value: p.holo.ballTent(p.bulk.d, p.q.R!) };
 		}
 		const note = firstLawNote(p, 'tent');
-		return valueAt(p, p.holo.tent(p.bulk, p.q.l!, p.order).value, note ? { note } : {});
+		return valueAt(p, p.holo.tent(p.bulk, p.q.l!, p.order, alongOf(p)).value, note ? { note } : {});
 	}
 });
