@@ -158,3 +158,33 @@ describe('state', () => {
 		expect(refusal(doc({ steps: [step(1, { ...failed, error: { start: 0 } })] }))).toMatch(/step 1, steps\.0\.error\.message/);
 	});
 });
+
+describe('tables with plot guides', () => {
+	// a growth sweep in a vaidya pad carries reference curves (thermal value, early law, linear growth)
+	const growth = (guides: unknown) => ({
+		kind: 'table',
+		label: 'ΔA vs t',
+		columns: ['t', 'exact'],
+		rows: [
+			[0, 0],
+			[1, 0.4]
+		],
+		plot: { x: 't', show: true, guides }
+	});
+	it('takes a table whose plot carries guides', () => {
+		const guides = [
+			{
+				label: '\\Delta A_{\\rm th}',
+				points: [
+					[0, 1],
+					[1, 1]
+				]
+			}
+		];
+		expect(parsePadDocument(doc({ steps: [step(1, { results: [growth(guides)] })] })).ok).toBe(true);
+	});
+	it('refuses guides that are not polylines, naming the step', () => {
+		const bad = [{ label: 'x', points: [[0, { nested: 1 }]] }];
+		expect(refusal(doc({ steps: [step(1, { results: [growth(bad)] })] }))).toMatch(/step|steps/);
+	});
+});

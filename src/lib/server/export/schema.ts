@@ -54,7 +54,12 @@ export const resultSchema = z.discriminatedUnion('kind', [
 			log: z.boolean().optional(),
 			validity: numbers.optional(),
 			dataset: z.string().max(200).optional(),
-			show: z.boolean().optional()
+			show: z.boolean().optional(),
+			// reference curves under a growth plot (result.ts PlotGuide): a few, each a bounded polyline
+			guides: z
+				.array(shape({ label, points: z.array(z.tuple([num, num])).max(20_000) }))
+				.max(10)
+				.optional()
 		}).optional(),
 		warning,
 		latex: latex.optional(),
