@@ -1,9 +1,9 @@
-import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireUser, requireWriter } from '$lib/server/auth/guards';
 import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad } from '$lib/server/pads';
-import { attemptView, padView, stepView, titleSchema } from '$lib/server/pad-view';
+import { attemptView, padView, stepView } from '$lib/server/pad-view';
 import { padAttempts } from '$lib/server/steps';
+import { padRenameSchema } from '$lib/server/api-schemas';
 
 /**
  * GET: the owner, or a reader or member invited by e-mail. Anyone else gets the same 404 as a missing id.
@@ -20,7 +20,7 @@ export const GET = api((event) => {
 export const PATCH = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
-	const { title } = await readBody(event, z.object({ title: titleSchema }));
+	const { title } = await readBody(event, padRenameSchema);
 	renamePad(pad, title);
 	return ok({ pad: padView({ ...pad, title, updatedAt: new Date() }, user.name) });
 });

@@ -1,0 +1,33 @@
+/**
+ * Request bodies that used to be written inline in their routes, moved here so the route and the OpenAPI
+ * document (src/lib/server/openapi) read the very same zod schema: what /api/openapi.json describes is what
+ * the route validates. Schemas that already lived beside their domain code (signUpSchema, proposeSchema…) stay
+ * there; the document imports them from where they are.
+ */
+import { z } from 'zod';
+import { emailSchema, passwordSchema } from './auth/accounts';
+import { signupPolicySchema } from './auth/policy';
+import { titleSchema } from './pad-view';
+import { stepNameSchema } from './steps';
+import { NOTE_MAX } from './transcripts';
+
+/** a single-use link's token (confirmation, invitation) */
+export const tokenBodySchema = z.object({ token: z.string().min(10).max(200) });
+export const emailBodySchema = z.object({ email: emailSchema });
+export const resetConfirmSchema = z.object({ token: z.string().min(10).max(200), password: passwordSchema });
+export const signupSettingsSchema = z.object({ signup: signupPolicySchema });
+
+export const evalBodySchema = z.object({
+	input: z.string().max(100_000, 'input is far over the 2000-character limit'),
+	pad: z.string().min(1).max(64).optional()
+});
+
+export const padCreateSchema = z.object({ title: titleSchema.optional() });
+export const padRenameSchema = z.object({ title: titleSchema });
+export const attemptDismissSchema = z.object({ dismissed: z.boolean() });
+export const shareSchema = z.object({
+	expiresInDays: z.number().int().min(1).max(365).optional(),
+	note: z.string().max(NOTE_MAX, `A note has at most ${NOTE_MAX} characters.`).optional()
+});
+export const stepChangeSchema = z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional() }).strict();
+export const stepRerunSchema = z.object({ input: z.string().min(1).max(100_000) });
