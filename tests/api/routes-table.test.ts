@@ -111,6 +111,7 @@ const TABLE: Record<string, string> = {
 	'GET /signout':                                  '3xx 3xx 3xx 3xx 3xx',
 	'POST /signout':                                 '3xx 3xx 3xx 3xx 3xx',
 	'GET /t/[slug]':                                 '2xx 2xx 2xx 2xx 2xx',
+	'GET /help/api':                                 '2xx 2xx 2xx 2xx 2xx',
 	'POST /t/[slug]?/fork':                          '3xx 403 3xx 3xx 3xx'
 };
 

@@ -18,8 +18,11 @@ export const resetConfirmSchema = z.object({ token: z.string().min(10).max(200),
 export const signupSettingsSchema = z.object({ signup: signupPolicySchema });
 
 export const evalBodySchema = z.object({
-	input: z.string().max(100_000, 'input is far over the 2000-character limit'),
-	pad: z.string().min(1).max(64).optional()
+	input: z
+		.string()
+		.max(100_000, 'input is far over the 2000-character limit')
+		.meta({ description: 'one line of the Bulkpad language', examples: ['darea l=0.3 o=2'] }),
+	pad: z.string().min(1).max(64).optional().meta({ description: 'a pad id: store the line as its next step' })
 });
 
 export const padCreateSchema = z.object({ title: titleSchema.optional() });
@@ -30,4 +33,4 @@ export const shareSchema = z.object({
 	note: z.string().max(NOTE_MAX, `A note has at most ${NOTE_MAX} characters.`).optional()
 });
 export const stepChangeSchema = z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional() }).strict();
-export const stepRerunSchema = z.object({ input: z.string().min(1).max(100_000) });
+export const stepRerunSchema = z.object({ input: z.string().min(1).max(100_000).meta({ examples: ['darea l=0.4 o=2'] }) });
