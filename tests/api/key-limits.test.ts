@@ -70,10 +70,13 @@ describe('enforcing them', () => {
 		const script = new Client(undefined, made.key);
 		// the key may still be good now or already past its three seconds on a busy machine; it must end up refused
 		await expect
-			.poll(async () => {
-				const r = await script.get('/api/auth/me');
-				return r.status === 401 ? r.body.error.message : r.status;
-			}, { interval: 500 })
+			.poll(
+				async () => {
+					const r = await script.get('/api/auth/me');
+					return r.status === 401 ? r.body.error.message : r.status;
+				},
+				{ interval: 500 }
+			)
 			.toMatch(/expired/);
 		expect((await script.post('/api/eval', { input: 'darea l=0.3 o=2' })).status).toBe(401);
 		// still listed, so its owner sees why the script stopped

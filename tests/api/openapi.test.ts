@@ -21,14 +21,23 @@ describe('GET /api/openapi.json', () => {
 		expect(r.headers.get('content-type')).toMatch(/application\/json/);
 		expect(r.headers.get('cache-control')).toMatch(/public/);
 		expect(r.body.openapi).toBe('3.1.0');
-		expect(Object.keys(r.body.paths)).toEqual(expect.arrayContaining(['/api/eval', '/api/pads/{id}', '/api/t/{slug}/replay', '/api/openapi.json']));
+		expect(Object.keys(r.body.paths)).toEqual(
+			expect.arrayContaining(['/api/eval', '/api/pads/{id}', '/api/t/{slug}/replay', '/api/openapi.json'])
+		);
 		expect(r.body.servers[0].url).toMatch(/^http/);
 	});
 });
 
 describe('the answer shapes it describes', () => {
 	it('fit real evaluation replies: every kind, and a language error', async () => {
-		for (const input of ['darea l=0.3 o=2', 'darea l=0.1..0.5:5 o=1,2,exact', 'coeffs darea o=3', 'firstlaw l=0.3 o=2', 'thermo', 'use vacuum d=3; zstar l=1']) {
+		for (const input of [
+			'darea l=0.3 o=2',
+			'darea l=0.1..0.5:5 o=1,2,exact',
+			'coeffs darea o=3',
+			'firstlaw l=0.3 o=2',
+			'thermo',
+			'use vacuum d=3; zstar l=1'
+		]) {
 			const r = await member.post('/api/eval', { input });
 			expect(r.status, `${input}: ${JSON.stringify(r.body)}`).toBe(200);
 			fits(evalReplySchema, r.body);

@@ -33,4 +33,10 @@ export const shareSchema = z.object({
 	note: z.string().max(NOTE_MAX, `A note has at most ${NOTE_MAX} characters.`).optional()
 });
 export const stepChangeSchema = z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional() }).strict();
-export const stepRerunSchema = z.object({ input: z.string().min(1).max(100_000).meta({ examples: ['darea l=0.4 o=2'] }) });
+export const stepRerunSchema = z.object({
+	input: z
+		.string()
+		.min(1)
+		.max(100_000)
+		.meta({ examples: ['darea l=0.4 o=2'] })
+});

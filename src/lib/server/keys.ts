@@ -12,7 +12,11 @@ import { failure } from './http';
 export const KEYS_PER_USER = 20;
 
 export const createKeySchema = z.object({
-	label: z.string().trim().min(1, 'Give the key a label, e.g. "sweep script".').max(60, 'A label has at most 60 characters.')
+	label: z
+		.string()
+		.trim()
+		.min(1, 'Give the key a label, e.g. "sweep script".')
+		.max(60, 'A label has at most 60 characters.')
 		.meta({ examples: ['sweep script'] }),
 	perMinute: z
 		.number()

@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { buildOpenApiDocument, openApiPath, operations } from '../../../src/lib/server/openapi';
 import { evalBodySchema } from '../../../src/lib/server/api-schemas';
 
-type Json = Record<string, any>; // eslint-disable-line @typescript-eslint/no-explicit-any
+type Json = Record<string, any>;
 
 /** `METHOD /api/…` for every exported method of every +server.ts under src/routes/api (route groups dropped). */
 function discoverApiRoutes(root = 'src/routes'): string[] {
@@ -17,9 +17,15 @@ function discoverApiRoutes(root = 'src/routes'): string[] {
 		for (const e of readdirSync(dir, { withFileTypes: true })) {
 			if (e.isDirectory()) walk(join(dir, e.name));
 			else if (e.name === '+server.ts' || e.name === '+server.js') {
-				const route = '/' + relative(root, dir).split('/').filter((s) => s && !/^\(.*\)$/.test(s)).join('/');
+				const route =
+					'/' +
+					relative(root, dir)
+						.split('/')
+						.filter((s) => s && !/^\(.*\)$/.test(s))
+						.join('/');
 				const src = readFileSync(join(dir, e.name), 'utf8');
-				for (const m of src.matchAll(/export\s+(?:const|(?:async\s+)?function)\s+(GET|POST|PUT|PATCH|DELETE)\b/g)) found.push(`${m[1]} ${route}`);
+				for (const m of src.matchAll(/export\s+(?:const|(?:async\s+)?function)\s+(GET|POST|PUT|PATCH|DELETE)\b/g))
+					found.push(`${m[1]} ${route}`);
 			}
 		}
 	};
@@ -27,7 +33,7 @@ function discoverApiRoutes(root = 'src/routes'): string[] {
 	return found.sort();
 }
 
-const doc = buildOpenApiDocument('http://127.0.0.1:3000');
+const doc = buildOpenApiDocument('http://127.0.0.1:3000') as Json;
 const METHODS = ['get', 'put', 'post', 'delete', 'options', 'head', 'patch', 'trace'];
 
 describe('the route list', () => {
@@ -41,8 +47,14 @@ describe('the route list', () => {
 	it('documents every route and method, and nothing that is not there', () => {
 		const listed = operations.map((o) => `${o.method} ${o.path}`).sort();
 		const routes = discoverApiRoutes();
-		expect(routes.filter((r) => !listed.includes(r)), 'routes missing from src/lib/server/openapi/routes.ts').toEqual([]);
-		expect(listed.filter((r) => !routes.includes(r)), 'documented routes that do not exist').toEqual([]);
+		expect(
+			routes.filter((r) => !listed.includes(r)),
+			'routes missing from src/lib/server/openapi/routes.ts'
+		).toEqual([]);
+		expect(
+			listed.filter((r) => !routes.includes(r)),
+			'documented routes that do not exist'
+		).toEqual([]);
 		expect(new Set(listed).size).toBe(listed.length);
 	});
 
@@ -85,7 +97,10 @@ describe('the document', () => {
 			for (const [method, op] of Object.entries(item as Json)) {
 				expect(METHODS, `${method} ${path}`).toContain(method);
 				expect(Object.keys(op.responses).length, `${method} ${path}`).toBeGreaterThan(0);
-				expect(Object.keys(op.responses).some((s) => /^2\d\d$/.test(s)), `${method} ${path} has a success`).toBe(true);
+				expect(
+					Object.keys(op.responses).some((s) => /^2\d\d$/.test(s)),
+					`${method} ${path} has a success`
+				).toBe(true);
 				for (const [status, r] of Object.entries(op.responses as Json)) {
 					expect(status).toMatch(/^[1-5]\d\d$/);
 					expect(typeof r.description).toBe('string');
@@ -108,7 +123,8 @@ describe('the document', () => {
 		expect(text).not.toContain('$defs');
 		for (const item of Object.values(doc.paths as Json))
 			for (const op of Object.values(item as Json))
-				for (const req of op.security ?? []) for (const name of Object.keys(req)) expect(doc.components.securitySchemes[name]).toBeDefined();
+				for (const req of op.security ?? [])
+					for (const name of Object.keys(req)) expect(doc.components.securitySchemes[name]).toBeDefined();
 	});
 
 	it('describes the eval body with the very schema the route validates', () => {

@@ -153,7 +153,10 @@ export function readApiDocument(doc: Json, origin = doc.servers?.[0]?.url ?? '')
 					limits: '',
 					description: p.description ?? ''
 				})),
-				responses: Object.entries((op.responses ?? {}) as Record<string, Json>).map(([status, r]) => ({ status, description: r.description ?? '' })),
+				responses: Object.entries((op.responses ?? {}) as Record<string, Json>).map(([status, r]) => ({
+					status,
+					description: r.description ?? ''
+				})),
 				curl: curlOf(origin, method.toUpperCase(), examplePath, op['x-bulkpad-auth'] ?? 'signed-in', exampleBody, bodyType),
 				group: path.split('/')[2] ?? ''
 			});

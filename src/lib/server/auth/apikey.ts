@@ -56,8 +56,7 @@ function countKeyRequest(keyId: string, now: number): { count: number; resetAt: 
 }
 
 export type KeyVerdict =
-	| { ok: true; user: typeof schema.users.$inferSelect }
-	| { ok: false; status: 401 | 429; message: string; retryAfter?: number };
+	{ ok: true; user: typeof schema.users.$inferSelect } | { ok: false; status: 401 | 429; message: string; retryAfter?: number };
 
 /**
  * What a bearer key gets: its user, or a refusal that names the reason (an expired key says so, so a script's

@@ -61,7 +61,13 @@ export const errorSchema = z
 export const lineErrorSchema = z
 	.looseObject({
 		ok: z.literal(false),
-		error: z.looseObject({ message: z.string(), start: z.number(), end: z.number(), hint: z.string().optional(), code: z.string().optional() })
+		error: z.looseObject({
+			message: z.string(),
+			start: z.number(),
+			end: z.number(),
+			hint: z.string().optional(),
+			code: z.string().optional()
+		})
 	})
 	.meta({ id: 'LineError' });
 

@@ -62,9 +62,13 @@ function hoist(schema: Json, components: Json): Json {
 }
 
 function errorResponses(op: Operation, ref: (s: ZodType) => Json): Json {
-	const error = (description: string, schema: ZodType = errorSchema) => ({ description, content: { 'application/json': { schema: ref(schema) } } });
+	const error = (description: string, schema: ZodType = errorSchema) => ({
+		description,
+		content: { 'application/json': { schema: ref(schema) } }
+	});
 	const out: Json = {};
-	if (op.body || op.query || op.multipart) out['400'] = error(op.lineError ? 'a language error in the line, or a body that does not fit' : 'a body that does not fit');
+	if (op.body || op.query || op.multipart)
+		out['400'] = error(op.lineError ? 'a language error in the line, or a body that does not fit' : 'a body that does not fit');
 	if (op.lineError) out['400'] = error('a language error: the message, the span [start, end) of the line, and a hint', lineErrorSchema);
 	if (op.auth !== 'public') out['401'] = error('no session or key, or an expired key');
 	if (op.auth === 'writer' || op.auth === 'admin') out['403'] = error(op.auth === 'admin' ? 'not an admin' : 'readers may not do this');
@@ -109,7 +113,10 @@ export function buildOpenApiDocument(origin?: string): Json {
 			operation.requestBody = { required: true, content: { 'application/json': { schema: ref(op.body, 'input') } } };
 		} else if (op.multipart) {
 			const properties = Object.fromEntries(Object.entries(op.multipart).map(([k, d]) => [k, { type: 'string', description: d }]));
-			operation.requestBody = { required: true, content: { 'multipart/form-data': { schema: { type: 'object', properties, required: ['file'] } } } };
+			operation.requestBody = {
+				required: true,
+				content: { 'multipart/form-data': { schema: { type: 'object', properties, required: ['file'] } } }
+			};
 		}
 		(paths[path] ??= {})[op.method.toLowerCase()] = operation;
 	}

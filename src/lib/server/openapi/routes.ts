@@ -24,7 +24,7 @@ import { changeSchema, proposeSchema, stateQuery } from '../macros';
 import { commentSchema } from '../comments';
 import { exportFormatSchema } from '../export';
 import { padDocumentSchema } from '../export/schema';
-import { evalReplySchema, evalStreamLineSchema, keyListSchema, keyMadeSchema, lineErrorSchema } from './answers';
+import { evalReplySchema, evalStreamLineSchema, keyListSchema, keyMadeSchema } from './answers';
 
 export type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 /** who may call: anyone; any signed-in role (readers too); members and admins; admins only */
@@ -55,7 +55,11 @@ export interface Operation {
 	lineError?: boolean;
 }
 
-const lineRoutesErrors = { 422: 'the line is refused as too large or over its time budget', 429: 'too many lines waiting; see Retry-After', 503: 'the evaluators are busy; see Retry-After' };
+const lineRoutesErrors = {
+	422: 'the line is refused as too large or over its time budget',
+	429: 'too many lines waiting; see Retry-After',
+	503: 'the evaluators are busy; see Retry-After'
+};
 
 export const operations: Operation[] = [
 	// evaluation
@@ -73,7 +77,14 @@ export const operations: Operation[] = [
 	},
 	// pads
 	{ method: 'GET', path: '/api/pads', summary: "The caller's own pads, newest first.", auth: 'signed-in' },
-	{ method: 'POST', path: '/api/pads', summary: 'A fresh pad in the default bulk (an empty body is fine).', auth: 'writer', body: padCreateSchema, status: 201 },
+	{
+		method: 'POST',
+		path: '/api/pads',
+		summary: 'A fresh pad in the default bulk (an empty body is fine).',
+		auth: 'writer',
+		body: padCreateSchema,
+		status: 201
+	},
 	{ method: 'GET', path: '/api/pads/[id]', summary: 'One pad with its steps (and, for its owner, its attempts).', auth: 'signed-in' },
 	{ method: 'PATCH', path: '/api/pads/[id]', summary: 'Rename a pad (owner only).', auth: 'writer', body: padRenameSchema },
 	{ method: 'DELETE', path: '/api/pads/[id]', summary: 'Delete a pad (owner only).', auth: 'writer' },
@@ -94,12 +105,34 @@ export const operations: Operation[] = [
 		status: 201,
 		errors: { 413: 'the document is over the import limit' }
 	},
-	{ method: 'POST', path: '/api/pads/[id]/replay', summary: 'Re-evaluate every step now and mark drift; nothing is stored.', auth: 'signed-in' },
-	{ method: 'POST', path: '/api/pads/[id]/invite', summary: 'Mail a single-use invitation to read the pad.', auth: 'writer', body: emailBodySchema },
+	{
+		method: 'POST',
+		path: '/api/pads/[id]/replay',
+		summary: 'Re-evaluate every step now and mark drift; nothing is stored.',
+		auth: 'signed-in'
+	},
+	{
+		method: 'POST',
+		path: '/api/pads/[id]/invite',
+		summary: 'Mail a single-use invitation to read the pad.',
+		auth: 'writer',
+		body: emailBodySchema
+	},
 	{ method: 'GET', path: '/api/pads/[id]/invitations', summary: "Every invitation of the owner's pad.", auth: 'writer' },
-	{ method: 'DELETE', path: '/api/pads/[id]/invitations/[invitation]', summary: 'Revoke an invitation (and the access it gave).', auth: 'writer' },
+	{
+		method: 'DELETE',
+		path: '/api/pads/[id]/invitations/[invitation]',
+		summary: 'Revoke an invitation (and the access it gave).',
+		auth: 'writer'
+	},
 	{ method: 'GET', path: '/api/pads/[id]/steps/[n]', summary: 'A step as it is now and every earlier version.', auth: 'signed-in' },
-	{ method: 'PATCH', path: '/api/pads/[id]/steps/[n]', summary: 'Hide or restore a step, name or unname it.', auth: 'writer', body: stepChangeSchema },
+	{
+		method: 'PATCH',
+		path: '/api/pads/[id]/steps/[n]',
+		summary: 'Hide or restore a step, name or unname it.',
+		auth: 'writer',
+		body: stepChangeSchema
+	},
 	{
 		method: 'POST',
 		path: '/api/pads/[id]/steps/[n]',
@@ -110,7 +143,13 @@ export const operations: Operation[] = [
 		lineError: true,
 		errors: lineRoutesErrors
 	},
-	{ method: 'PATCH', path: '/api/pads/[id]/attempts/[attempt]', summary: 'Fold a failed line away, or bring it back.', auth: 'writer', body: attemptDismissSchema },
+	{
+		method: 'PATCH',
+		path: '/api/pads/[id]/attempts/[attempt]',
+		summary: 'Fold a failed line away, or bring it back.',
+		auth: 'writer',
+		body: attemptDismissSchema
+	},
 	// snapshots and transcripts
 	{ method: 'GET', path: '/api/pads/[id]/share', summary: 'Every snapshot of the pad, live or not, newest first.', auth: 'writer' },
 	{
@@ -135,19 +174,45 @@ export const operations: Operation[] = [
 	{
 		method: 'POST',
 		path: '/api/t/[slug]/replay',
-		summary: 'Re-evaluate every step of the snapshot now → {steps:[{n, drift, failed, delta, results?, error?}], drifted, failed, skipped}.',
+		summary:
+			'Re-evaluate every step of the snapshot now → {steps:[{n, drift, failed, delta, results?, error?}], drifted, failed, skipped}.',
 		auth: 'public',
 		errors: { 429: 'replayed too often; see Retry-After' }
 	},
 	{ method: 'POST', path: '/api/t/[slug]/fork', summary: 'Copy the snapshot into a new pad of your own.', auth: 'writer', status: 201 },
 	{ method: 'GET', path: '/api/t/[slug]/comments', summary: "The snapshot's comments.", auth: 'signed-in' },
-	{ method: 'POST', path: '/api/t/[slug]/comments', summary: 'Comment on one step of the snapshot.', auth: 'signed-in', body: commentSchema, status: 201 },
+	{
+		method: 'POST',
+		path: '/api/t/[slug]/comments',
+		summary: 'Comment on one step of the snapshot.',
+		auth: 'signed-in',
+		body: commentSchema,
+		status: 201
+	},
 	// library
-	{ method: 'GET', path: '/api/macros', summary: 'The macro library as the caller may see it.', auth: 'signed-in', query: { state: stateQuery } },
-	{ method: 'POST', path: '/api/macros', summary: 'Propose a macro; it joins the library once an admin approves it.', auth: 'writer', body: proposeSchema, status: 201 },
+	{
+		method: 'GET',
+		path: '/api/macros',
+		summary: 'The macro library as the caller may see it.',
+		auth: 'signed-in',
+		query: { state: stateQuery }
+	},
+	{
+		method: 'POST',
+		path: '/api/macros',
+		summary: 'Propose a macro; it joins the library once an admin approves it.',
+		auth: 'writer',
+		body: proposeSchema,
+		status: 201
+	},
 	{ method: 'GET', path: '/api/macros/[id]', summary: 'One macro with every version it has had.', auth: 'signed-in' },
 	{ method: 'PATCH', path: '/api/macros/[id]', summary: 'Approve or retire (admin), or edit a macro.', auth: 'writer', body: changeSchema },
-	{ method: 'POST', path: '/api/macros/[id]/trial', summary: 'Run a macro on its example parameters in a fresh pad; nothing is stored.', auth: 'writer' },
+	{
+		method: 'POST',
+		path: '/api/macros/[id]/trial',
+		summary: 'Run a macro on its example parameters in a fresh pad; nothing is stored.',
+		auth: 'writer'
+	},
 	// datasets
 	{ method: 'GET', path: '/api/datasets', summary: "The caller's datasets (without rows) and the upload limits.", auth: 'signed-in' },
 	{
@@ -162,7 +227,13 @@ export const operations: Operation[] = [
 	{ method: 'GET', path: '/api/datasets/[id]', summary: 'A dataset with its columns and every row.', auth: 'signed-in' },
 	{ method: 'DELETE', path: '/api/datasets/[id]', summary: 'Delete a dataset.', auth: 'writer' },
 	// keys
-	{ method: 'GET', path: '/api/keys', summary: "The caller's keys: label, prefix, limit and expiry, never the key.", auth: 'signed-in', answer: keyListSchema },
+	{
+		method: 'GET',
+		path: '/api/keys',
+		summary: "The caller's keys: label, prefix, limit and expiry, never the key.",
+		auth: 'signed-in',
+		answer: keyListSchema
+	},
 	{
 		method: 'POST',
 		path: '/api/keys',
@@ -174,22 +245,78 @@ export const operations: Operation[] = [
 	},
 	{ method: 'DELETE', path: '/api/keys/[id]', summary: 'Revoke one of your keys.', auth: 'signed-in' },
 	// accounts
-	{ method: 'POST', path: '/api/auth/signup', summary: 'Make an account; it signs in once its address is confirmed.', auth: 'public', body: signUpSchema, status: 201 },
-	{ method: 'POST', path: '/api/auth/signin', summary: 'Sign in; sets the session cookie.', auth: 'public', body: signInSchema, errors: { 429: 'too many wrong tries' } },
+	{
+		method: 'POST',
+		path: '/api/auth/signup',
+		summary: 'Make an account; it signs in once its address is confirmed.',
+		auth: 'public',
+		body: signUpSchema,
+		status: 201
+	},
+	{
+		method: 'POST',
+		path: '/api/auth/signin',
+		summary: 'Sign in; sets the session cookie.',
+		auth: 'public',
+		body: signInSchema,
+		errors: { 429: 'too many wrong tries' }
+	},
 	{ method: 'POST', path: '/api/auth/signout', summary: 'End this session.', auth: 'public' },
 	{ method: 'GET', path: '/api/auth/me', summary: 'Who the caller is, and whether by session or key.', auth: 'signed-in' },
-	{ method: 'POST', path: '/api/auth/password', summary: 'Change the password; every other session and every key ends.', auth: 'signed-in', body: changePasswordSchema },
-	{ method: 'POST', path: '/api/auth/confirm', summary: "Confirm an account's address with the mailed token.", auth: 'public', body: tokenBodySchema },
-	{ method: 'POST', path: '/api/auth/confirm/resend', summary: 'A new confirmation link for an unconfirmed account.', auth: 'public', body: emailBodySchema },
-	{ method: 'POST', path: '/api/auth/reset', summary: 'Mail a password-reset link (same answer for any address).', auth: 'public', body: emailBodySchema },
-	{ method: 'POST', path: '/api/auth/reset/confirm', summary: 'Set a new password with the mailed token.', auth: 'public', body: resetConfirmSchema },
+	{
+		method: 'POST',
+		path: '/api/auth/password',
+		summary: 'Change the password; every other session and every key ends.',
+		auth: 'signed-in',
+		body: changePasswordSchema
+	},
+	{
+		method: 'POST',
+		path: '/api/auth/confirm',
+		summary: "Confirm an account's address with the mailed token.",
+		auth: 'public',
+		body: tokenBodySchema
+	},
+	{
+		method: 'POST',
+		path: '/api/auth/confirm/resend',
+		summary: 'A new confirmation link for an unconfirmed account.',
+		auth: 'public',
+		body: emailBodySchema
+	},
+	{
+		method: 'POST',
+		path: '/api/auth/reset',
+		summary: 'Mail a password-reset link (same answer for any address).',
+		auth: 'public',
+		body: emailBodySchema
+	},
+	{
+		method: 'POST',
+		path: '/api/auth/reset/confirm',
+		summary: 'Set a new password with the mailed token.',
+		auth: 'public',
+		body: resetConfirmSchema
+	},
 	{ method: 'GET', path: '/api/auth/sessions', summary: "The caller's live sessions.", auth: 'signed-in' },
 	{ method: 'DELETE', path: '/api/auth/sessions', summary: 'End every session of the caller except this one.', auth: 'signed-in' },
 	{ method: 'DELETE', path: '/api/auth/sessions/[id]', summary: "End one of the caller's sessions.", auth: 'signed-in' },
-	{ method: 'POST', path: '/api/invitations/accept', summary: 'Accept an invitation to read a pad.', auth: 'signed-in', body: tokenBodySchema },
+	{
+		method: 'POST',
+		path: '/api/invitations/accept',
+		summary: 'Accept an invitation to read a pad.',
+		auth: 'signed-in',
+		body: tokenBodySchema
+	},
 	// admin
 	{ method: 'GET', path: '/api/admin/users', summary: 'Everyone in the group with their role.', auth: 'admin' },
-	{ method: 'PATCH', path: '/api/admin/users', summary: "Change someone's role; the last admin cannot be demoted.", auth: 'admin', body: setRoleSchema },
+	{
+		method: 'PATCH',
+		path: '/api/admin/users',
+		summary: "Change someone's role; the last admin cannot be demoted.",
+		auth: 'admin',
+		body: setRoleSchema
+	},
 	{ method: 'GET', path: '/api/admin/settings', summary: 'The sign-up policy.', auth: 'admin' },
 	{ method: 'PATCH', path: '/api/admin/settings', summary: 'Change the sign-up policy.', auth: 'admin', body: signupSettingsSchema },
 	{ method: 'GET', path: '/api/admin/outbox', summary: 'The latest messages Bulkpad sent or tried to send.', auth: 'admin' },
