@@ -67,7 +67,7 @@ export const operations: Operation[] = [
 		method: 'POST',
 		path: '/api/eval',
 		summary:
-			'Evaluate one line. Without `pad` nothing is stored; with `pad` the line becomes that pad\'s next step. Send `Accept: application/x-ndjson` to receive `{"progress":{done,total}}` lines while a sweep runs, then `{"reply":{status,body}}`.',
+			'Evaluate one line. Without pad nothing is stored; with pad the line becomes that pad\'s next step. Send Accept: application/x-ndjson to receive {"progress":{done,total}} lines while a sweep runs, then {"reply":{status,body}}.',
 		auth: 'writer',
 		body: evalBodySchema,
 		answer: evalReplySchema,
@@ -91,7 +91,7 @@ export const operations: Operation[] = [
 	{
 		method: 'GET',
 		path: '/api/pads/[id]/export',
-		summary: 'The whole pad as a download (Markdown, LaTeX or the `bulkpad-pad` JSON document).',
+		summary: 'The whole pad as a download (Markdown, LaTeX or the bulkpad-pad JSON document).',
 		auth: 'signed-in',
 		query: { format: exportFormatSchema.optional() },
 		download: ['text/markdown', 'application/x-tex', 'application/json']
@@ -99,7 +99,7 @@ export const operations: Operation[] = [
 	{
 		method: 'POST',
 		path: '/api/pads/import',
-		summary: 'A `bulkpad-pad` JSON document (the body, or the `file` field of a multipart form) becomes a new pad.',
+		summary: 'A bulkpad-pad JSON document (the body, or the file field of a multipart form) becomes a new pad.',
 		auth: 'writer',
 		body: padDocumentSchema,
 		status: 201,
@@ -220,7 +220,7 @@ export const operations: Operation[] = [
 		path: '/api/datasets',
 		summary: 'Upload a CSV dataset.',
 		auth: 'writer',
-		multipart: { file: 'the CSV file', name: 'optional: the name `compare` refers to' },
+		multipart: { file: 'the CSV file', name: 'optional: the name compare refers to' },
 		status: 201,
 		errors: { 413: 'the file is over the upload limit' }
 	},
