@@ -6,7 +6,7 @@ import { warmPool } from '$lib/server/eval/pool';
 import { connectFleet } from '$lib/server/eval/fleet';
 import { randomUUID } from 'node:crypto';
 import { authenticateSession } from '$lib/server/auth/sessions';
-import { findUserByApiKey } from '$lib/server/auth/apikey';
+import { judgeApiKey } from '$lib/server/auth/apikey';
 import { applySecurityHeaders } from '$lib/server/security/headers';
 import { judgeWrite } from '$lib/server/security/writes';
 
@@ -40,7 +40,15 @@ const authenticate: Handle = async ({ event, resolve }) => {
 
 	const bearer = event.request.headers.get('authorization');
 	if (bearer?.startsWith('Bearer ')) {
-		const user = findUserByApiKey(bearer.slice(7).trim());
+		const verdict = judgeApiKey(bearer.slice(7).trim());
+		// an expired key or one over its per-minute budget is refused here, with its reason, before any route runs
+		if (verdict && !verdict.ok) {
+			const headers = verdict.retryAfter ? { 'retry-after': String(verdict.retryAfter) } : undefined;
+			if (event.url.pathname.startsWith('/api/'))
+				return json({ ok: false, error: { message: verdict.message } }, { status: verdict.status, headers });
+			return text(verdict.message, { status: verdict.status, headers });
+		}
+		const user = verdict?.user;
 		if (user) {
 			event.locals.user = { id: user.id, email: user.email, name: user.name, role: user.role };
 			event.locals.via = 'key';

@@ -48,7 +48,7 @@ describe('a key', () => {
 		const r = await member.get('/api/keys');
 		const listed = r.body.keys.find((k: { id: string }) => k.id === made.id);
 		expect(listed).toMatchObject({ id: made.id, label: 'pad export script', prefix: made.prefix, lastUsedAt: null });
-		expect(Object.keys(listed).sort()).toEqual(['createdAt', 'id', 'label', 'lastUsedAt', 'prefix']);
+		expect(Object.keys(listed).sort()).toEqual(['createdAt', 'expiresAt', 'id', 'label', 'lastUsedAt', 'perMinute', 'prefix']);
 		expect(JSON.stringify(r.body)).not.toContain(made.key);
 	});
 

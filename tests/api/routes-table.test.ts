@@ -43,6 +43,7 @@ const TABLE: Record<string, string> = {
 	'DELETE /api/datasets/[id]':                     '401 403 2xx 404 404',
 	'POST /api/eval':                                '401 403 2xx 2xx 2xx',
 	'GET /api/health':                               '2xx 2xx 2xx 2xx 2xx',
+	'GET /api/openapi.json':                         '2xx 2xx 2xx 2xx 2xx',
 	'GET /api/keys':                                 '401 2xx 2xx 2xx 2xx',
 	'POST /api/keys':                                '401 403 2xx 2xx 2xx',
 	'DELETE /api/keys/[id]':                         '401 404 2xx 404 404',
@@ -110,6 +111,7 @@ const TABLE: Record<string, string> = {
 	'GET /signout':                                  '3xx 3xx 3xx 3xx 3xx',
 	'POST /signout':                                 '3xx 3xx 3xx 3xx 3xx',
 	'GET /t/[slug]':                                 '2xx 2xx 2xx 2xx 2xx',
+	'GET /help/api':                                 '2xx 2xx 2xx 2xx 2xx',
 	'POST /t/[slug]?/fork':                          '3xx 403 3xx 3xx 3xx'
 };
 

@@ -97,4 +97,11 @@ describe('no serious or critical accessibility violations', () => {
 		await page.waitForLoadState('networkidle');
 		await expectAccessible(page, 'library');
 	});
+
+	it('on the API page, with its examples open', async () => {
+		const page = await anon.newPage();
+		await page.goto(`${baseUrl}/help/api`);
+		await page.locator('[data-route="POST /api/eval"] summary').click();
+		await expectAccessible(page, 'API page');
+	});
 });

@@ -87,7 +87,7 @@ describe('under the Content-Security-Policy', () => {
 	});
 
 	it('the public transcript, the library and the keys page load with no violation', async () => {
-		for (const path of ['/t/sable-boosted-first-law', '/library', '/keys', '/datasets']) {
+		for (const path of ['/t/sable-boosted-first-law', '/library', '/keys', '/datasets', '/help/api']) {
 			await page.goto(baseUrl + path);
 			await page.waitForLoadState('networkidle');
 			expect(await pageViolations(page), path).toEqual([]);

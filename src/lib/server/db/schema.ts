@@ -287,7 +287,12 @@ export const apiKeys = sqliteTable('api_keys', {
 	hash: text('hash').notNull().unique(),
 	prefix: text('prefix').notNull(),
 	lastUsedAt: integer('last_used_at', { mode: 'timestamp_ms' }),
-	createdAt: createdAt()
+	createdAt: createdAt(),
+	// --- scripting: per-key limits (additive). A script's key has its own request budget per minute, and may
+	// stop working on a chosen date; keys made before these columns get the default budget and never expire.
+	perMinute: integer('per_minute').notNull().default(120),
+	expiresAt: integer('expires_at', { mode: 'timestamp_ms' })
+	// --- end scripting
 });
 
 export const MAIL_KINDS = ['invite', 'reset', 'confirm', 'other'] as const;

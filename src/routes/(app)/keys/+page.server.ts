@@ -1,6 +1,7 @@
 import { redirect } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 import { listKeys } from '$lib/server/keys';
+import { DEFAULT_KEY_PER_MINUTE, MAX_KEY_PER_MINUTE } from '$lib/server/auth/apikey';
 import { listSessions } from '$lib/server/auth/sessions';
 
 export const load: PageServerLoad = ({ locals, url }) => {
@@ -10,6 +11,8 @@ export const load: PageServerLoad = ({ locals, url }) => {
 		keys: listKeys(user),
 		sessions: listSessions(user.id, locals.session?.id),
 		canCreate: user.role !== 'reader',
+		defaultPerMinute: DEFAULT_KEY_PER_MINUTE,
+		maxPerMinute: MAX_KEY_PER_MINUTE,
 		origin: url.origin
 	};
 };

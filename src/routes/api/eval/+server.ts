@@ -1,15 +1,10 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import { api, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad } from '$lib/server/pads';
 import { evaluateInPad, evaluateStateless, type EvalOptions, type EvalReply } from '$lib/server/eval/service';
 import { clientGone } from '$lib/server/eval/disconnect';
-
-const bodySchema = z.object({
-	input: z.string().max(100_000, 'input is far over the 2000-character limit'),
-	pad: z.string().min(1).max(64).optional()
-});
+import { evalBodySchema } from '$lib/server/api-schemas';
 
 /**
  * POST /api/eval. With `Accept: application/x-ndjson` the answer streams: `{"progress":{done,total}}` lines
@@ -19,7 +14,7 @@ const bodySchema = z.object({
  */
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
-	const { input, pad } = await readBody(event, bodySchema);
+	const { input, pad } = await readBody(event, evalBodySchema);
 	const padOf = pad ? () => findOwnPad(user, pad) : undefined;
 	padOf?.(); // 404 before anything runs
 	const run = (opts: EvalOptions): Promise<EvalReply> =>

@@ -1,9 +1,9 @@
-import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireUser, requireWriter } from '$lib/server/auth/guards';
 import { deletePad, findOwnPad, findReadablePad, padSteps, renamePad, setValidityTol } from '$lib/server/pads';
-import { attemptView, padView, stepView, titleSchema, validityTolSchema } from '$lib/server/pad-view';
+import { attemptView, padView, stepView } from '$lib/server/pad-view';
 import { padAttempts } from '$lib/server/steps';
+import { padChangeSchema } from '$lib/server/api-schemas';
 
 /**
  * GET: the owner, or a reader or member invited by e-mail. Anyone else gets the same 404 as a missing id.
@@ -24,12 +24,7 @@ export const GET = api((event) => {
 export const PATCH = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
-	const body = await readBody(
-		event,
-		z
-			.object({ title: titleSchema.optional(), validityTol: validityTolSchema.nullable().optional() })
-			.refine((b) => b.title !== undefined || b.validityTol !== undefined, 'Give a title or a validityTol.')
-	);
+	const body = await readBody(event, padChangeSchema);
 	let next = pad;
 	if (body.title !== undefined) {
 		renamePad(pad, body.title);

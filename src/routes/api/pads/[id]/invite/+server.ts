@@ -1,9 +1,8 @@
-import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
-import { emailSchema } from '$lib/server/auth/accounts';
 import { findOwnPad } from '$lib/server/pads';
 import { invitePerson } from '$lib/server/invites';
+import { emailBodySchema } from '$lib/server/api-schemas';
 
 /**
  * POST {email}: mails a single-use invitation link to that address; nothing is granted until someone accepts
@@ -12,7 +11,7 @@ import { invitePerson } from '$lib/server/invites';
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
-	const { email } = await readBody(event, z.object({ email: emailSchema }));
+	const { email } = await readBody(event, emailBodySchema);
 	const { invitation, mail } = await invitePerson(pad, user, email, event.getClientAddress());
 	return ok({ mail: { status: mail.status }, invitation });
 });

@@ -1,13 +1,8 @@
-import { z } from 'zod';
 import { api, ok, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad } from '$lib/server/pads';
-import { NOTE_MAX, createShare, listShares, shareUrl } from '$lib/server/transcripts';
-
-const shareSchema = z.object({
-	expiresInDays: z.number().int().min(1).max(365).optional(),
-	note: z.string().max(NOTE_MAX, `A note has at most ${NOTE_MAX} characters.`).optional()
-});
+import { createShare, listShares, shareUrl } from '$lib/server/transcripts';
+import { shareSchema } from '$lib/server/api-schemas';
 
 /** POST {expiresInDays?, note?}: a new snapshot of the pad as it is now, behind a read-only link (owner only) → 201 {slug, url, expiresAt, note}. */
 export const POST = api(async (event) => {

@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import { api, failure, ok, readBody } from '$lib/server/http';
 import { requireUser, requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad, findReadablePad } from '$lib/server/pads';
 import { stepView, versionView } from '$lib/server/pad-view';
-import { findStep, hideStep, nameStep, stepNameSchema, stepVersions } from '$lib/server/steps';
+import { findStep, hideStep, nameStep, stepVersions } from '$lib/server/steps';
 import { rerunInPad } from '$lib/server/eval/service';
-import { figureLabelsPatchSchema, setFigureLabels } from '$lib/server/figure-labels';
+import { setFigureLabels } from '$lib/server/figure-labels';
 import { clientGone } from '$lib/server/eval/disconnect';
+import { stepChangeSchema, stepRerunSchema } from '$lib/server/api-schemas';
 
 function stepNumber(raw: string | undefined): number {
 	const n = Number(raw);
@@ -31,10 +31,7 @@ export const PATCH = api(async (event) => {
 	const user = requireWriter(event);
 	const pad = findOwnPad(user, event.params.id!);
 	let step = findStep(pad, stepNumber(event.params.n));
-	const body = await readBody(
-		event,
-		z.object({ hidden: z.boolean().optional(), name: stepNameSchema.nullable().optional(), figureLabels: figureLabelsPatchSchema.optional() }).strict()
-	);
+	const body = await readBody(event, stepChangeSchema);
 	if (body.hidden !== undefined) step = hideStep(pad, step, body.hidden);
 	if (body.name !== undefined) step = nameStep(pad, step, body.name);
 	if (body.figureLabels !== undefined) step = setFigureLabels(step, body.figureLabels);
@@ -48,7 +45,7 @@ export const PATCH = api(async (event) => {
 export const POST = api(async (event) => {
 	const user = requireWriter(event);
 	const n = stepNumber(event.params.n);
-	const { input } = await readBody(event, z.object({ input: z.string().min(1).max(100_000) }));
+	const { input } = await readBody(event, stepRerunSchema);
 	const padOf = () => findOwnPad(user, event.params.id!);
 	findStep(padOf(), n); // 404 before anything runs
 	const gone = clientGone(event);
