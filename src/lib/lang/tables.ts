@@ -13,7 +13,7 @@ import type { Point, SeriesTerms, VerbSpec } from './verbs/index';
 import { DEFAULT_VALIDITY_TOL } from './verbs/validity';
 
 export function buildTable(
-	spec: Exclude<VerbSpec, { kind: 'series' }>,
+	spec: Exclude<VerbSpec, { kind: 'series' | 'table' }>,
 	xKey: string,
 	xs: (Scalar | undefined)[],
 	orders: Order[],
