@@ -155,3 +155,54 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 		}
 	};
 }
+
+/** Reference curves for a plotted growth curve ΔA(t) on [t0, t1] (user's units), each as points of a polyline. */
+export interface GrowthGuides {
+	/** the saturated value: the static brane's ΔA(l), a horizontal line over [t0, t1] */
+	thermal: [number, number][];
+	/** the early-time law (m/2) t² over the early part only, 0 ≤ t ≤ min(t1, zh/2, t_c/4) */
+	early: [number, number][];
+	/** slope 2 v_E/zh^{d−1} through the curve at its steepest point before saturation, from ΔA = 0 to the thermal value */
+	linear: [number, number][];
+	/** where the linear line touches the curve */
+	touch: { t: number; dA: number; slope: number };
+}
+
+/**
+ * The comparison lines of a growth curve (PHYSICS.md, "Quench"; Liu & Suh 2014): the thermal value, the early law
+ * and the linear-growth line at the tsunami slope, drawn through the curve where its own slope is largest (the
+ * linear regime, as `growth` finds it), clipped to the plotted range.
+ */
+export function growthGuides(d: number, zh: number, l: number, t0: number, t1: number): GrowthGuides {
+	const g = analyseGrowth(d, zh, l);
+	const sat = g.saturation.dA;
+	const lo = Math.min(t0, t1);
+	const hi = Math.max(t0, t1);
+	const thermal: [number, number][] = [
+		[lo, sat],
+		[hi, sat]
+	];
+	const m2 = g.early.predicted;
+	const eEnd = Math.min(hi, 0.5 * zh, 0.25 * g.tc.value);
+	const eStart = Math.max(lo, 0);
+	const early: [number, number][] = [];
+	if (eEnd > eStart) {
+		for (let k = 0; k <= 16; k++) {
+			const t = eStart + ((eEnd - eStart) * k) / 16;
+			early.push([t, m2 * t * t]);
+		}
+	}
+	const slope = g.linear.predicted;
+	const ts = g.linear.atTime;
+	const at = hrtDeltaArea(d, zh, l, ts).dA;
+	const a = Math.max(lo, ts - at / slope);
+	const b = Math.min(hi, ts + (sat - at) / slope);
+	const linear: [number, number][] =
+		b > a
+			? [
+					[a, at + slope * (a - ts)],
+					[b, at + slope * (b - ts)]
+				]
+			: [];
+	return { thermal, early, linear, touch: { t: ts, dA: at, slope } };
+}
