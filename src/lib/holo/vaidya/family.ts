@@ -125,6 +125,17 @@ function turningPoint(S: Setup, um: number): number {
 	return lo;
 }
 
+/**
+ * Whether the surface (z*, ζ) exists (P > 0 outside the shell, and a turning point for a climbing one): the same
+ * tests as surfaceAt without its integrals, so the family's edge can be located to rounding for a few μs.
+ */
+export function surfaceExists(d: number, zstar: number, zeta: number): boolean {
+	const S = setup(d, zstar, zeta);
+	const um = minimumOfP(d, S.mu);
+	if (!(pAt(S, Math.min(um, zeta)) > 0)) return false;
+	return S.a > 1 ? Number.isFinite(turningPoint(S, um)) : true;
+}
+
 /** The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). */
 export function surfaceAt(d: number, zstar: number, zeta: number): Surface | null {
 	const S = setup(d, zstar, zeta);
