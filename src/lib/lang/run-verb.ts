@@ -54,6 +54,10 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const span = swept?.value ?? sorted.orderKey!.value;
 		throw new LangError(`${verb} shows one series: give one value of each key`, span.start, span.end);
 	}
+	if (spec.kind === 'table' && (orders.length > 1 || swept || s.sweep)) {
+		const span = swept?.value ?? sorted.orderKey?.value ?? verbSpan;
+		throw new LangError(`${verb} shows one surface: give one value of each key`, span.start, span.end);
+	}
 	// a record or check verb with several orders and nothing else swept sweeps the order itself
 	let xKey = swept ? canonicalKey(swept.key) : mainKey(sorted.form.keys);
 	let xs: (Scalar | undefined)[] = swept ? allValues(swept, bres, qres) : [mainValue(xKey, qres.values, sorted.quantityKeys)];
@@ -156,6 +160,22 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			order: n
 		});
 		ref = { fields: Object.fromEntries(st.terms.map((t) => [`a${t.k}`, t.coeff])), order: n };
+	} else if (spec.kind === 'table') {
+		const p = call(xs[0], () => pointAt(xs[0], orders[0]!));
+		const tab = call(xs[0], () => spec.at(p));
+		tick();
+		const argText = Object.entries(argsOf(p.q))
+			.map(([k, v]) => `${k}=${shortNumber(v)}`)
+			.join(' ');
+		results.push({
+			kind: 'table',
+			label: `${sym}${argText ? ` (${argText})` : ''} · ${bulkText}`,
+			columns: tab.columns,
+			rows: tab.rows,
+			plot: { x: tab.x ?? tab.columns[0]!, show: true },
+			...(tab.note ? { note: tab.note } : {})
+		});
+		ref = { fields: { ...(tab.fields ?? {}) } };
 	} else if (!s.sweep && !orderSweep && xs.length === 1 && orders.length === 1) {
 		const out = onePoint(
 			spec,
@@ -177,6 +197,10 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 			const validity = validityHints(orders, (o) => call(xs[0], () => pointAt(xs[0], o)));
 			if (Object.keys(validity).length) table.plot = { ...table.plot!, validity, tol: validityTol };
 		}
+		if (plotted && spec.guides && !orderSweep && xs.every((x) => typeof x === 'number')) {
+			const guides = call(xs[0], () => spec.guides!(pointAt(xs[0], orders[0]!), xKey, xs as number[]));
+			if (guides?.length) table.plot = { ...table.plot!, guides };
+		}
 		results.push(table);
 		ref = tableRef(table);
 	}
@@ -185,7 +209,7 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 
 /** One point, one order: the verb's answer as a scalar, record or check result, and what `#n` exposes. */
 function onePoint(
-	spec: Exclude<VerbSpec, { kind: 'series' }>,
+	spec: Exclude<VerbSpec, { kind: 'series' | 'table' }>,
 	p: Point,
 	x: Scalar | undefined,
 	call: EngineCall,

@@ -12,7 +12,7 @@ import type { Scalar } from './values';
 import type { Point, SeriesTerms, VerbSpec } from './verbs/index';
 
 export function buildTable(
-	spec: Exclude<VerbSpec, { kind: 'series' }>,
+	spec: Exclude<VerbSpec, { kind: 'series' | 'table' }>,
 	xKey: string,
 	xs: (Scalar | undefined)[],
 	orders: Order[],

@@ -1,18 +1,33 @@
 import { describe, expect, it } from 'vitest';
 import { hrtDeltaArea } from '../../../src/lib/holo/index';
+import { emptyContext, runLine } from '../../../src/lib/lang/evaluate';
+import type { ScalarResult } from '../../../src/lib/lang/result';
 import fx from '../../fixtures/holo/vaidya.json';
 import { expectRel } from './check';
 
 /**
- * The quench engine against its independent reference: tests/fixtures/holo/vaidya_runner.py (mpmath at 32
- * digits, tanh-sinh in z, every extremal surface found from scratch). Through the public API: ΔA of the winner to
- * ≤ 1e-8 relative, and every competing surface the runner found is found here too.
+ * The quench engine against its independent reference: tests/fixtures/holo/vaidya_runner.py (mpmath at 24
+ * digits, tanh-sinh in z, every extremal surface found from scratch). Through the public API (the engine's
+ * hrtDeltaArea and a pad line `darea l=… t=…`): ΔA of the winner to ≤ 1e-8 relative, and every competing surface
+ * the runner found is found here too.
  */
 describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py)', () => {
+	it('the fixture covers d = 2, 3, 4, widths 1–4 and times where three surfaces compete', () => {
+		// 11 of the runner's 15 cases: d = 4 at l = 3, 4 and d = 3 l = 4 t = 2.7 (the runner's own Newton does not
+		// converge next to the family's edge there) did not finish on the loaded machine — vaidya.json says which
+		expect(fx.rows.length).toBeGreaterThanOrEqual(11);
+		expect([...new Set(fx.rows.map((r) => r.d))].sort()).toEqual([2, 3, 4]);
+		expect([...new Set(fx.rows.map((r) => r.l))].sort()).toEqual([1, 2, 3, 4]);
+		expect(fx.rows.filter((r) => r.count >= 3).length).toBeGreaterThanOrEqual(2);
+	});
 	for (const r of fx.rows) {
 		it(`d=${r.d} l=${r.l} t=${r.t} (${r.count} surface${r.count > 1 ? 's' : ''})`, () => {
 			const a = hrtDeltaArea(r.d, 1, r.l, Number(r.t));
 			expectRel(`ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), a.dA, 1e-8, 'mpmath runner');
+			const line = runLine(`use vaidya d=${r.d} zh=1; darea l=${r.l} t=${r.t}`, emptyContext());
+			const v = line.results[1] as ScalarResult;
+			expectRel(`pad line ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), v.value, 1e-8, 'mpmath runner');
+			expect(v.fields?.surfaces).toBe(r.count);
 			expect(a.surfaces.length).toBe(r.count);
 			const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
 			const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));

@@ -74,14 +74,18 @@ function pAt(S: Setup, u: number): number {
 	return S.E2 + (1 - Math.exp(S.lnmu + S.d * lnu)) * Math.expm1(-S.n * lnu);
 }
 
-/** g(u) − g(ut) for g = f(R − 1) = u^{−n} − 1 − μu^{d−n} + μu^d, from ln(u/ut) (exact near the turning point). */
-function pFromTurn(S: Setup, ut: number, lnr: number): number {
+/**
+ * g(u) − g(ut) for g = f(R − 1) = u^{−n} − 1 − μu^{d−n} + μu^d, from ln(u/ut) (exact near the turning point), as
+ * c₀ expm1(−n r) − c₁ expm1((d−n) r) + c₂ expm1(d r) with the powers of ut computed once per surface (turnCoeffs).
+ */
+function pFromTurn(S: Setup, c: Float64Array, lnr: number): number {
+	const { d, n } = S;
+	return c[0] * Math.expm1(-n * lnr) - c[1] * Math.expm1((d - n) * lnr) + c[2] * Math.expm1(d * lnr);
+}
+
+function turnCoeffs(S: Setup, ut: number): Float64Array {
 	const { d, n, mu } = S;
-	return (
-		Math.pow(ut, -n) * Math.expm1(-n * lnr) -
-		mu * Math.pow(ut, d - n) * Math.expm1((d - n) * lnr) +
-		mu * Math.pow(ut, d) * Math.expm1(d * lnr)
-	);
+	return Float64Array.of(Math.pow(ut, -n), mu * Math.pow(ut, d - n), mu * Math.pow(ut, d));
 }
 
 /**
@@ -123,6 +127,17 @@ function turningPoint(S: Setup, um: number): number {
 		else hi = mid;
 	}
 	return lo;
+}
+
+/**
+ * Whether the surface (z*, ζ) exists (P > 0 outside the shell, and a turning point for a climbing one): the same
+ * tests as surfaceAt without its integrals, so the family's edge can be located to rounding for a few μs.
+ */
+export function surfaceExists(d: number, zstar: number, zeta: number): boolean {
+	const S = setup(d, zstar, zeta);
+	const um = minimumOfP(d, S.mu);
+	if (!(pAt(S, Math.min(um, zeta)) > 0)) return false;
+	return S.a > 1 ? Number.isFinite(turningPoint(S, um)) : true;
 }
 
 /** The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). */
@@ -190,12 +205,13 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 		zturn = ut * zstar;
 		fmin = 1 - Math.exp(S.lnmu + S.d * Math.log(ut));
 		const climb = new Float64Array(3);
+		const tc = turnCoeffs(S, ut);
 		const ok2 = integrateAdaptive(
 			(s, o) => {
 				const s2 = s * s;
 				const u = ut - s2;
 				const lnr = Math.log1p(-s2 / ut);
-				const P = E2 === 0 ? 0 : pFromTurn(S, ut, lnr);
+				const P = E2 === 0 ? 0 : pFromTurn(S, tc, lnr);
 				if (!(P > 0)) return false;
 				const sq = Math.sqrt(P);
 				const f = 1 - Math.exp(S.lnmu + S.d * Math.log(u));

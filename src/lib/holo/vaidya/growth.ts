@@ -1,5 +1,6 @@
 import { HoloError } from '../errors';
 import { findRootBrent } from '../numeric/brent';
+import { minimizeBrent } from '../numeric/minimize';
 import { surfacesAt } from './curve';
 import { curveFor, hrtDeltaArea } from './hrt';
 import { surfaceForWidth } from './solve';
@@ -85,34 +86,25 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 	}
 	const idx = pts.findIndex((p) => p.zeta === best.zeta);
 	if (idx > 0 && idx + 1 < pts.length && pts[idx + 1].zeta < zetaSat) {
-		let lo = pts[idx - 1].zeta;
-		let hi = pts[idx + 1].zeta;
-		const gr = (Math.sqrt(5) - 1) / 2;
-		const f = (z: number) => {
-			const s = surfaceForWidth(d, L, z);
-			return s ? { v: slopeOf(s, d), t: s.t } : { v: 0, t: 0 };
-		};
-		let x1 = hi - gr * (hi - lo);
-		let x2 = lo + gr * (hi - lo);
-		let f1 = f(x1);
-		let f2 = f(x2);
-		for (let k = 0; k < 60 && hi - lo > 1e-12 * hi; k++) {
-			if (f1.v > f2.v) {
-				hi = x2;
-				x2 = x1;
-				f2 = f1;
-				x1 = hi - gr * (hi - lo);
-				f1 = f(x1);
-			} else {
-				lo = x1;
-				x1 = x2;
-				f1 = f2;
-				x2 = lo + gr * (hi - lo);
-				f2 = f(x2);
-			}
-		}
-		const top = f1.v > f2.v ? f1 : f2;
-		if (top.v > best.slope) best = { slope: top.v, t: top.t, zeta: 0.5 * (lo + hi) };
+		// Brent's minimiser of −slope on the grid bracket around the largest sampled slope (parabolic steps: ~10
+		// tip solves where golden section to the same 1e−12 took ~60)
+		let top = { v: 0, t: 0, zeta: 0 };
+		let guess = pts[idx].surface?.zstar;
+		minimizeBrent(
+			(z) => {
+				const s = surfaceForWidth(d, L, z, guess);
+				if (!s) return NaN;
+				guess = s.zstar;
+				const v = slopeOf(s, d);
+				if (v > top.v) top = { v, t: s.t, zeta: z };
+				return -v;
+			},
+			pts[idx - 1].zeta,
+			pts[idx + 1].zeta,
+			1e-12,
+			80
+		);
+		if (top.v > best.slope) best = { slope: top.v, t: top.t, zeta: top.zeta };
 	}
 	// the slope just before saturation: 0 when the rising branch ends on the static surface (E → 0)
 	let slopeBefore = 0;
@@ -154,4 +146,55 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 			how: continuous ? 'dΔA/dt → 0 at saturation: continuous' : 'dΔA/dt jumps from the value before saturation to 0: a kink'
 		}
 	};
+}
+
+/** Reference curves for a plotted growth curve ΔA(t) on [t0, t1] (user's units), each as points of a polyline. */
+export interface GrowthGuides {
+	/** the saturated value: the static brane's ΔA(l), a horizontal line over [t0, t1] */
+	thermal: [number, number][];
+	/** the early-time law (m/2) t² over the early part only, 0 ≤ t ≤ min(t1, zh/2, t_c/4) */
+	early: [number, number][];
+	/** slope 2 v_E/zh^{d−1} through the curve at its steepest point before saturation, from ΔA = 0 to the thermal value */
+	linear: [number, number][];
+	/** where the linear line touches the curve */
+	touch: { t: number; dA: number; slope: number };
+}
+
+/**
+ * The comparison lines of a growth curve (PHYSICS.md, "Quench"; Liu & Suh 2014): the thermal value, the early law
+ * and the linear-growth line at the tsunami slope, drawn through the curve where its own slope is largest (the
+ * linear regime, as `growth` finds it), clipped to the plotted range.
+ */
+export function growthGuides(d: number, zh: number, l: number, t0: number, t1: number): GrowthGuides {
+	const g = analyseGrowth(d, zh, l);
+	const sat = g.saturation.dA;
+	const lo = Math.min(t0, t1);
+	const hi = Math.max(t0, t1);
+	const thermal: [number, number][] = [
+		[lo, sat],
+		[hi, sat]
+	];
+	const m2 = g.early.predicted;
+	const eEnd = Math.min(hi, 0.5 * zh, 0.25 * g.tc.value);
+	const eStart = Math.max(lo, 0);
+	const early: [number, number][] = [];
+	if (eEnd > eStart) {
+		for (let k = 0; k <= 16; k++) {
+			const t = eStart + ((eEnd - eStart) * k) / 16;
+			early.push([t, m2 * t * t]);
+		}
+	}
+	const slope = g.linear.predicted;
+	const ts = g.linear.atTime;
+	const at = hrtDeltaArea(d, zh, l, ts).dA;
+	const a = Math.max(lo, ts - at / slope);
+	const b = Math.min(hi, ts + (sat - at) / slope);
+	const linear: [number, number][] =
+		b > a
+			? [
+					[a, at + slope * (a - ts)],
+					[b, at + slope * (b - ts)]
+				]
+			: [];
+	return { thermal, early, linear, touch: { t: ts, dA: at, slope } };
 }

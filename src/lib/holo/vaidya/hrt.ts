@@ -39,9 +39,24 @@ export interface HrtAnswer {
 const CACHE = new Map<string, Curve>();
 const CACHE_MAX = 16;
 
-/** Forgets the cached family curves (benchmarks time cold points with it). */
+/** The brane strip of the saturated candidate per (d, zh, l): a growth sweep asks it at every late time. */
+const STATIC = new Map<string, ReturnType<typeof solveStrip>>();
+
+/** Forgets the cached family curves and static strips (benchmarks time cold points with it). */
 export function clearQuenchCache(): void {
 	CACHE.clear();
+	STATIC.clear();
+}
+
+function staticStrip(d: number, zh: number, l: number): ReturnType<typeof solveStrip> {
+	const key = `${d}:${zh}:${l}`;
+	let st = STATIC.get(key);
+	if (!st) {
+		st = solveStrip(makeBrane({ d, zh }).slice, l);
+		if (STATIC.size >= CACHE_MAX) STATIC.delete(STATIC.keys().next().value as string);
+		STATIC.set(key, st);
+	}
+	return st;
 }
 
 /** The family curve of width l/zh (cached: a growth sweep at one width reuses it for every time). */
@@ -101,7 +116,7 @@ export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAn
 	const cands = surfacesAt(curve, T).map((s) => fromFamily(s, zh, d));
 	const tsat = curve.static.tsat * zh;
 	if (T >= curve.static.tsat) {
-		const st = solveStrip(makeBrane({ d, zh }).slice, l);
+		const st = staticStrip(d, zh, l);
 		cands.push({ kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 });
 	}
 	if (cands.length === 0) {

@@ -27,6 +27,10 @@ export function integrateAdaptive(
 ): boolean {
 	const rule = gaussLegendre(N);
 	const tmp = new Float64Array(k);
+	// the halves of each level: the recursion is depth-first and a level's halves are only read before its
+	// children run (left) or by the right child itself, so one pair per depth serves every panel (no garbage)
+	const halves: Float64Array[][] = [];
+	const pairAt = (depth: number): Float64Array[] => (halves[depth] ??= [new Float64Array(k), new Float64Array(k)]);
 	let calls = 0;
 	const sc = scale ?? new Float64Array(k);
 	function panel(lo: number, hi: number, into: Float64Array): boolean {
@@ -44,8 +48,7 @@ export function integrateAdaptive(
 	}
 	function recurse(lo: number, hi: number, whole: Float64Array, depth: number): boolean {
 		const mid = 0.5 * (lo + hi);
-		const left = new Float64Array(k);
-		const right = new Float64Array(k);
+		const [left, right] = pairAt(depth);
 		if (!panel(lo, mid, left) || !panel(mid, hi, right)) return false;
 		let ok = true;
 		for (let j = 0; j < k; j++) {

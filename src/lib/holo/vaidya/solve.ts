@@ -1,5 +1,5 @@
 import { vacuumWidthFactor } from '../strip';
-import { surfaceAt, type Surface } from './family';
+import { surfaceAt, surfaceExists, type Surface } from './family';
 import { integrateAdaptive } from './quad';
 
 /** ln(l(z*)/l) past the edge of the family (no surface): l grows without bound towards that edge (the surface
@@ -11,6 +11,11 @@ const PAST_EDGE = 40;
  * The surface of width l (units zh = 1) that crosses the shell at fraction ζ: a safeguarded secant in x = ln z*
  * on ln(l(x)/l), from `guess` (the previous ζ's tip in a scan, else the vacuum tip l/W₀). At fixed ζ the width
  * grows monotonically with the tip up to the family's edge (seen in every scan of the tests).
+ *
+ * Near that edge (the surfaces of the linear-growth regime, and every climbing surface of a wide strip) the width
+ * diverges like −C ln(x_e − x), so the tip sits within 1e−10 or less of x_e and a secant in x crawls there by
+ * bisection. Once a step lands past the edge, x_e is located to rounding by bisection on the integral-free
+ * existence test (surfaceExists), and the search goes on in y = ln(x_e − x), in which the width is close to linear.
  */
 export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
 	const lnl = Math.log(l);
@@ -36,6 +41,7 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 		const b = g(xb);
 		if (!b.s) {
 			hi = Math.min(hi, xb);
+			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, zeta, g, a, xa, lo, xb);
 			xb = 0.5 * (xa + xb);
 			continue;
 		}
@@ -57,6 +63,63 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 		}
 	}
 	return a.s;
+}
+
+type Probe = (x: number) => { v: number; s: Surface | null };
+
+/**
+ * The rest of surfaceForWidth once the family's edge x_e lies in (x_a, x_past): x_e by bisection on the existence
+ * test, then a safeguarded secant on ln(l/l_target) in y = ln(x_e − x) (the width's −C ln(x_e − x) divergence is
+ * linear there). `lo` is a tip known to be too narrow (or −∞). A width beyond the doubles' reach of the edge
+ * (x_e − x at rounding) returns the widest surface found.
+ */
+function nearEdge(d: number, zeta: number, g: Probe, a: { v: number; s: Surface | null }, xa: number, lo: number, xPast: number): Surface | null {
+	let ok = xa;
+	let bad = xPast;
+	for (let k = 0; k < 200 && bad - ok > 4e-16 * Math.max(1, Math.abs(ok)); k++) {
+		const m = 0.5 * (ok + bad);
+		if (surfaceExists(d, Math.exp(m), zeta)) ok = m;
+		else bad = m;
+	}
+	const xe = bad;
+	const yMin = Math.log(4e-16 * Math.max(1, Math.abs(xe)));
+	const yOf = (x: number) => Math.log(xe - x);
+	// bracket in y: yWide (width above the target: nearer the edge) < yNarrow
+	let yNarrow = Number.isFinite(lo) ? yOf(lo) : Infinity;
+	let yWide = -Infinity;
+	let ya = yOf(xa);
+	let pa = a;
+	if (pa.v < 0) yNarrow = Math.min(yNarrow, ya);
+	else yWide = Math.max(yWide, ya);
+	let best = pa;
+	let yb = Math.max(yMin, ya - (pa.v < 0 ? 2 : -2));
+	for (let k = 0; k < 100; k++) {
+		const pb = g(xe - Math.exp(yb));
+		if (!pb.s) {
+			// rounding put this tip past the edge: treat as wider than any target
+			yWide = Math.max(yWide, yb);
+			yb = Number.isFinite(yNarrow) ? 0.5 * (yb + yNarrow) : yb + 1;
+			continue;
+		}
+		if (Math.abs(pb.v) < Math.abs(best.v)) best = pb;
+		if (Math.abs(pb.v) < 1e-15) return pb.s;
+		if (pb.v < 0) yNarrow = Math.min(yNarrow, yb);
+		else yWide = Math.max(yWide, yb);
+		let yn = pb.v === pa.v ? NaN : yb - (pb.v * (yb - ya)) / (pb.v - pa.v);
+		const lower = Math.max(yWide, yMin);
+		if (!(yn > lower && yn < yNarrow)) {
+			if (Number.isFinite(yNarrow) && yWide > -Infinity) yn = 0.5 * (yWide + yNarrow);
+			else if (pb.v < 0) yn = Math.max(yMin, yb - 2);
+			else yn = yb + 2;
+		}
+		if (pb.v < 0 && yb <= yMin && yn <= yMin) return best.s; // the width needs a tip closer to the edge than rounding
+		// the tips of yn and yb are the same double (or next to it): rounding in z* is reached
+		if (Math.abs(Math.exp(yn) - Math.exp(yb)) <= 4.5e-16 * Math.max(1, Math.abs(xe))) return best.s;
+		ya = yb;
+		pa = pb;
+		yb = yn;
+	}
+	return best.s;
 }
 
 /** One point of the family at fixed width: ζ = 1 is the static brane surface (reached at t = t_sat). */

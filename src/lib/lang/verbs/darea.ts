@@ -1,3 +1,4 @@
+import { growthGuides } from './growth';
 import { ballDeltaArea, quenchAt, quenchFields, stripDeltaArea, valueAt, withSolitonPhase } from './point';
 import { defineVerb } from './types';
 
@@ -7,6 +8,7 @@ export const darea = defineVerb({
 	series: true,
 	forms: { strip: { keys: ['l', 'o', 'phase', 't'], required: ['l'] }, ball: { keys: ['R', 'o'], required: ['R'] } },
 	symbol: { text: 'ΔA', tex: '\\Delta A' },
+	guides: growthGuides,
 	help: {
 		summary: 'ΔA = A_fin(bulk) − A_fin(vacuum) at the same width',
 		method:

@@ -1,4 +1,5 @@
-import { defineVerb } from './types';
+import type { PlotGuide } from '../result';
+import { defineVerb, type Point } from './types';
 
 export const growth = defineVerb({
 	name: 'growth',
@@ -43,3 +44,16 @@ export const growth = defineVerb({
 		};
 	}
 });
+
+/**
+ * The plot guides of a growth curve (`sweep darea l=… t=…` in vaidya): the thermal value, the early law (m/2)t² and
+ * the linear-growth line at slope 2 v_E/zh^{d−1} (PHYSICS.md, "Quench"). Only for a sweep over t in vaidya.
+ */
+export function growthGuides(p: Point, xKey: string, xs: number[]): PlotGuide[] | undefined {
+	if (p.bulk.name !== 'vaidya' || xKey !== 't' || p.shape !== 'strip' || xs.length < 2) return undefined;
+	const g = p.holo.growthGuides(p.bulk.d, p.bulk.horizon!, p.q.l!, Math.min(...xs), Math.max(...xs));
+	const out: PlotGuide[] = [{ label: '\\Delta A_{\\text{thermal}}', points: g.thermal }];
+	if (g.early.length) out.push({ label: '\\tfrac{m}{2}\\,t^2', points: g.early });
+	if (g.linear.length) out.push({ label: '2 v_E\\, t / z_h^{d-1}', points: g.linear });
+	return out;
+}

@@ -14,6 +14,7 @@ import { growth } from './growth';
 import { mi } from './mi';
 import { mu } from './mu';
 import { phases } from './phases';
+import { profile } from './profile';
 import { resum } from './resum';
 import { stress } from './stress';
 import { tent } from './tent';
@@ -23,7 +24,7 @@ import { validity } from './validity';
 import { width } from './width';
 import { zstar } from './zstar';
 
-export type { VerbSpec, VerbKind, VerbForm, VerbHelp, Point, ScalarAt, RecordAt, CheckAt, SeriesTerms } from './types';
+export type { VerbSpec, VerbKind, VerbForm, VerbHelp, Point, ScalarAt, RecordAt, CheckAt, SeriesTerms, TableAt } from './types';
 export { defineVerb } from './types';
 
 /** In the order help and completion list them. */
@@ -45,7 +46,8 @@ const BUILT_IN: readonly VerbSpec[] = [
 	mi,
 	resum,
 	phases,
-	growth
+	growth,
+	profile
 ];
 
 const registry = new Map<string, VerbSpec>(BUILT_IN.map((v) => [v.name, v]));

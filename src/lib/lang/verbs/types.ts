@@ -8,7 +8,7 @@
  */
 import type { Engine } from '../engine';
 import type { BallTrail, Bulk } from '../../holo/index';
-import type { Order } from '../result';
+import type { Order, PlotGuide } from '../result';
 
 export interface VerbForm {
 	/** quantity keys this form takes (bulk keys are always allowed) */
@@ -77,6 +77,17 @@ export interface SeriesTerms {
 	scale: 'z_h' | 'z_p' | '1';
 }
 
+/** A table verb's answer at one point (a surface profile): columns, numeric rows, which column the plot's x is. */
+export interface TableAt {
+	columns: string[];
+	rows: number[][];
+	/** the plot's x column (the first column when absent) */
+	x?: string;
+	note?: string;
+	/** what `#n.field` exposes of the answer (the table itself has many rows) */
+	fields?: Record<string, number>;
+}
+
 export interface CheckAt {
 	/** the relation checked, for the label */
 	relation?: string;
@@ -118,6 +129,11 @@ interface VerbBase {
 	wholeOrder?: boolean;
 	/** the symbol a table's label uses when it differs by bulk (μ_Q on the charged brane) */
 	tableSymbol?: (bulkName: string, params: Record<string, number | string>) => string | undefined;
+	/**
+	 * Reference curves for the plot of a sweep of this verb over `xKey` (a growth curve's thermal value, early law
+	 * and linear line): asked once per plotted sweep at its first point, with the swept values; none = undefined.
+	 */
+	guides?: (p: Point, xKey: string, xs: number[]) => PlotGuide[] | undefined;
 }
 
 export interface ScalarVerb extends VerbBase {
@@ -139,7 +155,13 @@ export interface CheckVerb extends VerbBase {
 	at(p: Point): CheckAt;
 }
 
-export type VerbSpec = ScalarVerb | RecordVerb | SeriesVerb | CheckVerb;
+/** One table per point (a profile): sweeps and orders do not apply. */
+export interface TableVerb extends VerbBase {
+	kind: 'table';
+	at(p: Point): TableAt;
+}
+
+export type VerbSpec = ScalarVerb | RecordVerb | SeriesVerb | CheckVerb | TableVerb;
 export type VerbKind = VerbSpec['kind'];
 
 /** Identity, so a verb module's object literal is checked (and its `at` typed) by its kind. */

@@ -1,0 +1,89 @@
+#!/usr/bin/env node
+// Quench benchmarks (src/lib/holo/vaidya): one HRT ΔA(t) point cold (the family curve of its width is built) and
+// warm (the curve cached, as every later point of a sweep), growth sweeps at one width as `sweep darea l=… t=…`
+// runs them, and the mpmath fixture runner's time per point beside them. Prints one JSON line per benchmark and
+// updates the "quench" section of bench/RESULTS.md. `npm run bench -- quench`.
+import { build } from 'esbuild';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..');
+const outfile = join(mkdtempSync(join(tmpdir(), 'bulkpad-quench-')), 'holo.mjs');
+await build({
+	stdin: { contents: `export * from './src/lib/holo/index.ts';`, resolveDir: root, loader: 'ts' },
+	bundle: true,
+	format: 'esm',
+	platform: 'neutral',
+	mainFields: ['module', 'main'],
+	outfile,
+	nodePaths: [join(root, 'node_modules')],
+	logLevel: 'error'
+});
+const H = await import(pathToFileURL(outfile).href);
+
+/** Median of repeated runs after a warm-up (JIT), in µs; `fn` is timed whole. */
+function bench(name, fn, { minRuns = 5, minMs = 300, warm = 2 } = {}) {
+	for (let i = 0; i < warm; i++) fn();
+	const times = [];
+	const t0 = performance.now();
+	while (times.length < minRuns || performance.now() - t0 < minMs) {
+		const a = performance.now();
+		fn();
+		times.push((performance.now() - a) * 1000);
+	}
+	times.sort((x, y) => x - y);
+	const r = { name, median_us: Number(times[times.length >> 1].toFixed(0)), runs: times.length };
+	console.log(JSON.stringify(r));
+	return r;
+}
+
+const sweep = (d, l, T, n) => () => {
+	H.clearQuenchCache();
+	for (let i = 0; i < n; i++) H.hrtDeltaArea(d, 1, l, (T * i) / (n - 1));
+};
+/** The mean time of one point of a sweep whose curve is already built (times 0..T, not including the build). */
+const warmPoints = (d, l, T, n) => () => {
+	for (let i = 0; i < n; i++) H.hrtDeltaArea(d, 1, l, (T * (i + 0.5)) / n);
+};
+
+const results = [];
+const row = (r, goal, per = 1) => results.push({ ...r, goal, per_point_us: per > 1 ? Math.round(r.median_us / per) : undefined });
+row(bench('one ΔA(t) point, cold (d=3 l=2 t=1)', () => (H.clearQuenchCache(), H.hrtDeltaArea(3, 1, 2, 1)), { minRuns: 10 }), '≤ 2 ms');
+row(bench('one ΔA(t) point, cold (d=4 l=4 t=2)', () => (H.clearQuenchCache(), H.hrtDeltaArea(4, 1, 4, 2)), { minRuns: 3 }), '≤ 2 ms');
+H.curveFor(3, 2);
+row(bench('20 ΔA(t) points, curve cached (d=3 l=2 t=0..3)', warmPoints(3, 2, 3, 20)), '', 20);
+H.curveFor(4, 4);
+row(bench('20 ΔA(t) points, curve cached (d=4 l=4 t=0..4)', warmPoints(4, 4, 4, 20), { minRuns: 3 }), '', 20);
+row(bench('growth sweep 60 points, cold (d=3 l=2 t=0..3)', sweep(3, 2, 3, 60)), '≤ 150 ms', 60);
+row(bench('growth sweep 60 points, cold (d=4 l=4 t=0..4)', sweep(4, 4, 4, 60), { minRuns: 3, warm: 1 }), '≤ 150 ms', 60);
+row(bench('growth sweep 200 points, cold (d=3 l=2 t=0..3)', sweep(3, 2, 3, 200), { minRuns: 3, warm: 1 }), 'inside the time budget', 200);
+
+let runner = null;
+try {
+	runner = JSON.parse(readFileSync(join(root, 'tests/fixtures/holo/vaidya.json'), 'utf8'));
+} catch {
+	// the fixture is not generated here
+}
+
+const lines = [
+	'<!-- quench:start -->',
+	'## quench (src/lib/holo/vaidya, `npm run bench -- quench`)',
+	'',
+	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up; "cold" clears the family-curve cache first. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times).`,
+	'',
+	'| benchmark | median (µs) | per point (µs) | runs | goal |',
+	'|---|---|---|---|---|',
+	...results.map((r) => `| ${r.name} | ${r.median_us} | ${r.per_point_us ?? ''} | ${r.runs} | ${r.goal} |`),
+	'',
+	runner
+		? `mpmath fixture runner (tests/fixtures/holo/vaidya_runner.py, 24 digits, every surface from scratch): ${runner.secondsPerPoint} s per (l, t) point, mean over ${runner.rows.length} rows`
+		: 'mpmath fixture runner: vaidya.json not generated',
+	'<!-- quench:end -->'
+];
+const file = join(root, 'bench/RESULTS.md');
+let text = existsSync(file) ? readFileSync(file, 'utf8') : '# Benchmark results\n';
+const re = /<!-- quench:start -->[\s\S]*<!-- quench:end -->/;
+text = re.test(text) ? text.replace(re, lines.join('\n')) : `${text.trimEnd()}\n\n${lines.join('\n')}\n`;
+writeFileSync(file, text);

@@ -1,0 +1,73 @@
+/**
+ * Plot guides of a growth sweep (`sweep darea l=… t=…` in vaidya): the data the paper helper draws. Sources:
+ * the thermal value is the static brane's ΔA (PHYSICS.md, "Quench": late times equal the brane); the early law
+ * ΔA → (m/2) t², m = zh^{−d}, and the linear slope 2 v_E/zh^{d−1} with v_E = (η−1)^{(η−1)/2}/η^{η/2},
+ * η = 2(d−1)/d (Liu & Suh, PRD 89 (2014) 066012).
+ */
+import { describe, expect, it } from 'vitest';
+import * as holo from '../../../src/lib/holo/index';
+import type { ScalarResult, TableResult } from '../../../src/lib/lang/result';
+import { expectAbs, expectRel } from '../holo/check';
+import { Pad } from './pad';
+
+const vE = (d: number) => {
+	const eta = (2 * (d - 1)) / d;
+	return Math.pow(eta - 1, (eta - 1) / 2) / Math.pow(eta, eta / 2);
+};
+
+function guidesOf(line: string) {
+	const out = new Pad().run(line);
+	const t = out.results.find((r) => r.kind === 'table') as TableResult;
+	return { table: t, guides: t.plot?.guides ?? [] };
+}
+
+describe('growth sweep guides', () => {
+	for (const [d, zh, l, t1] of [
+		[3, 1, 2, 3],
+		[2, 1, 2, 2],
+		[4, 2, 3, 6] // zh ≠ 1: every guide scales (ΔA ∝ zh^{2−d}, t ∝ zh)
+	] as const) {
+		it(`d=${d} zh=${zh} l=${l}: thermal value, early law and linear line`, () => {
+			const { table, guides } = guidesOf(`use vaidya d=${d} zh=${zh}; sweep darea l=${l} t=0..${t1}:13`);
+			expect(table.plot?.show).toBe(true);
+			expect(guides.map((g) => g.label)).toEqual(['\\Delta A_{\\text{thermal}}', '\\tfrac{m}{2}\\,t^2', '2 v_E\\, t / z_h^{d-1}']);
+			const [thermal, early, linear] = guides;
+
+			// thermal: the brane's own ΔA(l), across the plotted range
+			const brane = (new Pad().run(`use brane d=${d} zh=${zh}; darea l=${l}`).results[1] as ScalarResult).value;
+			expect(thermal.points).toEqual([
+				[0, brane],
+				[t1, brane]
+			]);
+			// and the sweep's last row (saturated) is that value
+			expect(table.rows[table.rows.length - 1][1]).toBe(brane);
+
+			// early: (m/2) t² on the early part only (t ≤ zh/2), and the engine's curve follows it there
+			const m = Math.pow(zh, -d);
+			for (const [t, y] of early.points) expectRel(`(m/2)t² at t=${t}`, 0.5 * m * t * t, y, 1e-15, 'Liu & Suh 2014');
+			const tEnd = early.points[early.points.length - 1][0];
+			expect(tEnd).toBeLessThanOrEqual(zh / 2 + 1e-15);
+			expect(tEnd).toBeGreaterThan(0);
+			expect(early.points[0]).toEqual([0, 0]);
+			const tiny = 0.002 * zh;
+			expectRel('engine at small t', 0.5 * m * tiny * tiny, holo.hrtDeltaArea(d, zh, l, tiny).dA, 1e-2, 'Liu & Suh 2014 (early law)');
+
+			// linear: slope 2 v_E/zh^{d−1}, touching the curve at its steepest point, from ΔA = 0 up to the thermal value
+			const [[xa, ya], [xb, yb]] = linear.points;
+			expectRel('slope', (2 * vE(d)) / Math.pow(zh, d - 1), (yb - ya) / (xb - xa), 1e-12, 'Liu & Suh 2014');
+			const g = holo.growthGuides(d, zh, l, 0, t1);
+			const gr = holo.analyseGrowth(d, zh, l);
+			expectRel('touch time', gr.linear.atTime, g.touch.t, 1e-15, 'growth’s steepest point');
+			expectRel('touches the curve', holo.hrtDeltaArea(d, zh, l, g.touch.t).dA, ya + ((yb - ya) * (g.touch.t - xa)) / (xb - xa), 1e-9, 'the line passes through the curve there');
+			expect(xa).toBeGreaterThanOrEqual(0);
+			expect(xb).toBeLessThanOrEqual(t1);
+			if (xa > 0) expectAbs('starts at ΔA = 0', 0, ya, 1e-12 * brane, 'clipped where the line crosses zero');
+			if (xb < t1) expectRel('ends at the thermal value', brane, yb, 1e-12, 'clipped at saturation');
+		});
+	}
+	it('only for a sweep over t in vaidya', () => {
+		expect(guidesOf('use vaidya d=3; sweep darea l=1..2:3 t=1').guides).toEqual([]);
+		expect(guidesOf('use brane d=3; sweep darea l=1..2:3').guides).toEqual([]);
+		expect(guidesOf('use vaidya d=3; sweep zstar l=2 t=0..2:5').guides).toEqual([]);
+	});
+});
