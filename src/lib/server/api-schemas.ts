@@ -29,7 +29,8 @@ export const evalBodySchema = z.object({
 export const padCreateSchema = z.object({ title: titleSchema.optional() });
 export const padChangeSchema = z
 	.object({ title: titleSchema.optional(), validityTol: validityTolSchema.nullable().optional() })
-	.refine((b) => b.title !== undefined || b.validityTol !== undefined, 'Give a title or a validityTol.');
+	.refine((b) => b.title !== undefined || b.validityTol !== undefined, 'Give a title or a validityTol.')
+	.meta({ examples: [{ title: 'Boosted brane: first law at order 3' }, { validityTol: 1e-4 }] });
 export const attemptDismissSchema = z.object({ dismissed: z.boolean() });
 export const shareSchema = z.object({
 	expiresInDays: z.number().int().min(1).max(365).optional(),

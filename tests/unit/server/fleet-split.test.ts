@@ -35,7 +35,8 @@ describe('a split sweep merges to the whole line exactly', () => {
 		// a stateless script picks its bulk on the line itself: every chunk repeats the settings
 		['use brane d=3 zh=2; sweep darea l=0.1..1:40', emptyContext()],
 		['use boosted d=4 v=0.3; units geo G=2; sweep dentropy l=0.1..1:24', emptyContext()],
-		['use vaidya d=3 zh=1; sweep dentropy l=2 t=0..3:24', emptyContext()]
+		['use vaidya d=3 zh=1; sweep dentropy l=2 t=0..3:24', emptyContext()],
+		['use vaidya d=3 zh=1; sweep darea l=2 t=-0.5..3:40', emptyContext()]
 	])('%s', (input, ctx) => {
 		const { chunks, whole, merged } = wholeAndMerged(input, ctx);
 		expect(chunks.length).toBeGreaterThan(1);

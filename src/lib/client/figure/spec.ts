@@ -87,11 +87,14 @@ function tableCurves(t: TableResult, step?: number, offset = 0): Curve[] {
 	}));
 }
 
-/** The table's guides with finite points only (a stored result went through JSON: non-finite numbers are null). */
+/**
+ * The table's guides that can be drawn: two finite points at least (a stored result went through JSON, so
+ * non-finite numbers are null; a guide whose window holds none of the plotted times has no points).
+ */
 function guidesOf(t: TableResult): Guide[] {
 	return (t.plot?.guides ?? [])
 		.map((g) => ({ legend: g.label, points: g.points.map((p) => [num(p[0]), num(p[1])] as [number, number]) }))
-		.filter((g) => g.points.some((p) => Number.isFinite(p[0]) && Number.isFinite(p[1])));
+		.filter((g) => g.points.filter((p) => Number.isFinite(p[0]) && Number.isFinite(p[1])).length >= 2);
 }
 
 function integerValues(xs: number[]): boolean {

@@ -148,13 +148,17 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 	};
 }
 
-/** Reference curves for a plotted growth curve ΔA(t) on [t0, t1] (user's units), each as points of a polyline. */
+/**
+ * Reference curves for a plotted growth curve ΔA(t), each as points of a polyline at the curve's own times (so a
+ * sweep cut into chunks has, chunk by chunk, exactly the whole sweep's points; each guide's window is fixed by the
+ * physics, never by the plotted range).
+ */
 export interface GrowthGuides {
-	/** the saturated value: the static brane's ΔA(l), a horizontal line over [t0, t1] */
+	/** the saturated value: the static brane's ΔA(l), at every time */
 	thermal: [number, number][];
-	/** the early-time law (m/2) t² over the early part only, 0 ≤ t ≤ min(t1, zh/2, t_c/4) */
+	/** the early-time law (m/2) t² over the early part only, 0 ≤ t ≤ min(zh/2, t_c/4) */
 	early: [number, number][];
-	/** slope 2 v_E/zh^{d−1} through the curve at its steepest point before saturation, from ΔA = 0 to the thermal value */
+	/** slope 2 v_E/zh^{d−1} through the curve at its steepest point before saturation, between ΔA = 0 and the thermal value */
 	linear: [number, number][];
 	/** where the linear line touches the curve */
 	touch: { t: number; dA: number; slope: number };
@@ -163,38 +167,20 @@ export interface GrowthGuides {
 /**
  * The comparison lines of a growth curve (PHYSICS.md, "Quench"; Liu & Suh 2014): the thermal value, the early law
  * and the linear-growth line at the tsunami slope, drawn through the curve where its own slope is largest (the
- * linear regime, as `growth` finds it), clipped to the plotted range.
+ * linear regime, as `growth` finds it), each at those of the times `ts` inside its window.
  */
-export function growthGuides(d: number, zh: number, l: number, t0: number, t1: number): GrowthGuides {
+export function growthGuides(d: number, zh: number, l: number, ts: readonly number[]): GrowthGuides {
 	const g = analyseGrowth(d, zh, l);
 	const sat = g.saturation.dA;
-	const lo = Math.min(t0, t1);
-	const hi = Math.max(t0, t1);
-	const thermal: [number, number][] = [
-		[lo, sat],
-		[hi, sat]
-	];
+	const thermal = ts.map((t): [number, number] => [t, sat]);
 	const m2 = g.early.predicted;
-	const eEnd = Math.min(hi, 0.5 * zh, 0.25 * g.tc.value);
-	const eStart = Math.max(lo, 0);
-	const early: [number, number][] = [];
-	if (eEnd > eStart) {
-		for (let k = 0; k <= 16; k++) {
-			const t = eStart + ((eEnd - eStart) * k) / 16;
-			early.push([t, m2 * t * t]);
-		}
-	}
+	const eEnd = Math.min(0.5 * zh, 0.25 * g.tc.value);
+	const early = ts.filter((t) => t >= 0 && t <= eEnd).map((t): [number, number] => [t, m2 * t * t]);
 	const slope = g.linear.predicted;
-	const ts = g.linear.atTime;
-	const at = hrtDeltaArea(d, zh, l, ts).dA;
-	const a = Math.max(lo, ts - at / slope);
-	const b = Math.min(hi, ts + (sat - at) / slope);
-	const linear: [number, number][] =
-		b > a
-			? [
-					[a, at + slope * (a - ts)],
-					[b, at + slope * (b - ts)]
-				]
-			: [];
-	return { thermal, early, linear, touch: { t: ts, dA: at, slope } };
+	const tTouch = g.linear.atTime;
+	const at = hrtDeltaArea(d, zh, l, tTouch).dA;
+	const a = tTouch - at / slope; // the line meets ΔA = 0 …
+	const b = tTouch + (sat - at) / slope; // … and the thermal value
+	const linear = ts.filter((t) => t >= a && t <= b).map((t): [number, number] => [t, at + slope * (t - tTouch)]);
+	return { thermal, early, linear, touch: { t: tTouch, dA: at, slope } };
 }

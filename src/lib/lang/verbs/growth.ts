@@ -51,9 +51,11 @@ export const growth = defineVerb({
  */
 export function growthGuides(p: Point, xKey: string, xs: number[]): PlotGuide[] | undefined {
 	if (p.bulk.name !== 'vaidya' || xKey !== 't' || p.shape !== 'strip' || xs.length < 2) return undefined;
-	const g = p.holo.growthGuides(p.bulk.d, p.bulk.horizon!, p.q.l!, Math.min(...xs), Math.max(...xs));
-	const out: PlotGuide[] = [{ label: '\\Delta A_{\\text{thermal}}', points: g.thermal }];
-	if (g.early.length) out.push({ label: '\\tfrac{m}{2}\\,t^2', points: g.early });
-	if (g.linear.length) out.push({ label: '2 v_E\\, t / z_h^{d-1}', points: g.linear });
-	return out;
+	const g = p.holo.growthGuides(p.bulk.d, p.bulk.horizon!, p.q.l!, xs);
+	// always the three, in this order, even with no point in range: a sweep split into chunks joins them by label
+	return [
+		{ label: '\\Delta A_{\\text{thermal}}', points: g.thermal },
+		{ label: '\\tfrac{m}{2}\\,t^2', points: g.early },
+		{ label: '2 v_E\\, t / z_h^{d-1}', points: g.linear }
+	];
 }
