@@ -67,7 +67,11 @@ row(
 	},
 	'≤ 1 s'
 );
-row('the polynomials only (decimal monomials), each call on a fresh model (no cache)', time(symbolic, { runs: 5, ms: 2000, warm: false }), '≤ 1 s');
+row(
+	'the polynomials only (decimal monomials), each call on a fresh model (no cache)',
+	time(symbolic, { runs: 5, ms: 2000, warm: false }),
+	'≤ 1 s'
+);
 console.error(`${first.coeffs.length} symbolic coefficients`);
 row(
 	'the same with exact π/B LaTeX (coeffs darea o=6, then tex), each call on a fresh model',

@@ -50,8 +50,14 @@ const warmPoints = (d, l, T, n) => () => {
 
 const results = [];
 const row = (r, goal, per = 1) => results.push({ ...r, goal, per_point_us: per > 1 ? Math.round(r.median_us / per) : undefined });
-row(bench('one ΔA(t) point, cold (d=3 l=2 t=1)', () => (H.clearQuenchCache(), H.hrtDeltaArea(3, 1, 2, 1)), { minRuns: 10 }), '≤ 2 ms');
-row(bench('one ΔA(t) point, cold (d=4 l=4 t=2)', () => (H.clearQuenchCache(), H.hrtDeltaArea(4, 1, 4, 2)), { minRuns: 3 }), '≤ 2 ms');
+row(
+	bench('one ΔA(t) point, cold (d=3 l=2 t=1)', () => (H.clearQuenchCache(), H.hrtDeltaArea(3, 1, 2, 1)), { minRuns: 10 }),
+	'≤ 2 ms'
+);
+row(
+	bench('one ΔA(t) point, cold (d=4 l=4 t=2)', () => (H.clearQuenchCache(), H.hrtDeltaArea(4, 1, 4, 2)), { minRuns: 3 }),
+	'≤ 2 ms'
+);
 H.curveFor(3, 2);
 row(bench('20 ΔA(t) points, curve cached (d=3 l=2 t=0..3)', warmPoints(3, 2, 3, 20)), '', 20);
 H.curveFor(4, 4);

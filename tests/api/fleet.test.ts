@@ -160,7 +160,9 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		expect(a.status, JSON.stringify(a.body)).toBe(200);
 		expect(JSON.stringify(a.body.results)).toBe(JSON.stringify(reference));
 		// the survivor ran the lost chunk as well as its own
-		const lost = started(victim!).slice(before).filter((j) => !victim!.log.includes(`job ${j} done`));
+		const lost = started(victim!)
+			.slice(before)
+			.filter((j) => !victim!.log.includes(`job ${j} done`));
 		expect(lost.length, logs()).toBeGreaterThan(0);
 		for (const j of lost) expect(started(survivor!).slice(survivorBefore), logs()).toContain(j);
 	}, 300_000);

@@ -72,14 +72,37 @@ describe('CRUD', () => {
 	it('answers a pad with its steps in the shape of API.md', async () => {
 		const r = await owner.get(`/api/pads/${padId}`);
 		expect(r.status).toBe(200);
-		expect(Object.keys(r.body.pad).sort()).toEqual(['bulk', 'createdAt', 'history', 'id', 'lets', 'owner', 'title', 'units', 'updatedAt', 'validityTol']);
+		expect(Object.keys(r.body.pad).sort()).toEqual([
+			'bulk',
+			'createdAt',
+			'history',
+			'id',
+			'lets',
+			'owner',
+			'title',
+			'units',
+			'updatedAt',
+			'validityTol'
+		]);
 		expect(r.body.pad.bulk).toEqual({ name: 'brane', params: { d: 3, zh: 1 } });
 		expect(r.body.pad.history).toEqual([...LINES, 'darea l=']);
 		const steps = r.body.steps;
 		expect(steps.map((s: { n: number }) => s.n)).toEqual([1, 2, 3, 4, 5, 6, 7]);
 		expect(steps.map((s: { input: string }) => s.input)).toEqual([...LINES, 'darea l=']);
 		for (const s of steps)
-			expect(Object.keys(s).sort()).toEqual(['error', 'figureLabels', 'hidden', 'id', 'input', 'ms', 'n', 'name', 'results', 'status', 'version']);
+			expect(Object.keys(s).sort()).toEqual([
+				'error',
+				'figureLabels',
+				'hidden',
+				'id',
+				'input',
+				'ms',
+				'n',
+				'name',
+				'results',
+				'status',
+				'version'
+			]);
 		// the owner also sees the failed line, as an attempt after the last step
 		expect(r.body.attempts).toEqual([expect.objectContaining({ input: 'darea l=', status: 'error', afterN: 6, dismissed: false })]);
 		expect(steps[6]).toMatchObject({ status: 'error', results: null });

@@ -99,9 +99,7 @@ describe('figures for a paper', () => {
 					`band labels ${JSON.stringify(a)} and ${JSON.stringify(b)}`
 				).toBe(true);
 			}
-		expect(await fig.locator('text.legend-text').allTextContents()).toContain(
-			'shaded: series within 1e-3 of exact (relative), ℓ ≤ ℓ_max'
-		);
+		expect(await fig.locator('text.legend-text').allTextContents()).toContain('shaded: series within 1e-3 of exact (relative), ℓ ≤ ℓ_max');
 		await fig.screenshot({ path: join(SHOTS, 'sweep-orders-bands.png') });
 	});
 

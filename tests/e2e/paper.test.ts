@@ -114,8 +114,8 @@ describe('the pad validity tolerance', () => {
 		await expect.poll(() => page.locator('button.validity-tol-button').innerText(), { timeout: 60_000 }).toBe('tol 1e-2 (pad)');
 		await run('sweep darea l=0.05..0.8:20 o=1,2,exact');
 		const fig = step(5).locator('figure.plot-view');
-		await expect.poll(() => fig.locator('text.legend-text').allTextContents()).toContain(
-			'shaded: series within 1e-2 of exact (relative), ℓ ≤ ℓ_max'
-		);
+		await expect
+			.poll(() => fig.locator('text.legend-text').allTextContents())
+			.toContain('shaded: series within 1e-2 of exact (relative), ℓ ≤ ℓ_max');
 	});
 });

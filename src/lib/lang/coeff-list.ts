@@ -33,11 +33,21 @@ export function symbolDefs(st: SeriesTerms, bulk: BulkState): SymbolDef[] {
 	const defs: SymbolDef[] = [];
 	const tex = st.terms.map((t) => t.latex).join(' ');
 	const d = st.d;
-	defs.push({ tex: `\\Delta A = A - A_{\\mathrm{vac}}\\ \\text{(finite, per unit transverse volume)}`, text: 'ΔA = A − A_vac: the strip’s area minus the vacuum’s (finite), per unit transverse volume' });
+	defs.push({
+		tex: `\\Delta A = A - A_{\\mathrm{vac}}\\ \\text{(finite, per unit transverse volume)}`,
+		text: 'ΔA = A − A_vac: the strip’s area minus the vacuum’s (finite), per unit transverse volume'
+	});
 	defs.push({ tex: `\\ell\\ \\text{: the strip width}`, text: 'ℓ: the strip’s width' });
-	defs.push({ tex: `d = ${d}\\ \\text{: boundary spacetime dimension}`, text: `d = ${d}: the boundary spacetime dimension (bulk AdS_${d + 1})` });
+	defs.push({
+		tex: `d = ${d}\\ \\text{: boundary spacetime dimension}`,
+		text: `d = ${d}: the boundary spacetime dimension (bulk AdS_${d + 1})`
+	});
 	if (st.scale === 'z_h') defs.push({ tex: 'z_h\\ \\text{: horizon depth}', text: 'z_h: the horizon depth (brane T = d/(4π z_h))' });
-	if (st.scale === 'z_p') defs.push({ tex: 'z_p\\ \\text{: wave scale, } g_{yy} = z^{-2}(1 + (z/z_p)^{d})', text: 'z_p: the wave’s scale, g_yy = (1/z²)(1 + (z/z_p)^d)' });
+	if (st.scale === 'z_p')
+		defs.push({
+			tex: 'z_p\\ \\text{: wave scale, } g_{yy} = z^{-2}(1 + (z/z_p)^{d})',
+			text: 'z_p: the wave’s scale, g_yy = (1/z²)(1 + (z/z_p)^d)'
+		});
 	if (powersOfTau(st)) {
 		const s = scaleText(st.scale);
 		defs.push({ tex: `\\tau = (\\ell/${s})^{${d}}`, text: `τ = (ℓ/${s})^${d}` });
@@ -64,7 +74,9 @@ export function symbolDefs(st: SeriesTerms, bulk: BulkState): SymbolDef[] {
 		});
 	}
 	if (bulk.name === 'metric') {
-		const fns = (['f', 'g', 'h'] as const).filter((k) => typeof bulk.params[k] === 'string').map((k) => [k, String(bulk.params[k])] as const);
+		const fns = (['f', 'g', 'h'] as const)
+			.filter((k) => typeof bulk.params[k] === 'string')
+			.map((k) => [k, String(bulk.params[k])] as const);
 		if (fns.length)
 			defs.push({
 				tex: `\\text{parameters of }${fns.map(([k, f]) => `${k}(z) = ${formulaTex(f)}`).join(',\\ ')}`,
@@ -76,7 +88,10 @@ export function symbolDefs(st: SeriesTerms, bulk: BulkState): SymbolDef[] {
 
 /** A metric's formula as math: `*` a thin space, anything but plain math characters left out (the .tex export's allow-list). */
 function formulaTex(f: string): string {
-	return f.replace(/\*\*/g, '^').replace(/\*/g, '\\,').replace(/[^A-Za-z0-9 +\-/=().^,\\]/g, '');
+	return f
+		.replace(/\*\*/g, '^')
+		.replace(/\*/g, '\\,')
+		.replace(/[^A-Za-z0-9 +\-/=().^,\\]/g, '');
 }
 
 /** The expansion the coefficients belong to, as LaTeX and as text. */

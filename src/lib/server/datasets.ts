@@ -228,7 +228,16 @@ export function copyDatasetsForFork(
 			continue;
 		}
 		tx.insert(schema.datasets)
-			.values({ id: newId(), ownerId: toOwnerId, name: d.name, columns: d.columns, rows: d.rows, bytes: d.bytes, createdAt: new Date(), origin: origin(d.name) })
+			.values({
+				id: newId(),
+				ownerId: toOwnerId,
+				name: d.name,
+				columns: d.columns,
+				rows: d.rows,
+				bytes: d.bytes,
+				createdAt: new Date(),
+				origin: origin(d.name)
+			})
 			.run();
 		count++;
 		bytes += d.bytes;

@@ -32,7 +32,11 @@ function tidy(l: FigureLabels | null): FigureLabels | null {
 	const out: FigureLabels = {};
 	if (l.xlabel?.trim()) out.xlabel = l.xlabel.trim();
 	if (l.ylabel?.trim()) out.ylabel = l.ylabel.trim();
-	const legends = Object.fromEntries(Object.entries(l.legends ?? {}).filter(([, v]) => v.trim()).map(([k, v]) => [k, v.trim()]));
+	const legends = Object.fromEntries(
+		Object.entries(l.legends ?? {})
+			.filter(([, v]) => v.trim())
+			.map(([k, v]) => [k, v.trim()])
+	);
 	if (Object.keys(legends).length) out.legends = legends;
 	return Object.keys(out).length ? out : null;
 }

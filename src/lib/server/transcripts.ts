@@ -177,12 +177,8 @@ export function forkSnapshot(opened: OpenedShare, user: AppUser): PadRow & { dat
 					createdAt: now
 				})
 				.run();
-		const datasets = copyDatasetsForFork(
-			tx,
-			opened.pad.ownerId,
-			user.id,
-			names,
-			(name) => `${name} of ${owner || 'another member'}, copied when forking '${snapshot.title}'`.slice(0, 500)
+		const datasets = copyDatasetsForFork(tx, opened.pad.ownerId, user.id, names, (name) =>
+			`${name} of ${owner || 'another member'}, copied when forking '${snapshot.title}'`.slice(0, 500)
 		);
 		return { ...pad, datasets };
 	});

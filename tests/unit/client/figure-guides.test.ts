@@ -21,7 +21,13 @@ const growth: TableResult = {
 		guides: [
 			// runs far above the data on purpose: the guide must be clipped, not widen the y axis
 			{ label: 'm\\,t^{2}/2', points: ts.map((t) => [t, 0.5 * t * t * 10] as [number, number]) },
-			{ label: '\\Delta A_{\\mathrm{th}}', points: [[0, 0.6], [2, 0.6]] }
+			{
+				label: '\\Delta A_{\\mathrm{th}}',
+				points: [
+					[0, 0.6],
+					[2, 0.6]
+				]
+			}
 		]
 	}
 };
@@ -57,7 +63,9 @@ describe('plot guides', () => {
 		const scene = layoutFigure(figureOfTable(growth));
 		const lines = scene.prims.filter((p) => p.t === 'line' && p.cls?.includes('legend-guide'));
 		expect(lines).toHaveLength(2);
-		const texts = scene.prims.filter((p) => p.t === 'text' && p.cls === 'legend-text').map((p) => (p.t === 'text' ? p.runs.map((r) => r.text).join('') : ''));
+		const texts = scene.prims
+			.filter((p) => p.t === 'text' && p.cls === 'legend-text')
+			.map((p) => (p.t === 'text' ? p.runs.map((r) => r.text).join('') : ''));
 		// runs joined: Δ, A and the subscript th
 		expect(texts).toEqual(['exact', 'm t2/2', 'ΔAth']);
 		expect(labelText('\\Delta A_{\\mathrm{th}}')).toBe('ΔA_th');

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import * as holo from '../../../src/lib/holo/index';
 import type { ScalarResult, TableResult } from '../../../src/lib/lang/result';
-import { expectAbs, expectRel } from '../holo/check';
+import { expectRel } from '../holo/check';
 import { Pad } from './pad';
 
 const vE = (d: number) => {

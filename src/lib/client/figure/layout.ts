@@ -350,7 +350,10 @@ function legend(prims: Prim[], f: FigureSpec) {
 
 /** 0.001 → 1e-3, 0.00025 → 2.5e-4: how a tolerance is written in a paper. */
 export function tolText(t: number): string {
-	return t.toExponential().replace('e+', 'e').replace(/\.?0+e/, 'e');
+	return t
+		.toExponential()
+		.replace('e+', 'e')
+		.replace(/\.?0+e/, 'e');
 }
 
 /** The shading's legend line: what the band means and the relative tolerance it was found with. */

@@ -94,7 +94,11 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 	for (const g of guides) {
 		const lines = coords(g.points, f.logX, f.logY);
 		if (!lines.length) continue;
-		body.push(`\\addplot[${dash(GUIDE_STYLE.dash)}, line width=${(GUIDE_STYLE.width * 0.5).toFixed(2)}pt, color=${use(GUIDE_STYLE.stroke)}, no markers] coordinates {`, ...lines, '};');
+		body.push(
+			`\\addplot[${dash(GUIDE_STYLE.dash)}, line width=${(GUIDE_STYLE.width * 0.5).toFixed(2)}pt, color=${use(GUIDE_STYLE.stroke)}, no markers] coordinates {`,
+			...lines,
+			'};'
+		);
 		legend.push(texForPgf(g.legend));
 	}
 	// validity: shaded to each order's l_max with a dashed edge, labelled at staggered heights so none overlap
@@ -109,7 +113,9 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 	});
 	if (f.bands.length && f.tolerance !== undefined) {
 		// the legend's note on the shading, in ASCII TeX: what the band means and the tolerance it was found with
-		const tol = tolText(f.tolerance).replace(/e(-?\d+)$/, (_, e) => `\\times 10^{${e}}`).replace(/^1\\times /, '');
+		const tol = tolText(f.tolerance)
+			.replace(/e(-?\d+)$/, (_, e) => `\\times 10^{${e}}`)
+			.replace(/^1\\times /, '');
 		body.push(
 			`\\node[font=\\tiny, anchor=south east, fill=white, fill opacity=0.8, text opacity=1] at (rel axis cs:0.99,0.01) {shaded: series within $${tol}$ of exact (relative), $\\ell \\le \\ell_{\\max}$};`
 		);

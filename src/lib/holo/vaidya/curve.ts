@@ -164,8 +164,7 @@ const H_Z = 1e-7;
  */
 function newtonIn(curve: Curve, A: CurvePoint, B: CurvePoint, t: number): Surface | null {
 	const { d, l } = curve;
-	const tipOf = (p: CurvePoint): number =>
-		p.surface ? p.surface.zstar : p.zeta <= 0 ? l / vacuumWidthFactor(d) : curve.static.zstar;
+	const tipOf = (p: CurvePoint): number => (p.surface ? p.surface.zstar : p.zeta <= 0 ? l / vacuumWidthFactor(d) : curve.static.zstar);
 	const w = (t - A.t) / (B.t - A.t);
 	if (!(w >= 0 && w <= 1)) return null;
 	let zeta = A.zeta + w * (B.zeta - A.zeta);

@@ -73,7 +73,15 @@ type Probe = (x: number) => { v: number; s: Surface | null };
  * linear there). `lo` is a tip known to be too narrow (or −∞). A width beyond the doubles' reach of the edge
  * (x_e − x at rounding) returns the widest surface found.
  */
-function nearEdge(d: number, zeta: number, g: Probe, a: { v: number; s: Surface | null }, xa: number, lo: number, xPast: number): Surface | null {
+function nearEdge(
+	d: number,
+	zeta: number,
+	g: Probe,
+	a: { v: number; s: Surface | null },
+	xa: number,
+	lo: number,
+	xPast: number
+): Surface | null {
 	let ok = xa;
 	let bad = xPast;
 	for (let k = 0; k < 200 && bad - ok > 4e-16 * Math.max(1, Math.abs(ok)); k++) {

@@ -22,7 +22,8 @@ export const profile = defineVerb({
 			'static bulks: the strip solver’s z*, then x(z) integrated from the tip in u = z/z* = 1 − s² (no endpoint singularity); vaidya with t: the winning HRT surface (vacuum inside the shell on v + z = z_c, refracted outside, the climb behind the horizon when there is one), with v integrated alongside from dv/dz written without 1/f',
 		accuracy:
 			'the traced half-width reaches l/2 and the boundary time t to ≤ 1e-8 relative; the tip is the solver’s z* (tests/unit/holo/vaidya-profile.test.ts, tests/unit/lang/profile.test.ts)',
-		source: 'Ryu & Takayanagi 2006 (strip surfaces); Hubeny, Rangamani & Takayanagi 2007 and Liu & Suh, PRD 89 (2014) 066012 (HRT surfaces after a thin-shell quench)',
+		source:
+			'Ryu & Takayanagi 2006 (strip surfaces); Hubeny, Rangamani & Takayanagi 2007 and Liu & Suh, PRD 89 (2014) 066012 (HRT surfaces after a thin-shell quench)',
 		examples: ['profile l=1', 'use vaidya d=3 zh=1; profile l=2 t=1 | csv']
 	},
 	at: (p) => {
@@ -47,6 +48,12 @@ export const profile = defineVerb({
 			throw new p.holo.HoloError(`t is the time since a quench: the ${p.bulk.name} bulk is static`, 't', 'use vaidya d=… zh=… first');
 		}
 		const st = p.holo.staticProfile(p.bulk.slice, l);
-		return { columns: ['x', 'z'], rows: mirrored(st.points, false), x: 'x', note: 'the RT surface x(z), tip at x = 0', fields: { l, zstar: st.zstar } };
+		return {
+			columns: ['x', 'z'],
+			rows: mirrored(st.points, false),
+			x: 'x',
+			note: 'the RT surface x(z), tip at x = 0',
+			fields: { l, zstar: st.zstar }
+		};
 	}
 });

@@ -14,7 +14,8 @@ export const validity = defineVerb({
 	forms: { darea: { keys: ['o', 'tol'], required: ['o'] } },
 	symbol: { text: 'validity', tex: '' },
 	help: {
-		summary: 'largest l where order n stays within tol (default: the pad’s validity tolerance, 1e-3) of exact, and the radius of convergence ± its uncertainty (Domb–Sykes)',
+		summary:
+			'largest l where order n stays within tol (default: the pad’s validity tolerance, 1e-3) of exact, and the radius of convergence ± its uncertainty (Domb–Sykes)',
 		method:
 			'l_max: a log-spaced scan and bisection on |ΔA⁽ⁿ⁾ − ΔA| = tol·|ΔA| against the exact ΔA; radius: Domb–Sykes extrapolation of the coefficient ratios in 1/k (charged: a fit of their growth)',
 		accuracy:

@@ -86,7 +86,13 @@ export const operations: Operation[] = [
 		status: 201
 	},
 	{ method: 'GET', path: '/api/pads/[id]', summary: 'One pad with its steps (and, for its owner, its attempts).', auth: 'signed-in' },
-	{ method: 'PATCH', path: '/api/pads/[id]', summary: 'Rename a pad or set its validity tolerance (owner only).', auth: 'writer', body: padChangeSchema },
+	{
+		method: 'PATCH',
+		path: '/api/pads/[id]',
+		summary: 'Rename a pad or set its validity tolerance (owner only).',
+		auth: 'writer',
+		body: padChangeSchema
+	},
 	{ method: 'DELETE', path: '/api/pads/[id]', summary: 'Delete a pad (owner only).', auth: 'writer' },
 	{
 		method: 'GET',
