@@ -1,4 +1,4 @@
-// Load on POST /api/eval with an API key (autocannon, loopback): requests/s and latency for a light line,
+// Load on POST /api/eval from a signed-in client (autocannon, loopback): requests/s and latency for a light line,
 // then the p99 of light lines while heavy sweeps run. Run after `npm run build`.
 import autocannon from 'autocannon';
 import { build } from 'esbuild';
@@ -7,7 +7,7 @@ import { mkdtempSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
-import { apiKeyFor, startBuiltServer } from './lib/server.mjs';
+import { sessionFor, startBuiltServer } from './lib/server.mjs';
 import { emit, machineLine, median, writeSection } from './lib/results.mjs';
 
 /** The engine alone (src/lib/holo bundled as bench/engine.mjs does), for the sweep's server/engine ratio. */
@@ -47,14 +47,14 @@ console.log(t[t.length >> 1]);`;
 const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
 const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000' });
 try {
-	const key = await apiKeyFor(server.baseUrl, 'tomas@sable.test');
+	const session = await sessionFor(server.baseUrl, 'tomas@sable.test');
 	const light = (extra = {}) =>
 		autocannon({
 			url: `${server.baseUrl}/api/eval`,
 			method: 'POST',
 			connections: 50,
 			duration: DURATION,
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${key}` },
+			headers: { 'content-type': 'application/json', ...session },
 			body: JSON.stringify({ input: 'darea l=0.5' }),
 			...extra
 		});
@@ -73,14 +73,14 @@ try {
 		emit(row);
 		return row;
 	};
-	const auth = { 'content-type': 'application/json', authorization: `Bearer ${key}` };
+	const auth = { 'content-type': 'application/json', ...session };
 	const padId = (
 		await (await fetch(`${server.baseUrl}/api/pads`, { method: 'POST', headers: auth, body: JSON.stringify({ title: 'bench' }) })).json()
 	).pad.id;
 	const post = (body) => ({ url: `${server.baseUrl}/api/eval`, method: 'POST', headers: auth, body: JSON.stringify(body) });
 	const ladder = [
 		await one('GET /api/health (HTTP, routing, security headers)', { url: `${server.baseUrl}/api/health` }),
-		await one('darea l=0.5 stateless (+ key check, zod, parse, engine, JSON): fast path', post({ input: 'darea l=0.5' })),
+		await one('darea l=0.5 stateless (+ session check, zod, parse, engine, JSON): fast path', post({ input: 'darea l=0.5' })),
 		await one(
 			'darea l=0.5 \\| table stateless, queued (+ queue, IPC to a process, structured clone)',
 			post({ input: 'darea l=0.5 | table' })
@@ -101,7 +101,7 @@ try {
 	const sweepOnce = async () => {
 		const r = await fetch(`${server.baseUrl}/api/eval`, {
 			method: 'POST',
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${key}` },
+			headers: { 'content-type': 'application/json', ...session },
 			body: JSON.stringify({ input: sweepLine })
 		});
 		const body = await r.json();
@@ -124,7 +124,7 @@ try {
 
 	// heavy sweeps from another user, back to back, while the light load runs
 	let stop = false;
-	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test');
+	const heavySession = await sessionFor(server.baseUrl, 'ines@sable.test');
 	// exact ball surfaces by shooting: minutes of work, so each one runs until its time budget stops it
 	const heavyLine = 'sweep darea ball R=0.1..2:300';
 	let heavyRuns = 0;
@@ -132,7 +132,7 @@ try {
 		while (!stop) {
 			await fetch(`${server.baseUrl}/api/eval`, {
 				method: 'POST',
-				headers: { 'content-type': 'application/json', authorization: `Bearer ${heavyKey}` },
+				headers: { 'content-type': 'application/json', ...heavySession },
 				body: JSON.stringify({ input: heavyLine })
 			});
 			heavyRuns++;
@@ -168,7 +168,7 @@ try {
 	writeSection(
 		'api',
 		`## API (\`npm run bench -- api\`)
-${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"input":"darea l=0.5"}\` with an API key
+${machineLine()}; autocannon, 50 connections, ${DURATION} s, \`POST /api/eval {"input":"darea l=0.5"}\` signed in (session cookie)
 (a stateless single-point strip line: answered by the server process itself, src/lib/server/eval/fast.ts).
 Load average ${loadBefore.toFixed(1)} before, ${loadAfter.toFixed(1)} after (other work on the machine slows every row alike).
 

@@ -4,7 +4,7 @@
 // Needs a build (npm run build) and redis-server. Writes the "fleet" section of bench/RESULTS.md.
 import { spawn, spawnSync } from 'node:child_process';
 import { loadavg } from 'node:os';
-import { apiKeyFor, freePort, startBuiltServer } from './lib/server.mjs';
+import { freePort, sessionFor, startBuiltServer } from './lib/server.mjs';
 import { emit, machineLine, median, writeSection } from './lib/results.mjs';
 
 if (spawnSync('redis-server', ['--version'], { stdio: 'ignore' }).status !== 0) {
@@ -27,7 +27,7 @@ const queueUrl = `redis://127.0.0.1:${redisPort}`;
 const common = { BULKPAD_EVAL_BUDGET_MS: '1800000', BULKPAD_EVAL_QUEUE_MS: '1800000' };
 const here = await startBuiltServer(common);
 const fleet = await startBuiltServer({ ...common, BULKPAD_QUEUE: queueUrl });
-const keys = { here: await apiKeyFor(here.baseUrl, 'tomas@sable.test'), fleet: await apiKeyFor(fleet.baseUrl, 'tomas@sable.test') };
+const keys = { here: await sessionFor(here.baseUrl, 'tomas@sable.test'), fleet: await sessionFor(fleet.baseUrl, 'tomas@sable.test') };
 let workers = [];
 
 function startWorkers(n) {
@@ -55,7 +55,7 @@ async function evalOnce(base, key, input) {
 	const t0 = performance.now();
 	const r = await fetch(`${base}/api/eval`, {
 		method: 'POST',
-		headers: { 'content-type': 'application/json', authorization: `Bearer ${key}` },
+		headers: { 'content-type': 'application/json', ...key },
 		body: JSON.stringify({ input })
 	});
 	const body = await r.json();
@@ -93,7 +93,7 @@ ${machineLine()}; Redis ${spawnSync('redis-server', ['--version'], { encoding: '
 |---|---|---|---|
 ${rows.map((r) => `| ${r.label} | ${s(r.ms)} | ×${(rows[0].ms / r.ms).toFixed(2)} | ${r.same === undefined ? '(reference)' : r.same ? 'yes, bit for bit' : '**no**'} |`).join('\n')}
 
-Light line \`${LIGHT}\`, ${LIGHT_RUNS} requests back to back with an API key (after 20 to warm up), latency per request:
+Light line \`${LIGHT}\`, ${LIGHT_RUNS} requests back to back, signed in (after 20 to warm up), latency per request:
 
 | evaluated | p50 ms | p90 ms |
 |---|---|---|

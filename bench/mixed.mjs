@@ -4,7 +4,7 @@
 // Run after `npm run build`: `npm run bench -- mixed`.
 import autocannon from 'autocannon';
 import { loadavg } from 'node:os';
-import { apiKeyFor, startBuiltServer } from './lib/server.mjs';
+import { sessionFor, startBuiltServer } from './lib/server.mjs';
 import { emit, machineLine, writeSection } from './lib/results.mjs';
 
 const DURATION = Number(process.env.BENCH_SECONDS ?? 20);
@@ -19,8 +19,8 @@ const SLUG = 'sable-boosted-first-law';
 const server = await startBuiltServer({ BULKPAD_EVAL_BUDGET_MS: '5000', ADDRESS_HEADER: 'x-forwarded-for' });
 try {
 	const local = { 'x-forwarded-for': '127.0.0.1' };
-	const lightKey = await apiKeyFor(server.baseUrl, 'tomas@sable.test', undefined, local);
-	const heavyKey = await apiKeyFor(server.baseUrl, 'ines@sable.test', undefined, local);
+	const lightSession = await sessionFor(server.baseUrl, 'tomas@sable.test', undefined, local);
+	const heavySession = await sessionFor(server.baseUrl, 'ines@sable.test', undefined, local);
 	const light = (duration = DURATION) =>
 		autocannon({
 			url: `${server.baseUrl}/api/eval`,
@@ -29,7 +29,7 @@ try {
 			duration,
 			// a request still unanswered after 30 s counts as an error (autocannon's default is 10 s)
 			timeout: 30,
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${lightKey}`, ...local },
+			headers: { 'content-type': 'application/json', ...lightSession, ...local },
 			body: JSON.stringify({ input: LIGHT })
 		});
 	await light(3); // warm the processes and the JIT
@@ -63,7 +63,7 @@ try {
 	const heavyCall = () =>
 		fetch(`${server.baseUrl}/api/eval`, {
 			method: 'POST',
-			headers: { 'content-type': 'application/json', authorization: `Bearer ${heavyKey}`, ...local },
+			headers: { 'content-type': 'application/json', ...heavySession, ...local },
 			body: JSON.stringify({ input: HEAVY })
 		}).then(async (r) => (await r.arrayBuffer(), r));
 	const replayCall = (i) => () =>
@@ -103,7 +103,7 @@ try {
 	writeSection(
 		'mixed',
 		`## Mixed load (\`npm run bench -- mixed\`)
-${machineLine()}; autocannon, 50 connections, ${DURATION} s of \`POST /api/eval {"input":"${LIGHT}"}\` from one member (API key),
+${machineLine()}; autocannon, 50 connections, ${DURATION} s of \`POST /api/eval {"input":"${LIGHT}"}\` from one member (signed in),
 first alone, then while another member sends \`${HEAVY}\` from ${HEAVY_CONCURRENCY} connections back to back and ${REPLAYERS}
 anonymous clients replay the demo transcript back to back. ${machineLine().startsWith('2 ') ? 'Two cores for the server, its two evaluation processes and the load generators. ' : ''}Load average ${load0.toFixed(1)} before, ${load1.toFixed(1)} after the mixed run.
 

@@ -38,7 +38,12 @@ export async function startBuiltServer(extraEnv = {}) {
 }
 
 /** `headers` go with both requests (e.g. X-Forwarded-For when the server reads addresses from it). */
-export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo', headers = {}) {
+/**
+ * The headers of a signed-in browser: the session cookie and the origin a cookie-authenticated POST must carry.
+ * Benches sign in rather than use an API key: a key has a requests-a-minute budget (at most 6000), far below what
+ * a load test sends, and the console itself is a signed-in browser.
+ */
+export async function sessionFor(baseUrl, email, password = 'bulkpad-demo', headers = {}) {
 	const r = await fetch(`${baseUrl}/api/auth/signin`, {
 		method: 'POST',
 		headers: { 'content-type': 'application/json', origin: baseUrl, ...headers },
@@ -48,12 +53,6 @@ export async function apiKeyFor(baseUrl, email, password = 'bulkpad-demo', heade
 		.getSetCookie()
 		.find((c) => c.startsWith('auth_session='))
 		?.split(';')[0];
-	const k = await fetch(`${baseUrl}/api/keys`, {
-		method: 'POST',
-		headers: { 'content-type': 'application/json', origin: baseUrl, cookie, ...headers },
-		body: JSON.stringify({ label: 'bench' })
-	});
-	const body = await k.json();
-	if (!body.key) throw new Error(`could not make an API key: ${JSON.stringify(body)}`);
-	return body.key;
+	if (!cookie) throw new Error(`could not sign in as ${email}: ${r.status}`);
+	return { cookie, origin: baseUrl };
 }

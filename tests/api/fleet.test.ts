@@ -227,6 +227,30 @@ describe.skipIf(!HAVE_REDIS)('evaluation fleet (Redis + two workers)', () => {
 		}
 	}, 120_000);
 
+	it('a server told to stop lets go of Redis: its fleet connections keep no process alive', async () => {
+		// what the web server does at shutdown (fleet/index.ts): start the fleet runner, close it — the process must
+		// then end by itself (BullMQ's event readers used to retry on a timer forever after a bare disconnect)
+		const script = `
+			import { FleetRunner } from './src/lib/server/eval/fleet/runner.ts';
+			const r = new FleetRunner({ connection: { host: '127.0.0.1', port: ${redisPort} }, version: 'shutdown-check', chunks: 2, lockMs: 3000 });
+			await r.start();
+			await r.close();
+			console.log('closed');`;
+		const child = spawn(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], { stdio: ['ignore', 'pipe', 'pipe'] });
+		let out = '';
+		child.stdout?.on('data', (b) => (out += b));
+		child.stderr?.on('data', (b) => (out += b));
+		const exited = new Promise<number | null>((r) => child.once('exit', (code) => r(code)));
+		try {
+			// generous: this is about ending at all, not about how fast
+			await expect.poll(() => child.exitCode, { timeout: 60_000, interval: 200, message: out }).not.toBeNull();
+			expect(await exited, out).toBe(0);
+			expect(out).toContain('closed');
+		} finally {
+			child.kill('SIGKILL');
+		}
+	});
+
 	it('falls back to in-process evaluation when Redis is gone, and health says so', async () => {
 		redis!.kill('SIGKILL');
 		await expect.poll(async () => (await health()).queue, { timeout: 60_000, interval: 250 }).toBe('fallback: redis unreachable');

@@ -307,12 +307,18 @@ export class FleetRunner implements Runner {
 		}
 	}
 
-	/** At shutdown: drops the connections at once (a graceful close would wait for a Redis that may be gone). */
+	/**
+	 * At shutdown: BullMQ's close (a bare disconnect leaves the event readers retrying on a timer, which kept a
+	 * server told to stop alive), bounded in time (a graceful close would otherwise wait for a Redis that may be
+	 * gone), then the connections dropped.
+	 */
 	async close(): Promise<void> {
 		this.closed = true;
 		clearInterval(this.poll);
+		const all = [...Object.values(this.queues), ...this.events];
+		await withTimeout(Promise.allSettled(all.map((q) => q.close())), 2000).catch(() => {});
 		this.redis.disconnect();
-		await Promise.allSettled([...Object.values(this.queues), ...this.events].map((q) => q.disconnect()));
+		await Promise.allSettled(all.map((q) => q.disconnect()));
 	}
 }
 
