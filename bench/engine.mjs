@@ -6,37 +6,26 @@ import { execFileSync, fork } from 'node:child_process';
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { fileURLToPath } from 'node:url';
+import { loadEngine } from './lib/engine.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const tmp = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
 
-/** Bundles src/lib/holo under `dir` into one ES module and imports it. */
-async function loadEngine(dir, name) {
-	const outfile = join(tmp, `${name}.mjs`);
+/** The engine of the tree at `dir`, with the cache resets and the packed LaTeX table's reader the benches use. */
+function loadBenchEngine(dir, name) {
 	// the packed LaTeX table's reader, where the tree has it (a base ref may predate it)
 	const packed = existsSync(join(dir, 'src/lib/holo/series/boosted-latex.ts'))
 		? ` export { clearBoostedLatex, unpackBoostedRow } from './src/lib/holo/series/boosted-latex.ts';`
 		: '';
-	await build({
-		stdin: {
-			contents: `export * from './src/lib/holo/index.ts'; export { clearCoeffCache } from './src/lib/holo/series/coeffs.ts'; export { clearExactCache } from './src/lib/holo/series/exact-latex.ts';${packed}`,
-			resolveDir: dir,
-			loader: 'ts'
-		},
-		bundle: true,
-		format: 'esm',
-		platform: 'neutral',
-		mainFields: ['module', 'main'],
-		outfile,
-		// a base tree extracted to a temporary folder still takes its packages (mathjs) from this checkout
-		nodePaths: [join(root, 'node_modules')],
-		logLevel: 'error'
-	});
-	return import(pathToFileURL(outfile).href);
+	return loadEngine(
+		dir,
+		name,
+		` export { clearCoeffCache } from './src/lib/holo/series/coeffs.ts'; export { clearExactCache } from './src/lib/holo/series/exact-latex.ts';${packed}`
+	);
 }
 
-const H = await loadEngine(root, 'holo');
+const H = await loadBenchEngine(root, 'holo');
 
 // BULKPAD_BENCH_BASE=<git ref> also bundles src/lib/holo as it is at that ref and times the exact ΔA rows of both
 // engines in alternating rounds of the same run, so a refactor is judged against its base on the same load.
@@ -47,7 +36,7 @@ if (baseRef) {
 	mkdirSync(baseDir);
 	const tar = execFileSync('git', ['-C', root, 'archive', baseRef, 'src/lib/holo'], { maxBuffer: 1 << 28 });
 	execFileSync('tar', ['-x', '-C', baseDir], { input: tar });
-	Base = await loadEngine(baseDir, 'base');
+	Base = await loadBenchEngine(baseDir, 'base');
 }
 
 function bench(name, fn, { minRuns = 20, minMs = 400, quiet = false } = {}) {

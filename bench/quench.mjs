@@ -3,25 +3,12 @@
 // warm (the curve cached, as every later point of a sweep), growth sweeps at one width as `sweep darea l=… t=…`
 // runs them, and the mpmath fixture runner's time per point beside them. Prints one JSON line per benchmark and
 // updates the "quench" section of bench/RESULTS.md. `npm run bench -- quench`.
-import { build } from 'esbuild';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { loadavg, tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { loadavg } from 'node:os';
+import { join } from 'node:path';
+import { loadEngine, root } from './lib/engine.mjs';
 
-const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const outfile = join(mkdtempSync(join(tmpdir(), 'bulkpad-quench-')), 'holo.mjs');
-await build({
-	stdin: { contents: `export * from './src/lib/holo/index.ts';`, resolveDir: root, loader: 'ts' },
-	bundle: true,
-	format: 'esm',
-	platform: 'neutral',
-	mainFields: ['module', 'main'],
-	outfile,
-	nodePaths: [join(root, 'node_modules')],
-	logLevel: 'error'
-});
-const H = await import(pathToFileURL(outfile).href);
+const H = await loadEngine(root, 'quench');
 
 /** Median of repeated runs after a warm-up (JIT), in µs; `fn` is timed whole. */
 function bench(name, fn, { minRuns = 5, minMs = 300, warm = 2 } = {}) {
