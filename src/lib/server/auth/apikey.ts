@@ -98,9 +98,3 @@ export function judgeApiKey(key: string, now = Date.now()): KeyVerdict | null {
 	}
 	return { ok: true, user: row.user };
 }
-
-/** The user a bearer key belongs to, or null (expired or over its budget counts as no user). */
-export function findUserByApiKey(key: string) {
-	const verdict = judgeApiKey(key);
-	return verdict?.ok ? verdict.user : null;
-}
