@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import * as holo from '../../../src/lib/holo/index';
 import type { ScalarResult, TableResult } from '../../../src/lib/lang/result';
 import { expectRel } from '../holo/check';
+import { labelRuns } from '../../../src/lib/client/figure/texlabel';
 import { Pad } from './pad';
 
 const vE = (d: number) => {
@@ -31,7 +32,14 @@ describe('growth sweep guides', () => {
 		it(`d=${d} zh=${zh} l=${l}: thermal value, early law and linear line`, () => {
 			const { table, guides } = guidesOf(`use vaidya d=${d} zh=${zh}; sweep darea l=${l} t=0..${t1}:${n}`);
 			expect(table.plot?.show).toBe(true);
-			expect(guides.map((g) => g.label)).toEqual(['\\Delta A_{\\text{thermal}}', '\\tfrac{m}{2}\\,t^2', '2 v_E\\, t / z_h^{d-1}']);
+			expect(guides.map((g) => g.label)).toEqual(['\\Delta A_{\\text{thermal}}', '(m/2)\\,t^2', '2 v_E\\, t / z_h^{d-1}']);
+			// every label is one the figures can set (no command printed as its name, as \\tfrac once was)
+			for (const g of guides)
+				expect(
+					labelRuns(g.label)
+						.map((r) => r.text)
+						.join('')
+				).not.toMatch(/frac|\\/);
 			const [thermal, early, linear] = guides;
 
 			// every guide sits at the sweep's own times (so chunks of a split sweep join into the whole one)

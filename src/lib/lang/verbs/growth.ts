@@ -55,7 +55,7 @@ export function growthGuides(p: Point, xKey: string, xs: number[]): PlotGuide[] 
 	// always the three, in this order, even with no point in range: a sweep split into chunks joins them by label
 	return [
 		{ label: '\\Delta A_{\\text{thermal}}', points: g.thermal },
-		{ label: '\\tfrac{m}{2}\\,t^2', points: g.early },
+		{ label: '(m/2)\\,t^2', points: g.early },
 		{ label: '2 v_E\\, t / z_h^{d-1}', points: g.linear }
 	];
 }
