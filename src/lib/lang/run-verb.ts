@@ -167,12 +167,15 @@ export function runVerb(s: A.VerbStmt, env: LineEnv): StatementOut {
 		const argText = Object.entries(argsOf(p.q))
 			.map(([k, v]) => `${k}=${shortNumber(v)}`)
 			.join(' ');
+		const x = tab.x ?? tab.columns[0]!;
+		// "z, v vs x · profile (l=2 t=1) · bulk": what is plotted comes first, as the figures' axis label reads it
+		const plotted = tab.columns.filter((c) => c !== x).join(', ');
 		results.push({
 			kind: 'table',
-			label: `${sym}${argText ? ` (${argText})` : ''} · ${bulkText}`,
+			label: `${plotted} vs ${x} · ${sym}${argText ? ` (${argText})` : ''} · ${bulkText}`,
 			columns: tab.columns,
 			rows: tab.rows,
-			plot: { x: tab.x ?? tab.columns[0]!, show: true },
+			plot: { x, show: true },
 			...(tab.note ? { note: tab.note } : {})
 		});
 		ref = { fields: { ...(tab.fields ?? {}) } };
