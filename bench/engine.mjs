@@ -3,10 +3,11 @@
 // prints one JSON line per benchmark and updates the "engine" section of bench/RESULTS.md.
 import { build } from 'esbuild';
 import { execFileSync, fork } from 'node:child_process';
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, mkdtempSync, readFileSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { writeSection } from './lib/results.mjs';
 import { loadEngine } from './lib/engine.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
@@ -317,7 +318,6 @@ print((time.perf_counter() - t) / n * 1e6, v)
 
 const ratio = py ? py / results[0].median_us : null;
 const lines = [
-	'<!-- engine:start -->',
 	'## engine (src/lib/holo)',
 	'',
 	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times).`,
@@ -342,11 +342,6 @@ const lines = [
 				'|---|---|---|',
 				...compared.map((r) => `| ${r.name} | ${r.base_us} | ${r.current_us} |`)
 			]
-		: []),
-	'<!-- engine:end -->'
+		: [])
 ];
-const file = join(root, 'bench/RESULTS.md');
-let text = existsSync(file) ? readFileSync(file, 'utf8') : '# Benchmark results\n';
-const re = /<!-- engine:start -->[\s\S]*<!-- engine:end -->/;
-text = re.test(text) ? text.replace(re, lines.join('\n')) : `${text.trimEnd()}\n\n${lines.join('\n')}\n`;
-writeFileSync(file, text);
+writeSection('engine', lines.join('\n'));

@@ -3,9 +3,10 @@
 // warm (the curve cached, as every later point of a sweep), growth sweeps at one width as `sweep darea l=… t=…`
 // runs them, and the mpmath fixture runner's time per point beside them. Prints one JSON line per benchmark and
 // updates the "quench" section of bench/RESULTS.md. `npm run bench -- quench`.
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { loadavg } from 'node:os';
 import { join } from 'node:path';
+import { writeSection } from './lib/results.mjs';
 import { loadEngine, root } from './lib/engine.mjs';
 
 const H = await loadEngine(root, 'quench');
@@ -61,7 +62,6 @@ try {
 }
 
 const lines = [
-	'<!-- quench:start -->',
 	'## quench (src/lib/holo/vaidya, `npm run bench -- quench`)',
 	'',
 	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up; "cold" clears the family-curve cache first. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times).`,
@@ -72,11 +72,6 @@ const lines = [
 	'',
 	runner
 		? `mpmath fixture runner (tests/fixtures/holo/vaidya_runner.py, 24 digits, every surface from scratch): ${runner.secondsPerPoint} s per (l, t) point, mean over ${runner.rows.length} rows`
-		: 'mpmath fixture runner: vaidya.json not generated',
-	'<!-- quench:end -->'
+		: 'mpmath fixture runner: vaidya.json not generated'
 ];
-const file = join(root, 'bench/RESULTS.md');
-let text = existsSync(file) ? readFileSync(file, 'utf8') : '# Benchmark results\n';
-const re = /<!-- quench:start -->[\s\S]*<!-- quench:end -->/;
-text = re.test(text) ? text.replace(re, lines.join('\n')) : `${text.trimEnd()}\n\n${lines.join('\n')}\n`;
-writeFileSync(file, text);
+writeSection('quench', lines.join('\n'));
