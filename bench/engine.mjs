@@ -8,7 +8,7 @@ import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { writeSection } from './lib/results.mjs';
-import { loadEngine } from './lib/engine.mjs';
+import { bench, loadEngine } from './lib/engine.mjs';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
 const tmp = mkdtempSync(join(tmpdir(), 'bulkpad-bench-'));
@@ -38,24 +38,6 @@ if (baseRef) {
 	const tar = execFileSync('git', ['-C', root, 'archive', baseRef, 'src/lib/holo'], { maxBuffer: 1 << 28 });
 	execFileSync('tar', ['-x', '-C', baseDir], { input: tar });
 	Base = await loadBenchEngine(baseDir, 'base');
-}
-
-function bench(name, fn, { minRuns = 20, minMs = 400, quiet = false } = {}) {
-	// warm-up (JIT): at least 5 calls and 200 ms, so the first row is not timed on colder code than the others
-	const w0 = performance.now();
-	for (let i = 0; i < 5 || performance.now() - w0 < 200; i++) fn();
-	const times = [];
-	const t0 = performance.now();
-	while (times.length < minRuns || performance.now() - t0 < minMs) {
-		const a = performance.now();
-		fn();
-		times.push((performance.now() - a) * 1000);
-		if (times.length > 100000) break;
-	}
-	times.sort((x, y) => x - y);
-	const r = { name, median_us: Number(times[times.length >> 1].toFixed(2)), runs: times.length };
-	if (!quiet) console.log(JSON.stringify(r));
-	return r;
 }
 
 const brane = H.makeBulk('brane', { d: 4, zh: 1 });

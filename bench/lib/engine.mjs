@@ -27,3 +27,22 @@ export async function loadEngine(dir, name, extra = '') {
 	});
 	return import(pathToFileURL(outfile).href);
 }
+
+/** Median µs of repeated runs of `fn` after a JIT warm-up; prints the row as one JSON line unless `quiet`. */
+export function bench(name, fn, { minRuns = 20, minMs = 400, quiet = false } = {}) {
+	// warm-up (JIT): at least 5 calls and 200 ms, so the first row is not timed on colder code than the others
+	const w0 = performance.now();
+	for (let i = 0; i < 5 || performance.now() - w0 < 200; i++) fn();
+	const times = [];
+	const t0 = performance.now();
+	while (times.length < minRuns || performance.now() - t0 < minMs) {
+		const a = performance.now();
+		fn();
+		times.push((performance.now() - a) * 1000);
+		if (times.length > 100000) break;
+	}
+	times.sort((x, y) => x - y);
+	const r = { name, median_us: Number(times[times.length >> 1].toFixed(2)), runs: times.length };
+	if (!quiet) console.log(JSON.stringify(r));
+	return r;
+}
