@@ -290,50 +290,33 @@ function markerPrims(prims: Prim[], pts: [number, number][], errors: number[] | 
 function legend(prims: Prim[], f: FigureSpec) {
 	const x = M.l + 10;
 	let y = M.t + 6;
-	for (const c of f.curves) {
-		prims.push({
+	/** one legend row: its swatch (a line or a marker) at the row's height, then its label */
+	const entry = (swatch: (y: number) => Prim, text: string) => {
+		prims.push(swatch(y));
+		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(text), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
+		y += 14;
+	};
+	const line =
+		(style: { stroke: string; width: number; dash?: string }, cls: string) =>
+		(at: number): Prim => ({
 			t: 'line',
 			x1: x,
 			x2: x + 22,
-			y1: y + 4,
-			y2: y + 4,
-			stroke: c.style.stroke,
-			width: c.style.width,
-			dash: c.style.dash,
-			cls: 'legend-line'
+			y1: at + 4,
+			y2: at + 4,
+			stroke: style.stroke,
+			width: style.width,
+			dash: style.dash,
+			cls
 		});
-		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(c.legend), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
-		y += 14;
-	}
+	for (const c of f.curves) entry(line(c.style, 'legend-line'), c.legend);
 	if (f.markers) {
-		prims.push({ t: 'marker', x: x + 11, y: y + 4, r: 3, fill: DATASET_COLOUR, stroke: DATASET_COLOUR, clip: -1 });
-		prims.push({
-			t: 'text',
-			x: x + 28,
-			y: y + 8,
-			runs: labelRuns(f.markers.legend + (f.markers.errors ? '\\;\\pm\\sigma' : '')),
-			size: 10,
-			anchor: 'start',
-			fill: INK,
-			cls: 'legend-text'
-		});
-		y += 14;
+		entry(
+			(at) => ({ t: 'marker', x: x + 11, y: at + 4, r: 3, fill: DATASET_COLOUR, stroke: DATASET_COLOUR, clip: -1 }),
+			f.markers.legend + (f.markers.errors ? '\\;\\pm\\sigma' : '')
+		);
 	}
-	for (const g of f.guides ?? []) {
-		prims.push({
-			t: 'line',
-			x1: x,
-			x2: x + 22,
-			y1: y + 4,
-			y2: y + 4,
-			stroke: GUIDE_STYLE.stroke,
-			width: GUIDE_STYLE.width,
-			dash: GUIDE_STYLE.dash,
-			cls: 'legend-line legend-guide'
-		});
-		prims.push({ t: 'text', x: x + 28, y: y + 8, runs: labelRuns(g.legend), size: 10, anchor: 'start', fill: INK, cls: 'legend-text' });
-		y += 14;
-	}
+	for (const g of f.guides ?? []) entry(line(GUIDE_STYLE, 'legend-line legend-guide'), g.legend);
 	if (f.bands.length) {
 		prims.push({
 			t: 'text',
