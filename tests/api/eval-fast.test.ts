@@ -35,4 +35,16 @@ describe('POST /api/eval fast path', () => {
 			expect(strip(a.body), input).toEqual(strip(b.body));
 		}
 	});
+
+	it('streams the same reply line to a client that asks for ndjson (the console does, for lines in no pad too)', async () => {
+		for (const input of ['darea l=0.5', 'darea l=-1', 'thermo']) {
+			const plain = await c.post('/api/eval', { input });
+			const r = await c.request('POST', '/api/eval', { input }, { accept: 'application/x-ndjson' });
+			expect(r.headers.get('content-type'), input).toContain('application/x-ndjson');
+			// one line of ndjson is also one JSON document, which the test client has parsed already
+			const last = typeof r.body === 'string' ? JSON.parse(r.body.trim().split('\n').at(-1)!) : r.body;
+			expect(last.reply.status, input).toBe(plain.status);
+			expect(strip(last.reply.body), input).toEqual(strip(plain.body));
+		}
+	});
 });

@@ -1,11 +1,11 @@
 import { Lucia } from 'lucia';
-import { DrizzleSQLiteAdapter } from '@lucia-auth/adapter-drizzle';
-import { getDb, schema } from '../db';
+import { getDb } from '../db';
+import { PreparedSessionAdapter } from './session-adapter';
 import { env } from '../env';
 import type { Role } from '../db/schema';
 
 function createLucia() {
-	const adapter = new DrizzleSQLiteAdapter(getDb(), schema.sessions, schema.users);
+	const adapter = new PreparedSessionAdapter(getDb());
 	return new Lucia(adapter, {
 		sessionCookie: { attributes: { secure: env.secureCookies, sameSite: 'lax' } },
 		getUserAttributes: (a) => ({ email: a.email, name: a.name, role: a.role }),

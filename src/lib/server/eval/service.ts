@@ -69,14 +69,25 @@ function tooLong(input: string): QueueAnswer | undefined {
 }
 
 /**
+ * The reply to a stateless line that qualifies for the fast path (fast.ts), computed at once; undefined when the
+ * line must wait for an evaluation process. The route tries this before it sets up anything a queued line needs.
+ */
+export function evaluateStatelessFast(input: string): EvalReply | undefined {
+	if (input.length > MAX_INPUT) return undefined;
+	const t0 = performance.now();
+	const fast = answerFast(input, { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, macros: {} });
+	return fast && reply(fast, performance.now() - t0, undefined, DEFAULT_BULK);
+}
+
+/**
  * A line with the default bulk and its own keys; nothing is stored. A single-point strip line of bounded cost is
  * answered here at once (fast.ts); everything else waits for an evaluation process.
  */
 export async function evaluateStateless(input: string, ownerId: string, opts: EvalOptions = {}): Promise<EvalReply> {
 	const t0 = performance.now();
 	const long = tooLong(input);
-	const fast = long ? undefined : answerFast(input, { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, macros: {} });
-	if (fast) return reply(fast, performance.now() - t0, undefined, DEFAULT_BULK);
+	const fast = long ? undefined : evaluateStatelessFast(input);
+	if (fast) return fast;
 	const ctx = { bulk: DEFAULT_BULK, units: DEFAULT_UNITS, refs: {}, lets: {}, ...lineLibrary(input) };
 	const answer = long ?? (await evaluateLine(input, ctx, ownerId, ownerId, opts));
 	return reply(answer, performance.now() - t0, {}, DEFAULT_BULK);

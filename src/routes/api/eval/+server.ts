@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { api, readBody } from '$lib/server/http';
 import { requireWriter } from '$lib/server/auth/guards';
 import { findOwnPad } from '$lib/server/pads';
-import { evaluateInPad, evaluateStateless, type EvalOptions, type EvalReply } from '$lib/server/eval/service';
+import { evaluateInPad, evaluateStateless, evaluateStatelessFast, type EvalOptions, type EvalReply } from '$lib/server/eval/service';
 import { clientGone } from '$lib/server/eval/disconnect';
 import { evalBodySchema } from '$lib/server/api-schemas';
 
@@ -17,12 +17,17 @@ export const POST = api(async (event) => {
 	const { input, pad } = await readBody(event, evalBodySchema);
 	const padOf = pad ? () => findOwnPad(user, pad) : undefined;
 	padOf?.(); // 404 before anything runs
+	const streamed = (event.request.headers.get('accept') ?? '').includes('application/x-ndjson');
+	// a light stateless line is answered before any of the queued path's set-up (the hang-up signal, the stream)
+	const quick = pad ? undefined : evaluateStatelessFast(input);
+	if (quick)
+		return streamed ? ndjson(JSON.stringify({ reply: quick }) + '\n') : json(quick.body, { status: quick.status, headers: quick.headers });
 	const run = (opts: EvalOptions): Promise<EvalReply> =>
 		padOf ? evaluateInPad(padOf, input, opts) : evaluateStateless(input, user.id, opts);
 
 	const gone = clientGone(event);
 	const signal = gone.signal;
-	if (!(event.request.headers.get('accept') ?? '').includes('application/x-ndjson')) {
+	if (!streamed) {
 		try {
 			const r = await run({ signal });
 			return json(r.body, { status: r.status, headers: r.headers });
@@ -52,5 +57,9 @@ export const POST = api(async (event) => {
 		}
 	});
 	// the stream's own cancel (the browser dropping the response) cancels the line too
-	return new Response(stream, { headers: { 'content-type': 'application/x-ndjson', 'cache-control': 'no-store' } });
+	return ndjson(stream);
 });
+
+function ndjson(body: BodyInit): Response {
+	return new Response(body, { headers: { 'content-type': 'application/x-ndjson', 'cache-control': 'no-store' } });
+}
