@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { eq } from 'drizzle-orm';
-import { getDb, schema } from '../db';
+import { eq, sql } from 'drizzle-orm';
+import { getDb, schema, type Db } from '../db';
 
 const PREFIX = 'bpk_';
 
@@ -56,7 +56,31 @@ function countKeyRequest(keyId: string, now: number): { count: number; resetAt: 
 }
 
 export type KeyVerdict =
-	{ ok: true; user: typeof schema.users.$inferSelect } | { ok: false; status: 401 | 429; message: string; retryAfter?: number };
+	| { ok: true; user: Pick<typeof schema.users.$inferSelect, 'id' | 'email' | 'name' | 'role'> }
+	| { ok: false; status: 401 | 429; message: string; retryAfter?: number };
+
+/**
+ * The key's row and its user, as one statement prepared once per database (a bearer key is checked on every
+ * scripted request; building and compiling the join each time cost more than the light lines it guards).
+ * Only the user columns the request needs are read: never the password hash.
+ */
+const keyLookups = new WeakMap<Db, ReturnType<typeof prepareKeyLookup>>();
+
+function prepareKeyLookup(db: Db) {
+	const { apiKeys, users } = schema;
+	return db
+		.select({
+			user: { id: users.id, email: users.email, name: users.name, role: users.role },
+			keyId: apiKeys.id,
+			lastUsedAt: apiKeys.lastUsedAt,
+			perMinute: apiKeys.perMinute,
+			expiresAt: apiKeys.expiresAt
+		})
+		.from(apiKeys)
+		.innerJoin(users, eq(users.id, apiKeys.userId))
+		.where(eq(apiKeys.hash, sql.placeholder('hash')))
+		.prepare();
+}
 
 /**
  * What a bearer key gets: its user, or a refusal that names the reason (an expired key says so, so a script's
@@ -65,18 +89,9 @@ export type KeyVerdict =
 export function judgeApiKey(key: string, now = Date.now()): KeyVerdict | null {
 	if (!key.startsWith(PREFIX)) return null;
 	const db = getDb();
-	const row = db
-		.select({
-			user: schema.users,
-			keyId: schema.apiKeys.id,
-			lastUsedAt: schema.apiKeys.lastUsedAt,
-			perMinute: schema.apiKeys.perMinute,
-			expiresAt: schema.apiKeys.expiresAt
-		})
-		.from(schema.apiKeys)
-		.innerJoin(schema.users, eq(schema.users.id, schema.apiKeys.userId))
-		.where(eq(schema.apiKeys.hash, hashKey(key)))
-		.get();
+	let lookup = keyLookups.get(db);
+	if (!lookup) keyLookups.set(db, (lookup = prepareKeyLookup(db)));
+	const row = lookup.get({ hash: hashKey(key) });
 	if (!row) return null;
 	if (row.expiresAt && row.expiresAt.getTime() <= now) {
 		return { ok: false, status: 401, message: `This key expired on ${row.expiresAt.toISOString()}; make a new one on the Keys page.` };
