@@ -46,6 +46,17 @@ describe('import checks what it stores', () => {
 		expect(r.body.pad).toMatchObject({ bulk: doc.bulk, units: { system: 'geo', G: 2 }, lets: { w: doc.lets.w } });
 	});
 
+	it('round-trips the longest answers the language can give (boosted coefficients to the highest order)', async () => {
+		const id = await padWithSteps(member, 'Long formulas', ['use boosted d=4 v=0.5', 'coeffs darea o=12']);
+		const long = (await member.get(`/api/pads/${id}/export?format=json`)).body;
+		const series = long.steps.at(-1).results[0];
+		expect(series.kind).toBe('series');
+		const r = await member.post('/api/pads/import', long);
+		expect(r.status, JSON.stringify(r.body).slice(0, 300)).toBe(201);
+		const back = (await member.get(`/api/pads/${r.body.pad.id}/export?format=json`)).body;
+		expect(back.steps.at(-1).results[0]).toEqual(series);
+	});
+
 	it('refuses an unknown pad bulk with a 400 naming it', async () => {
 		const message = expectFailure(await member.post('/api/pads/import', { ...doc, bulk: { name: 'wormhole', params: { d: 4 } } }), 400);
 		expect(message).toMatch(/bulk\.name: unknown bulk 'wormhole': Bulkpad knows vacuum, brane, boosted/);

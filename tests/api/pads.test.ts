@@ -202,7 +202,9 @@ describe('export', () => {
 		expect(tex).not.toContain(`Step \\#${steps[6].n}}`);
 		expect(tex).toContain('1 failed or hidden step left out');
 		expect(tex).toContain('\\begin{longtable}{rrr}');
-		expect(tex).toContain(`\\[\n${steps[3].results![0].latex}\n\\]`);
+		// a series is its coefficient list (one a_k per row, symbols defined) in align*, as the console's list shows it
+		const list = (steps[3].results![0] as { list: string }).list.split(' \\\\\n');
+		expect(tex).toContain(`\\begin{align*}\n${list[0].replace('\\begin{aligned}\n', '')} \\\\\n${list[1]} \\\\\n`);
 		expect(tex.match(/\\begin\{verbatim\}/g)).toHaveLength(steps.filter((x) => x.status === 'ok').length);
 	});
 
@@ -214,6 +216,20 @@ describe('export', () => {
 		// asynchronously: a blocked event loop would leave the client's keep-alive socket stale
 		const run = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'pad.tex'], {
 			cwd: dir
+		}).catch((e: { stdout?: string }) => ({ stdout: e.stdout ?? '', failed: true }));
+		expect('failed' in run, run.stdout.slice(-2000)).toBe(false);
+		expect(run.stdout).toMatch(/Output written on pad\.pdf/);
+	});
+
+	it.runIf(hasPdflatex)('the LaTeX export of the longest series the language writes compiles too', { timeout: 180_000 }, async () => {
+		const id = await padWithSteps(owner, 'Long series', ['use boosted d=4 v=0.5', 'coeffs darea o=12']);
+		const tex = (await owner.get(`/api/pads/${id}/export?format=tex`)).body as string;
+		expect(tex).toContain('a_{12}');
+		const dir = mkdtempSync(join(tmpdir(), 'bulkpad-tex-'));
+		writeFileSync(join(dir, 'pad.tex'), tex);
+		const run = await promisify(execFile)('pdflatex', ['-interaction=nonstopmode', '-halt-on-error', '-no-shell-escape', 'pad.tex'], {
+			cwd: dir,
+			maxBuffer: 16 * 1024 * 1024
 		}).catch((e: { stdout?: string }) => ({ stdout: e.stdout ?? '', failed: true }));
 		expect('failed' in run, run.stdout.slice(-2000)).toBe(false);
 		expect(run.stdout).toMatch(/Output written on pad\.pdf/);

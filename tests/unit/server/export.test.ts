@@ -1,7 +1,7 @@
 // Whole-pad export formats and the import schema: pure functions, table-driven.
 import { describe, expect, it } from 'vitest';
 import { renderMarkdown } from '../../../src/lib/server/export/markdown';
-import { renderLatex, safeMath, texText } from '../../../src/lib/server/export/latex';
+import { breakRows, renderLatex, safeMath, texText } from '../../../src/lib/server/export/latex';
 import { formatNumber, latexNumber } from '../../../src/lib/server/export/numbers';
 import { exportFilename, exportPad } from '../../../src/lib/server/export/index';
 import { parsePadDocument, toPadDocument, type PadDocument } from '../../../src/lib/server/export/schema';
@@ -107,6 +107,54 @@ describe('LaTeX', () => {
 		const tex = renderLatex(doc([ok(1, 'coeffs', [{ kind: 'series', label: 's', terms: [], latex: '\\input{/etc/passwd}' }])]));
 		expect(tex).not.toContain('\\input{');
 		expect(tex).toContain('\\texttt{\\textbackslash{}input\\{/etc/passwd\\}}');
+	});
+
+	it('sets a series as its coefficient list in align* blocks under the cap, a too-long coefficient by its value', () => {
+		const long = Array.from({ length: 4000 }, (_, i) => `x_{${i}}`).join('+'); // ~28k characters, over the cap
+		const mid = Array.from({ length: 1200 }, (_, i) => `y_{${i}}`).join(' + '); // ~10k: cut into rows; two do not share a block
+		const terms = [
+			{ k: 1, coeff: 0.5, latex: '\\tfrac{1}{2}' },
+			{ k: 2, coeff: -0.25, latex: mid },
+			{ k: 3, coeff: 0.125, latex: mid },
+			{ k: 4, coeff: 1.5e-3, latex: long }
+		];
+		const list = [
+			'\\begin{aligned}',
+			['\\Delta A &= \\sum_{k\\ge1} a_{k}\\,\\tau^{k}', ...terms.map((t) => `a_{${t.k}} &= ${t.latex}`), '&\\text{where}'].join(' \\\\\n'),
+			'\\end{aligned}'
+		].join('\n');
+		const tex = renderLatex(
+			doc([ok(1, 'coeffs darea o=4', [{ kind: 'series', label: 's', terms, latex: terms.map((t) => t.latex).join('+'), list }])])
+		);
+		const blocks = [...tex.matchAll(/\\begin\{align\*\}\n([\s\S]*?)\n\\end\{align\*\}/g)].map((m) => m[1]);
+		expect(blocks.length).toBeGreaterThanOrEqual(2);
+		for (const b of blocks) {
+			expect(b.length).toBeLessThanOrEqual(20_000);
+			expect(safeMath(b)).not.toBeNull();
+		}
+		const all = blocks.join('\n');
+		expect(all).toContain('a_{1} &= \\tfrac{1}{2}');
+		expect(all).toContain('a_{3} &= y_{0}');
+		expect(all).toContain(`a_{4} &\\approx ${latexNumber(1.5e-3)}`);
+		expect(all).not.toContain('x_{0}');
+		expect(all).toContain('\\text{where}');
+	});
+
+	it('cuts a wide coefficient into rows at its top-level signs, never inside a group, with fixed-size brackets', () => {
+		const line =
+			'a_{2} &= \\frac{1}{2}\\left(' + Array.from({ length: 60 }, (_, i) => `c_{${i}}\\tfrac{1}{${i + 1}}`).join(' - ') + '\\right)';
+		const rows = breakRows(line, 100)!;
+		expect(rows.length).toBeGreaterThan(3);
+		expect(rows[0].startsWith('a_{2} &= \\frac{1}{2}\\bigl(')).toBe(true);
+		expect(rows.at(-1)!.endsWith('\\bigr)')).toBe(true);
+		for (const r of rows.slice(1)) expect(r).toMatch(/^&\\qquad - c_\{\d+\}/);
+		// the rows put back together are the line (with the brackets fixed-size)
+		expect(rows.map((r, k) => (k ? r.replace('&\\qquad ', ' ') : r)).join('')).toBe(
+			line.replace('\\left(', '\\bigl(').replace('\\right)', '\\bigr)')
+		);
+		// a sign inside braces is no place to break; a row that cannot be cut short enough is refused
+		expect(breakRows('x = {' + 'a + '.repeat(2000) + 'b}', 100)).toBeNull();
+		expect(breakRows('short', 100)).toEqual(['short']);
 	});
 
 	it('keeps an input from ending its verbatim block early', () => {

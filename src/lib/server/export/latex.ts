@@ -1,7 +1,7 @@
 import type { PadDocument } from './schema';
 import { latexNumber, orderText } from './numbers';
 import { bulkText } from './markdown';
-import { safeMath } from './safe-math';
+import { MAX_MATH_LENGTH, safeMath } from './safe-math';
 
 export { safeMath };
 
@@ -146,6 +146,89 @@ function tabular(columns: string[], rows: (number | string | null)[][]): string[
 	return out;
 }
 
+/** Rows of a displayed coefficient: a row much wider than this (in LaTeX characters) runs off the page. */
+const ROW_CHARS = 150;
+/** A row TeX cannot set at all ("Dimension too large" past ~5.7 m): such a coefficient is given by its value. */
+const MAX_ROW_CHARS = 4000;
+
+/**
+ * One aligned line of a coefficient list cut into rows at its top-level + and − (brace depth 0), continuing
+ * under the relation. \left/\right become \bigl/\bigr first: a stretchy pair must close on its own row, a fixed
+ * size pair need not, so the sums inside a bracket can break too. Null when a row would still be too wide.
+ */
+export function breakRows(line: string, width = ROW_CHARS): string[] | null {
+	if (line.length <= width) return [line];
+	const s = line.replace(/\\left(?![A-Za-z])/g, '\\bigl').replace(/\\right(?![A-Za-z])/g, '\\bigr');
+	const rows: string[] = [];
+	let depth = 0;
+	let from = 0;
+	let last = -1; // the latest place a row may end (the space before a top-level sign)
+	const cutAtLast = (end: number) => {
+		if (end - from > width && last > from) {
+			rows.push(s.slice(from, last));
+			from = last + 1;
+		}
+	};
+	for (let i = 0; i < s.length; i++) {
+		const ch = s[i];
+		if (ch === '\\')
+			i++; // an escaped brace or a control word's first letter: never a break or a group
+		else if (ch === '{') depth++;
+		else if (ch === '}') depth--;
+		else if (depth === 0 && ch === ' ' && (s[i + 1] === '+' || s[i + 1] === '-') && s[i + 2] === ' ') {
+			cutAtLast(i);
+			last = i;
+		}
+	}
+	cutAtLast(s.length);
+	rows.push(s.slice(from));
+	if (rows.some((r) => r.length > MAX_ROW_CHARS)) return null;
+	return rows.map((r, k) => (k === 0 ? r : `&\\qquad ${r}`));
+}
+
+/**
+ * A series for a paper: its coefficient list (the expansion, a_k one per line, the symbols defined) in align*
+ * blocks, not the one-line sum — at high orders that sum is far wider than any page (TeX stops at "Dimension too
+ * large") and longer than the safe-math cap. Each coefficient is cut into rows (breakRows); one that cannot be
+ * is given by its value, saying so. Blocks are cut before they pass the cap.
+ */
+function seriesDisplay(r: Extract<Result, { kind: 'series' }>): string[] {
+	if (!r.list) return display(r.latex);
+	const valueRow = (k: number) => {
+		const term = r.terms.find((t) => t.k === k);
+		return term
+			? [`a_{${k}} &\\approx ${latexNumber(term.coeff)} \\quad \\text{(exact form too long to typeset here; in the pad's JSON export)}`]
+			: [];
+	};
+	const rows = r.list
+		.replace(/^\s*\\begin\{aligned\}/, '')
+		.replace(/\\end\{aligned\}\s*$/, '')
+		.split(/\s*\\\\\s*\n/)
+		.map((l) => l.trim())
+		.filter(Boolean)
+		.flatMap((line) => {
+			const k = /^a_\{(\d+)\}/.exec(line)?.[1];
+			const cut = breakRows(line);
+			if (cut && cut.every((row) => safeMath(row))) return cut;
+			return k === undefined ? [] : valueRow(Number(k));
+		});
+	const out: string[] = [];
+	let block: string[] = [];
+	let size = 0;
+	const flush = () => {
+		if (block.length) out.push('\\begin{align*}', block.join(' \\\\\n'), '\\end{align*}');
+		block = [];
+		size = 0;
+	};
+	for (const row of rows) {
+		if (size + row.length > MAX_MATH_LENGTH) flush();
+		block.push(row);
+		size += row.length + 4;
+	}
+	flush();
+	return out;
+}
+
 function renderResult(r: Result): string[] {
 	switch (r.kind) {
 		case 'scalar':
@@ -165,7 +248,7 @@ function renderResult(r: Result): string[] {
 		case 'table':
 			return [`\\item \\textbf{${texText(r.label)}} (${r.rows.length} rows)`, ...warnLine(r.warning), ...tabular(r.columns, r.rows)];
 		case 'series':
-			return [`\\item \\textbf{${texText(r.label)}} (series, ${r.terms.length} terms)`, ...warnLine(r.warning), ...display(r.latex)];
+			return [`\\item \\textbf{${texText(r.label)}} (series, ${r.terms.length} terms)`, ...warnLine(r.warning), ...seriesDisplay(r)];
 		case 'check': {
 			const relation = typeof r.relation === 'string' ? [`\\\\relation: ${texText(r.relation)}`] : [];
 			const chi = typeof r.chi2dof === 'number' ? `; $\\chi^2/\\mathrm{dof}$ $=$ ${n(r.chi2dof)}, $p$ $=$ ${n(r.pvalue)}` : '';
@@ -201,6 +284,8 @@ export function renderLatex(doc: PadDocument, meta: { owner?: string; exportedAt
 		'\\usepackage[T1]{fontenc}',
 		'\\usepackage[utf8]{inputenc}',
 		'\\usepackage{amsmath,amssymb}',
+		// a long coefficient list is one align* of many rows: let it continue on the next page
+		'\\allowdisplaybreaks',
 		'\\usepackage{longtable}',
 		'\\IfFileExists{booktabs.sty}{\\usepackage{booktabs}}{\\newcommand{\\toprule}{\\hline}\\newcommand{\\midrule}{\\hline}\\newcommand{\\bottomrule}{\\hline}}',
 		`\\title{${texText(doc.title)}}`,
