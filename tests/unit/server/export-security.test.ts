@@ -24,7 +24,7 @@ const HOSTILE_LATEX = hostileFormulas();
 
 /** Control words the exporter itself writes around formulas and text. */
 const DOCUMENT_WORDS = new Set(
-	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline IfFileExists newcommand toprule midrule bottomrule endfirsthead endhead endlastfoot multicolumn footnotesize'.split(
+	'documentclass usepackage title author date begin end maketitle noindent texttt textbf textit item subsection textbackslash textasciitilde textless textgreater textbar ldots small hline IfFileExists newcommand toprule midrule bottomrule endfirsthead endhead endlastfoot multicolumn footnotesize allowdisplaybreaks'.split(
 		' '
 	)
 );
