@@ -103,6 +103,14 @@ describe('the .tex export of a hostile pad', () => {
 			warning: '^^5cinput'
 		})),
 		{ kind: 'series', label: 's', terms: [{ k: 2, coeff: 1, latex: '\\input{x}' }], latex: HOSTILE_LATEX[4] },
+		// a coefficient list whose rows, cut at their signs, would each hide a hostile word or an unbalanced environment
+		{
+			kind: 'series',
+			label: 'list',
+			terms: [{ k: 1, coeff: 2, latex: 'x' }],
+			latex: 'x',
+			list: `\\begin{aligned}\na_{1} &= \\begin{aligned} ${'y + '.repeat(80)}\\input{x} - z \\end{aligned} \\\\\n\\end{itemize}\\write18{x} + ${'w + '.repeat(60)}1\n\\end{aligned}`
+		},
 		{ kind: 'table', label: 't', columns: ['\\csname', '$x$'], rows: [['\\immediate\\write18{x}', 1, 'extra cell']] },
 		{ kind: 'record', label: 'r', fields: { '\\def\\x': 1 }, latex: '\\catcode`\\^=7' },
 		{ kind: 'note', text: '\\end{itemize}\\input{/etc/hostname}' }
@@ -138,7 +146,15 @@ describe('the .tex export of a hostile pad', () => {
 
 	it('uses only the environments it opened itself', () => {
 		const envs = new Set([...tex.matchAll(/\\begin\{([^}]*)\}/g)].map((m) => m[1]));
-		expect([...envs].sort()).toEqual(['document', 'itemize', 'longtable', 'verbatim']);
+		expect([...envs].sort()).toEqual(['align*', 'document', 'itemize', 'longtable', 'verbatim']);
+	});
+
+	it('gives a hostile coefficient list by its value and drops its lines that name no coefficient', () => {
+		expect(tex).toContain(
+			`a_{1} &\\approx 2 \\quad \\text{(exact form not typeset here, too long for one row; it is in the pad's JSON export)}`
+		);
+		expect(tex).not.toContain('y + y');
+		expect(tex).not.toContain('w + w');
 	});
 
 	it('escapes control characters in text fields', () => {
