@@ -13,12 +13,25 @@ import { expectRel } from './check';
  */
 describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py)', () => {
 	it('the fixture covers d = 2, 3, 4, widths 1–4 and times where three surfaces compete', () => {
-		// 11 of the runner's 15 cases: d = 4 at l = 3, 4 and d = 3 l = 4 t = 2.7 (the runner's own Newton does not
-		// converge next to the family's edge there) did not finish on the loaded machine — vaidya.json says which
-		expect(fx.rows.length).toBeGreaterThanOrEqual(11);
+		// all 15 of the runner's cases, with the wide strips whose competing surfaces climb behind the horizon next to
+		// the family's edge (d = 3, l = 4 and d = 4, l = 3 near saturation) and d = 4, l = 4 early
+		expect(fx.rows.length).toBe(15);
+		expect(fx.rows.some((r) => r.d === 4 && r.l === 4)).toBe(true);
+		expect(fx.rows.filter((r) => r.l >= 3 && r.count >= 3).length).toBeGreaterThanOrEqual(3);
 		expect([...new Set(fx.rows.map((r) => r.d))].sort()).toEqual([2, 3, 4]);
 		expect([...new Set(fx.rows.map((r) => r.l))].sort()).toEqual([1, 2, 3, 4]);
 		expect(fx.rows.filter((r) => r.count >= 3).length).toBeGreaterThanOrEqual(2);
+	});
+	it('the runner itself: its d = 2 static column is the thermal closed form, its t_sat is l/2', () => {
+		// 2 ln((2 zh/l) sinh(l/(2 zh))) and saturation at exactly t = l/2 in BTZ (Balasubramanian et al. 2011;
+		// PHYSICS.md "Quench"): a check of the reference's own quadrature next to the horizon, independent of the engine
+		const btz = fx.rows.filter((r) => r.d === 2);
+		expect(btz.length).toBeGreaterThanOrEqual(3);
+		for (const r of btz) {
+			const thermal = 2 * Math.log((2 / r.l) * Math.sinh(r.l / 2));
+			expectRel(`runner static d=2 l=${r.l}`, thermal, Number(r.static), 1e-14, 'Balasubramanian et al. 2011');
+			expectRel(`runner t_sat d=2 l=${r.l}`, r.l / 2, Number(r.tsat), 1e-15, 'Balasubramanian et al. 2011');
+		}
 	});
 	for (const r of fx.rows) {
 		it(`d=${r.d} l=${r.l} t=${r.t} (${r.count} surface${r.count > 1 ? 's' : ''})`, () => {
