@@ -313,7 +313,7 @@ const lines = [
 	'',
 	ratio ? `mpmath / engine for one exact ΔA: ×${ratio.toFixed(0)}` : 'mpmath comparison not run',
 	quenchRunner
-		? `mpmath quench runner (tests/fixtures/holo/vaidya_runner.py, 32 digits, all surfaces from scratch): ${quenchRunner} s per (l, t) point`
+		? `mpmath quench runner (tests/fixtures/holo/vaidya_runner.py, 24 digits, all surfaces from scratch): ${quenchRunner} s per (l, t) point`
 		: 'mpmath quench runner time: fixture not generated',
 	...(compared.length
 		? [
