@@ -3,6 +3,7 @@ import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { solveStrip, vacuumWidthFactor } from '../strip';
 import { surfaceAt, surfaceExists, type Surface } from './family';
+import type { Slice } from '../types';
 import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
 
 /**
@@ -46,12 +47,31 @@ interface Pending {
 const GRID = 24;
 const MAX_POINTS = 400;
 
-/** dF/dx at a grid point's tip (F = ln(l(x)/l), x = ln z*), from the last secant step that found it: the
- * neighbours' slope starts the next tip's secant with a near-Newton step. */
-const SLOPE = new WeakMap<CurvePoint, number>();
+/** A point of the curve as curve.ts keeps it: `slope` is dF/dx at its tip (F = ln(l(x)/l), x = ln z*) from the
+ * last secant step that found it (the neighbours' slopes start the next tip's secant with a near-Newton step);
+ * `located` marks an extremum found by the minimiser (not a grid sample). */
+interface GridPoint extends CurvePoint {
+	slope?: number;
+	located?: boolean;
+}
 
-/** Points that are located extrema (not grid samples). */
-const LOCATED = new WeakSet<CurvePoint>();
+/**
+ * The brane slice per (d, zh), kept: the strip solver prepares its quadrature nodes once per slice object (~0.2 ms,
+ * a tenth of a cold quench point), so a fresh makeBrane per call would pay that every time.
+ */
+const SLICES = new Map<string, Slice>();
+
+export function braneSlice(d: number, zh: number): Slice {
+	const key = `${d}:${zh}`;
+	let s = SLICES.get(key);
+	if (!s) {
+		s = makeBrane({ d, zh }).slice;
+		if (SLICES.size >= 16) SLICES.delete(SLICES.keys().next().value as string);
+		SLICES.set(key, s);
+	}
+	return s;
+}
+
 
 function tipOf(curve: { l: number; d: number; static: { zstar: number } }, p: CurvePoint): number {
 	return p.surface ? p.surface.zstar : p.zeta <= 0 ? curve.l / vacuumWidthFactor(curve.d) : curve.static.zstar;
@@ -94,10 +114,8 @@ function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): Curv
 	return r ? made(zeta, r, m) : null;
 }
 
-function made(zeta: number, s: Surface, slope: number): CurvePoint {
-	const p = { zeta, t: s.t, dA: s.dA, surface: s };
-	SLOPE.set(p, slope);
-	return p;
+function made(zeta: number, s: Surface, slope: number): GridPoint {
+	return { zeta, t: s.t, dA: s.dA, surface: s, slope };
 }
 
 /**
@@ -122,7 +140,7 @@ function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint |
 	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
 	const x = lagrange(use, use.map((p) => Math.log(tipOf(curve, p))), zeta);
 	// the slope is 1 for the vacuum (ζ = 0); a neighbour solved by the fallback has none: start from 1 then
-	const ms = use.map((p) => (p.zeta <= 0 ? 1 : SLOPE.get(p)));
+	const ms = use.map((p) => (p.zeta <= 0 ? 1 : (p as GridPoint).slope));
 	const m = ms.every((v) => v !== undefined) ? lagrange(use, ms as number[], zeta) : 1;
 	return tipAt(curve.d, curve.l, zeta, x, m);
 }
@@ -132,7 +150,7 @@ function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint |
  * the grid, the rest done near the times asked (surfacesAt) or all at once (completeCurve).
  */
 export function buildCurve(d: number, l: number, full = true): Curve {
-	const st = solveStrip(makeBrane({ d, zh: 1 }).slice, l);
+	const st = solveStrip(braneSlice(d, 1), l);
 	const tsat = saturationTime(d, st.zstar, st.point.eta);
 	const stat = { zstar: st.zstar, eta: st.point.eta, dA: st.deltaArea, tsat };
 	const pts: CurvePoint[] = [{ zeta: 0, t: 0, dA: 0, surface: null }];
@@ -237,7 +255,7 @@ function extremaOf(pts: CurvePoint[]): Pending[] {
 	return cand
 		.slice(0, 2)
 		.map((c) => c.p)
-		.filter((p) => !LOCATED.has(p.b));
+		.filter((p) => !(p.b as GridPoint).located);
 }
 
 /** Inserts each extremum of `which` (Brent's minimiser on its three grid points), located to 1e−6 in ζ. */
@@ -263,7 +281,7 @@ function locate(curve: Curve, which: Pending[]): void {
 		);
 		if (best) {
 			found.push(best);
-			LOCATED.add(best);
+			(best as GridPoint).located = true;
 		}
 	}
 	for (const f of found) {

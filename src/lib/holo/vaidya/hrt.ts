@@ -1,7 +1,6 @@
-import { makeBrane } from '../bulks/brane';
 import { HoloError } from '../errors';
 import { solveStrip, vacuumWidthFactor } from '../strip';
-import { buildCurve, completeCurve, surfacesAt, type Curve } from './curve';
+import { braneSlice, buildCurve, completeCurve, surfacesAt, type Curve } from './curve';
 import type { Surface } from './family';
 
 /** One candidate extremal surface at (l, t), in the user's units. */
@@ -52,7 +51,7 @@ function staticStrip(d: number, zh: number, l: number): ReturnType<typeof solveS
 	const key = `${d}:${zh}:${l}`;
 	let st = STATIC.get(key);
 	if (!st) {
-		st = solveStrip(makeBrane({ d, zh }).slice, l);
+		st = solveStrip(braneSlice(d, zh), l);
 		if (STATIC.size >= CACHE_MAX) STATIC.delete(STATIC.keys().next().value as string);
 		STATIC.set(key, st);
 	}
