@@ -72,19 +72,25 @@ export function braneSlice(d: number, zh: number): Slice {
 	return s;
 }
 
-
 function tipOf(curve: { l: number; d: number; static: { zstar: number } }, p: CurvePoint): number {
 	return p.surface ? p.surface.zstar : p.zeta <= 0 ? curve.l / vacuumWidthFactor(curve.d) : curve.static.zstar;
 }
 
 /**
  * The surface of width l at ζ from a predicted tip x0 = ln z* and slope m ≈ dF/dx (F = ln(l(x)/l)): secant steps
- * from a Newton-like first step. The grid's neighbours predict the tip to ~1e−5 and the slope to a few per cent,
- * so three or four surface evaluations reach |F| < 1e−15, where the general solver (surfaceForWidth, from one
+ * from a Newton-like first step. The grid's neighbours predict the tip to ~1e−4 and the slope to a few per cent,
+ * so three to five surface evaluations reach |F| < GRID_TOL, where the general solver (surfaceForWidth, from one
  * guess and slope 1) takes ~7. Anything unusual — no surface at a trial tip (the family's edge: wide strips), a
- * step that does not shrink |F| before rounding — hands over to surfaceForWidth from the best tip so far, so the
- * answer is the same surface either way.
+ * step that does not shrink |F| — hands over to surfaceForWidth from the best tip so far, so the answer is the
+ * same surface either way.
  */
+/**
+ * |ln(l(z*)/l)| accepted for a point of the curve: the width's own integrals are accurate to ~1e−14 (quad.ts), so
+ * this is as close as they can tell, and the points only bracket the solutions — each answer at (l, t) is then
+ * polished to 2e−15 by newtonIn (or the bracketed path), whatever tip its bracket started from.
+ */
+const GRID_TOL = 1e-13;
+
 function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): CurvePoint | null {
 	const lnl = Math.log(l);
 	let x = x0;
@@ -93,14 +99,14 @@ function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): Curv
 	if (s) {
 		let F = Math.log(s.l) - lnl;
 		for (let k = 0; k < 8; k++) {
-			if (Math.abs(F) < 1e-15) return made(zeta, s, m);
+			if (Math.abs(F) < GRID_TOL) return made(zeta, s, m);
 			const xn = x - F / m;
 			const small = Math.abs(xn - x) < 1e-14 * Math.max(1, Math.abs(x));
 			const c = surfaceAt(d, Math.exp(xn), zeta);
 			if (!c) break;
 			const Fn = Math.log(c.l) - lnl;
 			// rounding reached (as surfaceForWidth's own stop): keep the better of the two
-			if (small || (Math.abs(Fn) >= Math.abs(F) && Math.abs(F) < 1e-13)) return made(zeta, Math.abs(Fn) < Math.abs(F) ? c : s, m);
+			if (small) return made(zeta, Math.abs(Fn) < Math.abs(F) ? c : s, m);
 			if (!(Math.abs(Fn) < Math.abs(F))) break;
 			const mn = (Fn - F) / (xn - x);
 			if (!(mn > 0) || !Number.isFinite(mn)) break;
@@ -119,7 +125,7 @@ function made(zeta: number, s: Surface, slope: number): GridPoint {
 }
 
 /**
- * Lagrange interpolation (or extrapolation) at ζ through up to three solved points, in q = √(1 − ζ): the grid is
+ * Lagrange interpolation (or extrapolation) at ζ through up to four solved points, in q = √(1 − ζ): the grid is
  * uniform in q, and the tip and the slope are smooth in q up to ζ = 1 where they vary fastest in ζ.
  */
 function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
@@ -158,7 +164,7 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 	for (let k = 1; k < GRID; k++) {
 		const p = k / GRID;
 		const zeta = 1 - (1 - p) * (1 - p);
-		const c = pointNear(curve, pts.slice(-3), zeta);
+		const c = pointNear(curve, pts.slice(-4), zeta);
 		if (!c) continue;
 		pts.push(c);
 	}
@@ -222,7 +228,7 @@ function refine(curve: Curve, t: number): boolean {
 		const jump = Math.abs(B.t - A.t) > curve.jumpT || Math.abs(B.dA - A.dA) > curve.jumpA;
 		const mid = 0.5 * (A.zeta + B.zeta);
 		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1 && near(A, B) && !curve.failed.has(mid)) {
-			const c = pointNear(curve, [A, B], mid);
+			const c = pointNear(curve, pts.slice(Math.max(0, i - 1), i + 3), mid);
 			if (c) {
 				pts.splice(i + 1, 0, c);
 				added = true;
