@@ -172,8 +172,24 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 	curve.jumpT = Math.max(...pts.map((p) => p.t)) / 16;
 	curve.jumpA = Math.max(...pts.map((p) => p.dA)) / 16;
 	curve.pending = extremaOf(pts);
-	if (full) completeCurve(curve);
+	if (full || !simple(pts)) completeCurve(curve);
 	return curve;
+}
+
+/**
+ * At most two interior extrema of t (the fold near saturation and its partner minimum): the shape the laziness
+ * of prepareFor relies on. More means the rounding-noise regime of wide strips (PHYSICS.md's pitfalls; d ≥ 5 at
+ * l ≳ 3 zh here): there the whole curve is built, exactly as for a growth analysis, and no time skips a search.
+ */
+function simple(pts: CurvePoint[]): boolean {
+	let n = 0;
+	for (let i = 1; i + 1 < pts.length; i++) {
+		const a = pts[i - 1].t;
+		const b = pts[i].t;
+		const c = pts[i + 1].t;
+		if ((b > a && b >= c) || (b < a && b <= c)) n++;
+	}
+	return n <= 2;
 }
 
 /** Refines every interval and locates every extremum (a growth analysis reads the whole curve). */
@@ -194,7 +210,10 @@ export function completeCurve(curve: Curve): void {
  */
 function prepareFor(curve: Curve, t: number): void {
 	if (curve.complete) return;
-	if (refine(curve, t)) curve.pending = extremaOf(curve.points);
+	if (refine(curve, t)) {
+		if (!simple(curve.points)) return completeCurve(curve);
+		curve.pending = extremaOf(curve.points);
+	}
 	const hidden = (p: Pending): boolean => {
 		const { a, b, c, sgn } = p;
 		const up = sgn * (t - b.t);
