@@ -125,7 +125,9 @@ export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAn
 	const T = t / zh;
 	const cands = surfacesAt(curve, T).map((s) => fromFamily(s, zh, d));
 	const tsat = curve.static.tsat * zh;
-	if (T >= curve.static.tsat) {
+	// the static surface from t_sat on; and within rounding of t_sat when the family's own solution there (ζ → 1,
+	// the static surface itself in the limit) is too close to ζ = 1 to resolve (d = 2, t one ulp below t_sat)
+	if (T >= curve.static.tsat || (cands.length === 0 && T >= curve.static.tsat * (1 - 1e-13))) {
 		const st = staticStrip(d, zh, l);
 		cands.push({ kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 });
 	}
