@@ -48,6 +48,16 @@ describe('quench d = 2 against the BTZ–Vaidya closed form (Balasubramanian et 
 			}
 		}
 	});
+	it('times within rounding of t_sat answer the thermal value (the family meets the static surface there)', () => {
+		for (const l of [1, 2, 4]) {
+			const tsat = hrtDeltaArea(2, 1, l, 0.1).tsat;
+			for (let k = -3; k <= 3; k++) {
+				clearQuenchCache();
+				const t = tsat + k * tsat * Number.EPSILON;
+				expectRel(`d=2 l=${l} t=t_sat${k >= 0 ? '+' : ''}${k} ulp`, btzDeltaArea(l, l / 2), hrtDeltaArea(2, 1, l, t).dA, 1e-10, 'closed form');
+			}
+		}
+	});
 	it('saturates continuously at exactly t = l/2', () => {
 		for (const l of [1, 2, 4]) {
 			const g = analyseGrowth(2, 1, l);
