@@ -54,7 +54,13 @@ describe('quench d = 2 against the BTZ–Vaidya closed form (Balasubramanian et 
 			for (let k = -3; k <= 3; k++) {
 				clearQuenchCache();
 				const t = tsat + k * tsat * Number.EPSILON;
-				expectRel(`d=2 l=${l} t=t_sat${k >= 0 ? '+' : ''}${k} ulp`, btzDeltaArea(l, l / 2), hrtDeltaArea(2, 1, l, t).dA, 1e-10, 'closed form');
+				expectRel(
+					`d=2 l=${l} t=t_sat${k >= 0 ? '+' : ''}${k} ulp`,
+					btzDeltaArea(l, l / 2),
+					hrtDeltaArea(2, 1, l, t).dA,
+					1e-10,
+					'closed form'
+				);
 			}
 		}
 	});

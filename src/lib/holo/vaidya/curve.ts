@@ -144,7 +144,11 @@ function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
 function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint | null {
 	const use = near.filter((p) => p.surface || p.zeta <= 0);
 	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
-	const x = lagrange(use, use.map((p) => Math.log(tipOf(curve, p))), zeta);
+	const x = lagrange(
+		use,
+		use.map((p) => Math.log(tipOf(curve, p))),
+		zeta
+	);
 	// the slope is 1 for the vacuum (ζ = 0); a neighbour solved by the fallback has none: start from 1 then
 	const ms = use.map((p) => (p.zeta <= 0 ? 1 : (p as GridPoint).slope));
 	const m = ms.every((v) => v !== undefined) ? lagrange(use, ms as number[], zeta) : 1;
