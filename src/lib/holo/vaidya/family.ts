@@ -137,7 +137,9 @@ export function surfaceExists(d: number, zstar: number, zeta: number): boolean {
 	const S = setup(d, zstar, zeta);
 	const um = minimumOfP(d, S.mu);
 	if (!(pAt(S, Math.min(um, zeta)) > 0)) return false;
-	return S.a > 1 ? Number.isFinite(turningPoint(S, um)) : true;
+	// turningPoint finds a zero exactly when P(min(u_m, 1)) < 0 with u_m > ζ (its own precondition): that test
+	// alone, without the bisection (the edge search calls this ~50 times per tip)
+	return S.a > 1 ? um > S.zeta && pAt(S, Math.min(um, 1)) < 0 : true;
 }
 
 /** The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). */
