@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hrtDeltaArea } from '../../../src/lib/holo/index';
+import { clearQuenchCache, hrtDeltaArea } from '../../../src/lib/holo/index';
 import { emptyContext, runLine } from '../../../src/lib/lang/evaluate';
 import type { ScalarResult } from '../../../src/lib/lang/result';
 import fx from '../../fixtures/holo/vaidya.json';
@@ -54,6 +54,29 @@ describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py
 				expect(st).toBeDefined();
 				expectRel('static ΔA', Number(r.static), st!.dA, 1e-10, 'mpmath runner');
 			}
+		});
+	}
+});
+
+/**
+ * The same rows from a cold cache: a single point builds only the grid of its width's family curve and refines it
+ * and locates its folds only near its own time (curve.ts), so every row alone must still find every surface the
+ * runner found — including the near-saturation rows where three compete.
+ */
+describe('quench cold points against the mpmath runner (nothing cached before each row)', () => {
+	for (const r of fx.rows) {
+		it(`d=${r.d} l=${r.l} t=${r.t} cold`, () => {
+			clearQuenchCache();
+			const a = hrtDeltaArea(r.d, 1, r.l, Number(r.t));
+			expectRel(`ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), a.dA, 1e-8, 'mpmath runner');
+			expect(a.surfaces.length).toBe(r.count);
+			const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
+			const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));
+			expect(shells.length).toBe(ref.length);
+			shells.forEach((s, i) => {
+				expectRel(`surface ${i} ΔA`, Number(ref[i].dA), s.dA, 1e-8, 'mpmath runner');
+				expectRel(`surface ${i} z*`, Number(ref[i].zstar), s.zstar, 1e-8, 'mpmath runner');
+			});
 		});
 	}
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyseGrowth, deltaArea, hrtDeltaArea, makeBulk, tsunamiVelocity } from '../../../src/lib/holo/index';
+import { analyseGrowth, clearQuenchCache, deltaArea, hrtDeltaArea, makeBulk, tsunamiVelocity } from '../../../src/lib/holo/index';
 import { expectAbs, expectRel } from './check';
 
 /**
@@ -39,6 +39,31 @@ describe('quench d = 2 against the BTZ–Vaidya closed form (Balasubramanian et 
 			});
 		}
 	}
+	it('each point alone, from a cold cache (the curve built only near its time), equals the closed form', () => {
+		for (const l of [1, 2, 4]) {
+			for (const f of [0.1, 0.3, 0.45, 0.499, 0.5, 0.8]) {
+				clearQuenchCache();
+				const t = f * l;
+				expectRel(`cold d=2 l=${l} t=${t}`, btzDeltaArea(l, t), hrtDeltaArea(2, 1, l, t).dA, 1e-10, 'BTZ–Vaidya closed form');
+			}
+		}
+	});
+	it('times within rounding of t_sat answer the thermal value (the family meets the static surface there)', () => {
+		for (const l of [1, 2, 4]) {
+			const tsat = hrtDeltaArea(2, 1, l, 0.1).tsat;
+			for (let k = -3; k <= 3; k++) {
+				clearQuenchCache();
+				const t = tsat + k * tsat * Number.EPSILON;
+				expectRel(
+					`d=2 l=${l} t=t_sat${k >= 0 ? '+' : ''}${k} ulp`,
+					btzDeltaArea(l, l / 2),
+					hrtDeltaArea(2, 1, l, t).dA,
+					1e-10,
+					'closed form'
+				);
+			}
+		}
+	});
 	it('saturates continuously at exactly t = l/2', () => {
 		for (const l of [1, 2, 4]) {
 			const g = analyseGrowth(2, 1, l);
@@ -81,6 +106,27 @@ describe('quench: before, after and in between', () => {
 		const later = hrtDeltaArea(3, 1, 2, 1.495);
 		expect(later.winner.kind).toBe('static');
 		expect(later.surfaces.length).toBe(3);
+	});
+	it('the three competing surfaces are found whatever was cached before (Liu & Suh 2014: all extremal surfaces count)', () => {
+		// cold; after a time far from the fold (a curve with its fold not yet located); after a whole growth analysis.
+		// t(ζ) peaks at ≈ 1.4956911 between grid samples at ≈ 1.4955614 and below: the last two times have both
+		// family surfaces on either side of that hidden maximum
+		const times = [1.48, 1.4956, 1.49569];
+		const at = (t: number) => hrtDeltaArea(3, 1, 2, t);
+		const runs: number[][] = [];
+		for (const before of [[], [0.5], [1.4, 3]]) {
+			clearQuenchCache();
+			for (const t of before) at(t);
+			runs.push(times.flatMap((t) => at(t).surfaces.map((s) => s.dA)));
+		}
+		clearQuenchCache();
+		analyseGrowth(3, 1, 2);
+		runs.push(times.flatMap((t) => at(t).surfaces.map((s) => s.dA)));
+		expect(runs[0].length).toBe(9);
+		for (const r of runs.slice(1)) {
+			expect(r.length).toBe(9);
+			r.forEach((v, i) => expectRel(`surface ${i}`, runs[0][i], v, 1e-12, 'the same surfaces, polished to rounding'));
+		}
 	});
 	it('slope identity dΔA/dt = 2|E|/z*^{d−1} against central differences (PHYSICS.md; derived)', () => {
 		for (const [d, l, t] of [

@@ -3,6 +3,7 @@ import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { solveStrip, vacuumWidthFactor } from '../strip';
 import { surfaceAt, surfaceExists, type Surface } from './family';
+import type { Slice } from '../types';
 import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
 
 /**
@@ -14,89 +15,291 @@ import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
  * t or ΔA jumps, and its interior extrema of t are located (Brent's minimiser to 1e−6 in ζ, so t_max to ~1e−12), so
  * every solution of t(ζ) = t lies in
  * a bracket of the grid and is then refined by Brent's method in ζ — never by continuation in t.
+ *
+ * The grid is traced by continuation along ζ (each tip predicted from its neighbours, tipAt), and an extremum is
+ * located only when a time asks for it (`pending`, prepareFor): a time below a sampled maximum (above a sampled
+ * minimum) already has its solutions bracketed by the grid, and one far above it (below) has none there, so a
+ * single point of a growth curve usually skips that search. A full curve (completeCurve) locates them all.
  */
 export interface Curve {
 	d: number;
 	l: number;
 	points: CurvePoint[];
 	static: { zstar: number; eta: number; dA: number; tsat: number };
+	/** interior extrema of t seen on the grid and not located yet (b between its grid neighbours a and c) */
+	pending: Pending[];
+	/** refinement thresholds (1/16 of the grid's range of t and of ΔA) and the midpoints that had no surface */
+	jumpT: number;
+	jumpA: number;
+	failed: Set<number>;
+	/** every interval refined and every extremum located */
+	complete: boolean;
+}
+
+interface Pending {
+	a: CurvePoint;
+	b: CurvePoint;
+	c: CurvePoint;
+	/** +1 a maximum of t, −1 a minimum */
+	sgn: number;
 }
 
 const GRID = 24;
 const MAX_POINTS = 400;
 
-function pointAt(d: number, l: number, zeta: number, guess?: number): CurvePoint | null {
-	const s = surfaceForWidth(d, l, zeta, guess);
-	return s ? { zeta, t: s.t, dA: s.dA, surface: s } : null;
+/** A point of the curve as curve.ts keeps it: `slope` is dF/dx at its tip (F = ln(l(x)/l), x = ln z*) from the
+ * last secant step that found it (the neighbours' slopes start the next tip's secant with a near-Newton step);
+ * `located` marks an extremum found by the minimiser (not a grid sample). */
+interface GridPoint extends CurvePoint {
+	slope?: number;
+	located?: boolean;
 }
 
-export function buildCurve(d: number, l: number): Curve {
-	const st = solveStrip(makeBrane({ d, zh: 1 }).slice, l);
+/**
+ * The brane slice per (d, zh), kept: the strip solver prepares its quadrature nodes once per slice object (~0.2 ms,
+ * a tenth of a cold quench point), so a fresh makeBrane per call would pay that every time.
+ */
+const SLICES = new Map<string, Slice>();
+
+export function braneSlice(d: number, zh: number): Slice {
+	const key = `${d}:${zh}`;
+	let s = SLICES.get(key);
+	if (!s) {
+		s = makeBrane({ d, zh }).slice;
+		if (SLICES.size >= 16) SLICES.delete(SLICES.keys().next().value as string);
+		SLICES.set(key, s);
+	}
+	return s;
+}
+
+function tipOf(curve: { l: number; d: number; static: { zstar: number } }, p: CurvePoint): number {
+	return p.surface ? p.surface.zstar : p.zeta <= 0 ? curve.l / vacuumWidthFactor(curve.d) : curve.static.zstar;
+}
+
+/**
+ * The surface of width l at ζ from a predicted tip x0 = ln z* and slope m ≈ dF/dx (F = ln(l(x)/l)): secant steps
+ * from a Newton-like first step. The grid's neighbours predict the tip to ~1e−4 and the slope to a few per cent,
+ * so three to five surface evaluations reach |F| < GRID_TOL, where the general solver (surfaceForWidth, from one
+ * guess and slope 1) takes ~7. Anything unusual — no surface at a trial tip (the family's edge: wide strips), a
+ * step that does not shrink |F| — hands over to surfaceForWidth from the best tip so far, so the answer is the
+ * same surface either way.
+ */
+/**
+ * |ln(l(z*)/l)| accepted for a point of the curve: the width's own integrals are accurate to ~1e−14 (quad.ts), so
+ * this is as close as they can tell, and the points only bracket the solutions — each answer at (l, t) is then
+ * polished to 2e−15 by newtonIn (or the bracketed path), whatever tip its bracket started from.
+ */
+const GRID_TOL = 1e-13;
+
+function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): CurvePoint | null {
+	const lnl = Math.log(l);
+	let x = x0;
+	let s = surfaceAt(d, Math.exp(x), zeta);
+	let m = m0 > 0 && Number.isFinite(m0) ? m0 : 1;
+	if (s) {
+		let F = Math.log(s.l) - lnl;
+		for (let k = 0; k < 8; k++) {
+			if (Math.abs(F) < GRID_TOL) return made(zeta, s, m);
+			const xn = x - F / m;
+			const small = Math.abs(xn - x) < 1e-14 * Math.max(1, Math.abs(x));
+			const c = surfaceAt(d, Math.exp(xn), zeta);
+			if (!c) break;
+			const Fn = Math.log(c.l) - lnl;
+			// rounding reached (as surfaceForWidth's own stop): keep the better of the two
+			if (small) return made(zeta, Math.abs(Fn) < Math.abs(F) ? c : s, m);
+			if (!(Math.abs(Fn) < Math.abs(F))) break;
+			const mn = (Fn - F) / (xn - x);
+			if (!(mn > 0) || !Number.isFinite(mn)) break;
+			m = mn;
+			x = xn;
+			F = Fn;
+			s = c;
+		}
+	}
+	const r = surfaceForWidth(d, l, zeta, Math.exp(x));
+	return r ? made(zeta, r, m) : null;
+}
+
+function made(zeta: number, s: Surface, slope: number): GridPoint {
+	return { zeta, t: s.t, dA: s.dA, surface: s, slope };
+}
+
+/**
+ * Lagrange interpolation (or extrapolation) at ζ through up to four solved points, in q = √(1 − ζ): the grid is
+ * uniform in q, and the tip and the slope are smooth in q up to ζ = 1 where they vary fastest in ζ.
+ */
+function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
+	const q = Math.sqrt(1 - zeta);
+	const qs = near.map((p) => Math.sqrt(1 - p.zeta));
+	let y = 0;
+	for (let i = 0; i < near.length; i++) {
+		let w = 1;
+		for (let j = 0; j < near.length; j++) if (j !== i) w *= (q - qs[j]) / (qs[i] - qs[j]);
+		y += w * ys[i];
+	}
+	return y;
+}
+
+/** The grid point at ζ predicted from its solved neighbours `near` (those with a family surface, or ζ = 0). */
+function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint | null {
+	const use = near.filter((p) => p.surface || p.zeta <= 0);
+	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
+	const x = lagrange(
+		use,
+		use.map((p) => Math.log(tipOf(curve, p))),
+		zeta
+	);
+	// the slope is 1 for the vacuum (ζ = 0); a neighbour solved by the fallback has none: start from 1 then
+	const ms = use.map((p) => (p.zeta <= 0 ? 1 : (p as GridPoint).slope));
+	const m = ms.every((v) => v !== undefined) ? lagrange(use, ms as number[], zeta) : 1;
+	return tipAt(curve.d, curve.l, zeta, x, m);
+}
+
+/**
+ * The family curve of width l: the grid and (full = true) every refinement and extremum; with full = false only
+ * the grid, the rest done near the times asked (surfacesAt) or all at once (completeCurve).
+ */
+export function buildCurve(d: number, l: number, full = true): Curve {
+	const st = solveStrip(braneSlice(d, 1), l);
 	const tsat = saturationTime(d, st.zstar, st.point.eta);
 	const stat = { zstar: st.zstar, eta: st.point.eta, dA: st.deltaArea, tsat };
 	const pts: CurvePoint[] = [{ zeta: 0, t: 0, dA: 0, surface: null }];
-	let guess = l / vacuumWidthFactor(d);
+	const curve: Curve = { d, l, points: pts, static: stat, pending: [], jumpT: 0, jumpA: 0, failed: new Set(), complete: false };
 	for (let k = 1; k < GRID; k++) {
 		const p = k / GRID;
 		const zeta = 1 - (1 - p) * (1 - p);
-		const c = pointAt(d, l, zeta, guess);
+		const c = pointNear(curve, pts.slice(-4), zeta);
 		if (!c) continue;
-		guess = c.surface!.zstar;
 		pts.push(c);
 	}
 	pts.push({ zeta: 1, t: tsat, dA: stat.dA, surface: null });
-	refine(d, l, pts);
-	addExtrema(d, l, pts);
-	return { d, l, points: pts, static: stat };
+	curve.jumpT = Math.max(...pts.map((p) => p.t)) / 16;
+	curve.jumpA = Math.max(...pts.map((p) => p.dA)) / 16;
+	curve.pending = extremaOf(pts);
+	if (full || !simple(pts)) completeCurve(curve);
+	return curve;
 }
 
-/** Bisects grid intervals where t or ΔA moves by more than 1/16 of its range (the steep linear-growth part). */
-function refine(d: number, l: number, pts: CurvePoint[]): void {
-	const tr = Math.max(...pts.map((p) => p.t));
-	const ar = Math.max(...pts.map((p) => p.dA));
+/**
+ * At most two interior extrema of t (the fold near saturation and its partner minimum): the shape the laziness
+ * of prepareFor relies on. More means the rounding-noise regime of wide strips (PHYSICS.md's pitfalls; d ≥ 5 at
+ * l ≳ 3 zh here): there the whole curve is built, exactly as for a growth analysis, and no time skips a search.
+ */
+function simple(pts: CurvePoint[]): boolean {
+	let n = 0;
+	for (let i = 1; i + 1 < pts.length; i++) {
+		const a = pts[i - 1].t;
+		const b = pts[i].t;
+		const c = pts[i + 1].t;
+		if ((b > a && b >= c) || (b < a && b <= c)) n++;
+	}
+	return n <= 2;
+}
+
+/** Refines every interval and locates every extremum (a growth analysis reads the whole curve). */
+export function completeCurve(curve: Curve): void {
+	if (curve.complete) return;
+	if (refine(curve, NaN)) curve.pending = extremaOf(curve.points);
+	locate(curve, curve.pending);
+	curve.pending = [];
+	curve.complete = true;
+}
+
+/**
+ * Makes the curve ready for the solutions of t(ζ) = t: refines the intervals near t, then locates the pending
+ * extrema near which t could have solutions that the grid does not bracket. A maximum b hides crossings only when
+ * t ≥ t_b and t is below the true maximum, which is bounded by the parabola through a, b, c (t_max − t_b ≤
+ * Δt_c h_a²/(4h_c²) with the vertex on a's side, Δt_a h_c²/(4h_a²) on c's; t(ζ) is smooth there); four times that
+ * bound is the margin beyond which no solution can hide. Minima mirror this.
+ */
+function prepareFor(curve: Curve, t: number): void {
+	if (curve.complete) return;
+	if (refine(curve, t)) {
+		if (!simple(curve.points)) return completeCurve(curve);
+		curve.pending = extremaOf(curve.points);
+	}
+	const hidden = (p: Pending): boolean => {
+		const { a, b, c, sgn } = p;
+		const up = sgn * (t - b.t);
+		if (up < 0) return false;
+		const ha = b.zeta - a.zeta;
+		const hc = c.zeta - b.zeta;
+		const da = sgn * (b.t - a.t);
+		const dc = sgn * (b.t - c.t);
+		const margin = Math.max((dc * ha * ha) / (hc * hc), (da * hc * hc) / (ha * ha));
+		return up <= margin;
+	};
+	const now = curve.pending.filter(hidden);
+	if (!now.length) return;
+	locate(curve, now);
+	curve.pending = curve.pending.filter((p) => !now.includes(p));
+}
+
+/**
+ * Bisects grid intervals where t or ΔA moves by more than 1/16 of its range (the steep linear-growth part); with
+ * a time t (not NaN) only those whose range of t, widened by that 1/16, contains t — the others cannot hold a
+ * solution at this resolution, and a later time or completeCurve refines them. True when points were added.
+ */
+function refine(curve: Curve, t: number): boolean {
+	const pts = curve.points;
+	const near = (A: CurvePoint, B: CurvePoint) =>
+		Number.isNaN(t) || (t >= Math.min(A.t, B.t) - curve.jumpT && t <= Math.max(A.t, B.t) + curve.jumpT);
+	let added = false;
 	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS;) {
 		const A = pts[i];
 		const B = pts[i + 1];
-		const jump = Math.abs(B.t - A.t) > tr / 16 || Math.abs(B.dA - A.dA) > ar / 16;
-		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1) {
-			const c = pointAt(d, l, 0.5 * (A.zeta + B.zeta), A.surface?.zstar ?? B.surface?.zstar);
+		const jump = Math.abs(B.t - A.t) > curve.jumpT || Math.abs(B.dA - A.dA) > curve.jumpA;
+		const mid = 0.5 * (A.zeta + B.zeta);
+		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1 && near(A, B) && !curve.failed.has(mid)) {
+			const c = pointNear(curve, pts.slice(Math.max(0, i - 1), i + 3), mid);
 			if (c) {
 				pts.splice(i + 1, 0, c);
+				added = true;
 				continue;
 			}
+			curve.failed.add(mid);
 		}
 		i++;
 	}
+	return added;
 }
 
-/** Inserts each interior local extremum of t (Brent’s minimiser on the three grid points around it). */
-function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
-	const found: CurvePoint[] = [];
-	// the family has one fold near saturation (and its partner minimum when t overshoots): refine the two most
-	// prominent extrema; rounding wiggles in the steep part of a wide strip's curve are not folds
-	const cand: { i: number; sgn: number; prom: number }[] = [];
+/**
+ * The interior local extrema of t on the grid worth locating: the family has one fold near saturation (and its
+ * partner minimum when t overshoots), so the two most prominent; rounding wiggles in the steep part of a wide
+ * strip's curve are not folds.
+ */
+function extremaOf(pts: CurvePoint[]): Pending[] {
+	const cand: { p: Pending; prom: number }[] = [];
 	for (let i = 1; i + 1 < pts.length; i++) {
 		const a = pts[i - 1];
 		const b = pts[i];
 		const c = pts[i + 1];
 		const sgn = b.t > a.t && b.t >= c.t ? 1 : b.t < a.t && b.t <= c.t ? -1 : 0;
 		if (!sgn || c.zeta >= 1 || a.zeta <= 0) continue;
-		cand.push({ i, sgn, prom: Math.abs(b.t - 0.5 * (a.t + c.t)) });
+		cand.push({ p: { a, b, c, sgn }, prom: Math.abs(b.t - 0.5 * (a.t + c.t)) });
 	}
 	cand.sort((x, y) => y.prom - x.prom);
-	for (const { i, sgn } of cand.slice(0, 2)) {
-		const a = pts[i - 1];
-		const b = pts[i];
-		const c = pts[i + 1];
+	// located ones keep their place among the two (they are the folds) but need no second search
+	return cand
+		.slice(0, 2)
+		.map((c) => c.p)
+		.filter((p) => !(p.b as GridPoint).located);
+}
+
+/** Inserts each extremum of `which` (Brent's minimiser on its three grid points), located to 1e−6 in ζ. */
+function locate(curve: Curve, which: Pending[]): void {
+	const pts = curve.points;
+	const found: CurvePoint[] = [];
+	for (const { a, b, c, sgn } of which) {
 		// Brent's minimiser of −sgn·t(ζ) on the bracket (parabolic steps on this smooth extremum: ~8 evaluations
-		// where golden section alone took ~25), to 1e−6 in ζ, so t at the extremum to ~1e−12
+		// where golden section alone took ~25), to 1e−6 in ζ, so t at the extremum to ~1e−12; each tip is
+		// predicted from the three grid points around it
 		let best: CurvePoint | null = null;
-		let guess = b.surface?.zstar;
 		minimizeBrent(
 			(zeta) => {
-				const p = pointAt(d, l, zeta, guess);
+				const p = pointNear(curve, [a, b, c], zeta);
 				if (!p) return NaN;
-				guess = p.surface?.zstar ?? guess;
 				if (!best || sgn * p.t > sgn * best.t) best = p;
 				return -sgn * p.t;
 			},
@@ -105,7 +308,10 @@ function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
 			1e-6,
 			60
 		);
-		if (best) found.push(best);
+		if (best) {
+			found.push(best);
+			(best as GridPoint).located = true;
+		}
 	}
 	for (const f of found) {
 		const j = pts.findIndex((p) => p.zeta > f.zeta);
@@ -120,6 +326,7 @@ function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
  * solved at each ζ (~70 evaluations, but it cannot leave the bracket).
  */
 export function surfacesAt(curve: Curve, t: number): Surface[] {
+	prepareFor(curve, t);
 	const { d, l, points } = curve;
 	const out: Surface[] = [];
 	for (let i = 0; i + 1 < points.length; i++) {
@@ -164,11 +371,10 @@ const H_Z = 1e-7;
  */
 function newtonIn(curve: Curve, A: CurvePoint, B: CurvePoint, t: number): Surface | null {
 	const { d, l } = curve;
-	const tipOf = (p: CurvePoint): number => (p.surface ? p.surface.zstar : p.zeta <= 0 ? l / vacuumWidthFactor(d) : curve.static.zstar);
 	const w = (t - A.t) / (B.t - A.t);
 	if (!(w >= 0 && w <= 1)) return null;
 	let zeta = A.zeta + w * (B.zeta - A.zeta);
-	let x = (1 - w) * Math.log(tipOf(A)) + w * Math.log(tipOf(B));
+	let x = (1 - w) * Math.log(tipOf(curve, A)) + w * Math.log(tipOf(curve, B));
 	const lnl = Math.log(l);
 	const inBracket = (z: number) => z > A.zeta && z < B.zeta && z > 0 && z < 1;
 	if (!inBracket(zeta)) return null;

@@ -137,7 +137,9 @@ export function surfaceExists(d: number, zstar: number, zeta: number): boolean {
 	const S = setup(d, zstar, zeta);
 	const um = minimumOfP(d, S.mu);
 	if (!(pAt(S, Math.min(um, zeta)) > 0)) return false;
-	return S.a > 1 ? Number.isFinite(turningPoint(S, um)) : true;
+	// turningPoint finds a zero exactly when P(min(u_m, 1)) < 0 with u_m > ζ (its own precondition): that test
+	// alone, without the bisection (the edge search calls this ~50 times per tip)
+	return S.a > 1 ? um > S.zeta && pAt(S, Math.min(um, 1)) < 0 : true;
 }
 
 /** The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). */
@@ -149,15 +151,26 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 	const W0 = vacuumWidthFactor(d);
 	const om = 1 - zeta;
 	// the integrand of the differences at u (1 − u given apart, exact near the tip); jac = du/d(variable)
+	// Only products and two square roots (the quench's hot loop): the powers of u by multiplication, and
+	// R − 1 = (1 − u)·Σ_{j<n} u^j / u^n, a sum of positive terms, exact near the tip where 1 − u is small;
+	// (1 + X)^{−½} − 1 = −X/(r(1 + r)), r = √(1 + X), has no cancellation at early times where X is tiny.
+	const { d: dd, mu } = S;
 	const inner = (u: number, omu: number, jac: number, o: Float64Array): boolean => {
-		const lnu = omu < 0.5 ? Math.log1p(-omu) : Math.log(u);
-		const R1 = Math.expm1(-n * lnu);
-		const muud = Math.exp(S.lnmu + S.d * lnu);
-		const X = E2 / R1 - muud; // (P − (R−1))/(R−1)
+		let sum = 0;
+		let pw = 1;
+		let ud1 = 1;
+		for (let j = 0; j < n; j++) {
+			sum += pw;
+			pw *= u;
+			if (j === dd - 2) ud1 = pw;
+		}
+		const R1 = (omu * sum) / pw;
+		const X = E2 / R1 - mu * ud1 * u; // (P − (R−1))/(R−1)
 		if (!(X > -1)) return false;
-		const P = R1 * (1 + X);
-		const sq = Math.sqrt(P);
-		const dw = Math.expm1(-0.5 * Math.log1p(X)) / Math.sqrt(R1);
+		const r = Math.sqrt(1 + X);
+		const sr = Math.sqrt(R1);
+		const sq = sr * r;
+		const dw = -X / (r * (1 + r) * sr);
 		o[0] = jac * dw;
 		o[1] = jac * (1 + R1) * dw;
 		o[2] = (jac * R1) / (sq * (sq - E));
@@ -172,7 +185,8 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 	const okA = integrateAdaptive(
 		(w, o) => {
 			const s2 = Math.exp(2 * w);
-			return inner(-Math.expm1(2 * w), s2, 2 * s2, o);
+			// 1 − s2 is exact enough where it is ≥ ½; nearer the boundary u is formed without cancellation
+			return inner(s2 <= 0.5 ? 1 - s2 : -Math.expm1(2 * w), s2, 2 * s2, o);
 		},
 		0.5 * Math.log1p(-us),
 		0,

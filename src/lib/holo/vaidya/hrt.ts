@@ -1,7 +1,6 @@
-import { makeBrane } from '../bulks/brane';
 import { HoloError } from '../errors';
 import { solveStrip, vacuumWidthFactor } from '../strip';
-import { buildCurve, surfacesAt, type Curve } from './curve';
+import { braneSlice, buildCurve, completeCurve, surfacesAt, type Curve } from './curve';
 import type { Surface } from './family';
 
 /** One candidate extremal surface at (l, t), in the user's units. */
@@ -52,22 +51,33 @@ function staticStrip(d: number, zh: number, l: number): ReturnType<typeof solveS
 	const key = `${d}:${zh}:${l}`;
 	let st = STATIC.get(key);
 	if (!st) {
-		st = solveStrip(makeBrane({ d, zh }).slice, l);
+		st = solveStrip(braneSlice(d, zh), l);
 		if (STATIC.size >= CACHE_MAX) STATIC.delete(STATIC.keys().next().value as string);
 		STATIC.set(key, st);
 	}
 	return st;
 }
 
-/** The family curve of width l/zh (cached: a growth sweep at one width reuses it for every time). */
-export function curveFor(d: number, L: number): Curve {
+/**
+ * The family curve of width L = l/zh as far as it is built (cached: a growth sweep at one width reuses it for every
+ * time). A single point leaves its extrema pending (curve.ts: they are located only for times near them), so a cold
+ * point costs the grid; later points locate what they need in the same cached curve.
+ */
+function cachedCurve(d: number, L: number): Curve {
 	const key = `${d}:${L}`;
 	let c = CACHE.get(key);
 	if (!c) {
-		c = buildCurve(d, L);
+		c = buildCurve(d, L, false);
 		if (CACHE.size >= CACHE_MAX) CACHE.delete(CACHE.keys().next().value as string);
 		CACHE.set(key, c);
 	}
+	return c;
+}
+
+/** The whole family curve of width L = l/zh, every extremum located (growth.ts reads all of it). */
+export function curveFor(d: number, L: number): Curve {
+	const c = cachedCurve(d, L);
+	completeCurve(c);
 	return c;
 }
 
@@ -111,11 +121,13 @@ export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAn
 		};
 		return { d, zh, l, t, dA: 0, regime: 'before', winner: v, surfaces: [v], gap: NaN, tsat: NaN };
 	}
-	const curve = curveFor(d, l / zh);
+	const curve = cachedCurve(d, l / zh);
 	const T = t / zh;
 	const cands = surfacesAt(curve, T).map((s) => fromFamily(s, zh, d));
 	const tsat = curve.static.tsat * zh;
-	if (T >= curve.static.tsat) {
+	// the static surface from t_sat on; and within rounding of t_sat when the family's own solution there (ζ → 1,
+	// the static surface itself in the limit) is too close to ζ = 1 to resolve (d = 2, t one ulp below t_sat)
+	if (T >= curve.static.tsat || (cands.length === 0 && T >= curve.static.tsat * (1 - 1e-13))) {
 		const st = staticStrip(d, zh, l);
 		cands.push({ kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 });
 	}
