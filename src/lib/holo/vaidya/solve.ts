@@ -1,4 +1,5 @@
 import { vacuumWidthFactor } from '../strip';
+import { criticalForWidth } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import { integrateAdaptive } from './quad';
 
@@ -41,7 +42,7 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 		const b = g(xb);
 		if (!b.s) {
 			hi = Math.min(hi, xb);
-			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, zeta, g, a, xa, lo, xb);
+			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, l, zeta, g, a, xa, lo, xb);
 			xb = 0.5 * (xa + xb);
 			continue;
 		}
@@ -75,6 +76,7 @@ type Probe = (x: number) => { v: number; s: Surface | null };
  */
 function nearEdge(
 	d: number,
+	l: number,
 	zeta: number,
 	g: Probe,
 	a: { v: number; s: Surface | null },
@@ -90,6 +92,11 @@ function nearEdge(
 		else bad = m;
 	}
 	const xe = bad;
+	// a critical surface (climb.ts) reaches any width next to the edge with full accuracy; the secant in y below
+	// stays for what it cannot label (then bounded by the rounding of the tip)
+	const branch = 0.5 * Math.exp(d * (ok + Math.log(zeta))) > 1 ? 'climb' : 'pass';
+	const crit = criticalForWidth(d, l, zeta, ok, branch);
+	if (crit) return crit;
 	const yMin = Math.log(4e-16 * Math.max(1, Math.abs(xe)));
 	const yOf = (x: number) => Math.log(xe - x);
 	// bracket in y: yWide (width above the target: nearer the edge) < yNarrow
