@@ -390,10 +390,101 @@ export function criticalForWidth(d: number, l: number, zeta: number, xe: number,
 			if (Number.isFinite(lwide) && Number.isFinite(lnarrow)) ln = 0.5 * (lwide + lnarrow);
 			else ln = lb + (pb.v > 0 ? 4 : -4);
 		}
-		if (Math.abs(ln - lb) <= 1e-15 * Math.max(1, Math.abs(lb))) return best.s;
+		if (Math.abs(ln - lb) <= 1e-15 * Math.max(1, Math.abs(lb))) break;
 		la = lb;
 		pa = pb;
 		lb = ln;
 	}
-	return Math.abs(best.v) < 1e-10 ? best.s : null;
+	return Math.abs(best.v) < WIDTH_TOL ? best.s : null;
+}
+
+/** A critical solve that stops short of the asked width (rounding in λ) is kept when this close (relative). */
+const WIDTH_TOL = 1e-13;
+
+/** Two neighbouring points of a family curve (curve.ts's CurvePoint, without importing it). */
+interface Bracket {
+	zeta: number;
+	t: number;
+	surface: Surface | null;
+}
+
+/**
+ * The surface of width l at time t between two critical members A, B of one branch of the family curve, by Newton's
+ * method in (x = ln z*, λ) on (l(x, λ)/l − 1, t(x, λ) − t) from the bracket's interpolation; null unless it converges
+ * to rounding with its crossing ζ inside the bracket. In (z*, λ) the width and time are smooth (the edge of the
+ * (z*, ζ) labelling is λ → −∞), so three or four steps of ~3 surfaces each replace a bracketed search in ζ whose
+ * every step solves the tip (the caller's fallback).
+ */
+export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: Bracket): Surface | null {
+	const ca = A.surface?.critical;
+	const cb = B.surface?.critical;
+	if (!ca || !cb || ca.branch !== cb.branch) return null;
+	const branch = ca.branch;
+	const w = (t - A.t) / (B.t - A.t);
+	if (!(w >= 0 && w <= 1)) return null;
+	let x = (1 - w) * Math.log(A.surface!.zstar) + w * Math.log(B.surface!.zstar);
+	let lam = (1 - w) * ca.lam + w * cb.lam;
+	const zLo = Math.min(A.zeta, B.zeta);
+	const zHi = Math.max(A.zeta, B.zeta);
+	const F = (s: Surface): [number, number] => [s.l / l - 1, s.t - t];
+	let s = criticalSurfaceAt(d, Math.exp(x), lam, branch);
+	if (!s) return null;
+	let [f0, f1] = F(s);
+	const HX = 1e-7;
+	const HL = 1e-7 * Math.max(1, Math.abs(lam));
+	for (let k = 0; k < 12; k++) {
+		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * Math.max(1, Math.abs(t))) return s.zeta > zLo && s.zeta < zHi ? s : null;
+		const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
+		const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
+		if (!sx || !sl) return null;
+		const [gx0, gx1] = F(sx);
+		const [gl0, gl1] = F(sl);
+		const j00 = (f0 - gx0) / HX;
+		const j10 = (f1 - gx1) / HX;
+		const j01 = (f0 - gl0) / HL;
+		const j11 = (f1 - gl1) / HL;
+		const det = j00 * j11 - j01 * j10;
+		if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return null;
+		const dx = -(j11 * f0 - j01 * f1) / det;
+		const dl = -(-j10 * f0 + j00 * f1) / det;
+		// damped: halve the step until a surface exists and |F| does not grow
+		const norm = Math.abs(f0) + Math.abs(f1);
+		let next: Surface | null = null;
+		for (let h = 0, step = 1; h < 12; h++, step *= 0.5) {
+			const c = criticalSurfaceAt(d, Math.exp(x + step * dx), lam + step * dl, branch);
+			if (!c) continue;
+			const [g0, g1] = F(c);
+			if (Math.abs(g0) + Math.abs(g1) < norm || step < 1e-3) {
+				next = c;
+				x += step * dx;
+				lam += step * dl;
+				f0 = g0;
+				f1 = g1;
+				break;
+			}
+		}
+		if (!next) return null;
+		s = next;
+	}
+	return null;
+}
+
+/**
+ * Whether the surface (z*, ζ) is better labelled as a critical one, and on which branch: every climbing surface
+ * (a > 1: its turning point approaches z_m as the width grows, and the (z*, ζ) integrals need ever narrower panels
+ * there), and a passing one once P(u_m) < 10⁻³ |g(u_m)| (its peak at z_m is already narrow). Integral-free.
+ */
+export function criticalBranch(d: number, zstar: number, zeta: number): Branch | null {
+	const lnmu = d * Math.log(zstar);
+	const a = 0.5 * Math.exp(lnmu + d * Math.log(zeta));
+	if (a > 1) return 'climb';
+	const mu = Math.exp(lnmu);
+	const um = minimumOfP(d, mu);
+	if (!(um < zeta)) return null;
+	const n = 2 * (d - 1);
+	const lnum = Math.log(um);
+	const gm = Math.expm1(-n * lnum) * -Math.expm1(lnmu + d * lnum);
+	if (!(gm < 0)) return null;
+	const E2 = hOf(d, mu, zeta);
+	return E2 + gm < 1e-3 * -gm ? 'pass' : null;
 }

@@ -2,6 +2,7 @@ import { makeBrane } from '../bulks/brane';
 import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { solveStrip, vacuumWidthFactor } from '../strip';
+import { criticalBetween } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
 
@@ -25,7 +26,7 @@ export interface Curve {
 const GRID = 24;
 const MAX_POINTS = 400;
 
-function pointAt(d: number, l: number, zeta: number, guess?: number): CurvePoint | null {
+function pointAt(d: number, l: number, zeta: number, guess?: number | Surface): CurvePoint | null {
 	const s = surfaceForWidth(d, l, zeta, guess);
 	return s ? { zeta, t: s.t, dA: s.dA, surface: s } : null;
 }
@@ -35,13 +36,13 @@ export function buildCurve(d: number, l: number): Curve {
 	const tsat = saturationTime(d, st.zstar, st.point.eta);
 	const stat = { zstar: st.zstar, eta: st.point.eta, dA: st.deltaArea, tsat };
 	const pts: CurvePoint[] = [{ zeta: 0, t: 0, dA: 0, surface: null }];
-	let guess = l / vacuumWidthFactor(d);
+	let guess: number | Surface = l / vacuumWidthFactor(d);
 	for (let k = 1; k < GRID; k++) {
 		const p = k / GRID;
 		const zeta = 1 - (1 - p) * (1 - p);
 		const c = pointAt(d, l, zeta, guess);
 		if (!c) continue;
-		guess = c.surface!.zstar;
+		guess = c.surface!;
 		pts.push(c);
 	}
 	pts.push({ zeta: 1, t: tsat, dA: stat.dA, surface: null });
@@ -52,14 +53,13 @@ export function buildCurve(d: number, l: number): Curve {
 
 /** Bisects grid intervals where t or ΔA moves by more than 1/16 of its range (the steep linear-growth part). */
 function refine(d: number, l: number, pts: CurvePoint[]): void {
-	const tr = Math.max(...pts.map((p) => p.t));
-	const ar = Math.max(...pts.map((p) => p.dA));
+	const { tr, ar, tFar } = refineScales(pts);
 	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS;) {
 		const A = pts[i];
 		const B = pts[i + 1];
-		const jump = Math.abs(B.t - A.t) > tr / 16 || Math.abs(B.dA - A.dA) > ar / 16;
+		const jump = (Math.abs(B.t - A.t) > tr / 16 || Math.abs(B.dA - A.dA) > ar / 16) && Math.min(A.t, B.t) < tFar;
 		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1) {
-			const c = pointAt(d, l, 0.5 * (A.zeta + B.zeta), A.surface?.zstar ?? B.surface?.zstar);
+			const c = pointAt(d, l, 0.5 * (A.zeta + B.zeta), A.surface ?? B.surface ?? undefined);
 			if (c) {
 				pts.splice(i + 1, 0, c);
 				continue;
@@ -67,6 +67,20 @@ function refine(d: number, l: number, pts: CurvePoint[]): void {
 		}
 		i++;
 	}
+}
+
+/**
+ * The ranges of t and ΔA that refine() resolves to 1/16: the curve's own, but at most twice the static surface's
+ * (the last point), and no refinement where both ends are later than that (tFar). A wide strip's family reaches
+ * times far beyond saturation (surfaces that stay on the critical surface z_m for a long time, climb.ts: t ~ 4000
+ * at d = 4, l = 20 zh, against t_sat ≈ 13): those would leave the whole rise before saturation inside one grid
+ * interval, and refining them would only bracket times no growth curve asks (one bracket per root suffices there).
+ */
+function refineScales(pts: CurvePoint[]): { tr: number; ar: number; tFar: number } {
+	const end = pts[pts.length - 1];
+	const tr = Math.min(Math.max(...pts.map((p) => p.t)), 2 * end.t);
+	const ar = Math.min(Math.max(...pts.map((p) => p.dA)), 2 * end.dA);
+	return { tr, ar, tFar: 2 * end.t };
 }
 
 /** Inserts each interior local extremum of t (Brent’s minimiser on the three grid points around it). */
@@ -91,12 +105,12 @@ function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
 		// Brent's minimiser of −sgn·t(ζ) on the bracket (parabolic steps on this smooth extremum: ~8 evaluations
 		// where golden section alone took ~25), to 1e−6 in ζ, so t at the extremum to ~1e−12
 		let best: CurvePoint | null = null;
-		let guess = b.surface?.zstar;
+		let guess: Surface | undefined = b.surface ?? undefined;
 		minimizeBrent(
 			(zeta) => {
 				const p = pointAt(d, l, zeta, guess);
 				if (!p) return NaN;
-				guess = p.surface?.zstar ?? guess;
+				guess = p.surface ?? guess;
 				if (!best || sgn * p.t > sgn * best.t) best = p;
 				return -sgn * p.t;
 			},
@@ -129,7 +143,7 @@ export function surfacesAt(curve: Curve, t: number): Surface[] {
 		const gb = B.t - t;
 		if (ga * gb > 0 || (gb === 0 && i + 2 < points.length)) continue;
 		if (B.zeta >= 1 && gb === 0) continue; // the static end itself is added by the caller
-		const quick = newtonIn(curve, A, B, t);
+		const quick = criticalBetween(d, l, t, A, B) ?? newtonIn(curve, A, B, t);
 		if (quick) {
 			out.push(quick);
 			continue;
@@ -138,14 +152,14 @@ export function surfacesAt(curve: Curve, t: number): Surface[] {
 		const g = (zeta: number): number => {
 			if (zeta <= 0) return -t;
 			if (zeta >= 1) return curve.static.tsat - t;
-			const s = surfaceForWidth(d, l, zeta, last?.zstar ?? A.surface?.zstar ?? B.surface?.zstar);
+			const s = surfaceForWidth(d, l, zeta, last ?? A.surface ?? B.surface ?? undefined);
 			if (!s) return NaN;
 			last = s;
 			return s.t - t;
 		};
 		const r = findRootBrent(g, A.zeta, B.zeta, 1e-16, 100, ga, gb);
 		if (!(r.x > 0 && r.x < 1)) continue;
-		const s = last !== null && (last as Surface).zeta === r.x ? last : surfaceForWidth(d, l, r.x, last?.zstar ?? A.surface?.zstar);
+		const s = last !== null && (last as Surface).zeta === r.x ? last : surfaceForWidth(d, l, r.x, last ?? A.surface ?? undefined);
 		if (s) out.push(s);
 	}
 	return out;

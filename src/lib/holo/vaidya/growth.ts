@@ -89,12 +89,12 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 		// Brent's minimiser of −slope on the grid bracket around the largest sampled slope (parabolic steps: ~10
 		// tip solves where golden section to the same 1e−12 took ~60)
 		let top = { v: 0, t: 0, zeta: 0 };
-		let guess = pts[idx].surface?.zstar;
+		let guess = pts[idx].surface ?? undefined;
 		minimizeBrent(
 			(z) => {
 				const s = surfaceForWidth(d, L, z, guess);
 				if (!s) return NaN;
-				guess = s.zstar;
+				guess = s;
 				const v = slopeOf(s, d);
 				if (v > top.v) top = { v, t: s.t, zeta: z };
 				return -v;

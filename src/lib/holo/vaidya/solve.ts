@@ -1,5 +1,5 @@
 import { vacuumWidthFactor } from '../strip';
-import { criticalForWidth } from './climb';
+import { criticalBranch, criticalForWidth } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import { integrateAdaptive } from './quad';
 
@@ -18,14 +18,35 @@ const PAST_EDGE = 40;
  * bisection. Once a step lands past the edge, x_e is located to rounding by bisection on the integral-free
  * existence test (surfaceExists), and the search goes on in y = ln(x_e − x), in which the width is close to linear.
  */
-export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
+export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
+	const s = solveTip(d, l, zeta, guess);
+	// a width the search could not reach (rounding of the tip at the edge, no λ on the branch) is no surface of
+	// this strip: curves skip it rather than carry a point of another width
+	return s && Math.abs(s.l / l - 1) <= 1e-9 ? s : null;
+}
+
+function solveTip(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
+	// a critical neighbour (climb.ts) as the guess: its branch and λ lead straight to this ζ's surface
+	const hint = typeof guess === 'object' ? guess : undefined;
+	if (hint?.critical) {
+		const s = criticalForWidth(d, l, zeta, Math.log(hint.zstar), hint.critical.branch, hint.critical.lam);
+		if (s) return s;
+	}
 	const lnl = Math.log(l);
+	let tried = false;
 	const g = (x: number): { v: number; s: Surface | null } => {
+		// once a probe is a critical surface (climb.ts), the rest of the solve is in its λ (tried once)
+		const branch = tried ? null : criticalBranch(d, Math.exp(x), zeta);
+		if (branch) {
+			tried = true;
+			const c = criticalForWidth(d, l, zeta, x, branch);
+			if (c) return { v: 0, s: c };
+		}
 		const s = surfaceAt(d, Math.exp(x), zeta);
 		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
 	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
-	let xa = Math.log(guess ?? l / vacuumWidthFactor(d));
+	let xa = Math.log((hint ? hint.zstar : guess) ?? l / vacuumWidthFactor(d));
 	let a = g(xa);
 	for (let k = 0; !a.s; k++) {
 		if (k > 60) return null;
