@@ -418,12 +418,25 @@ interface Bracket {
 export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: Bracket): Surface | null {
 	const ca = A.surface?.critical;
 	const cb = B.surface?.critical;
-	if (!ca || !cb || ca.branch !== cb.branch) return null;
-	const branch = ca.branch;
 	const w = (t - A.t) / (B.t - A.t);
 	if (!(w >= 0 && w <= 1)) return null;
-	let x = (1 - w) * Math.log(A.surface!.zstar) + w * Math.log(B.surface!.zstar);
-	let lam = (1 - w) * ca.lam + w * cb.lam;
+	if (ca && cb && ca.branch === cb.branch) {
+		const x = (1 - w) * Math.log(A.surface!.zstar) + w * Math.log(B.surface!.zstar);
+		return newtonCritical(d, l, t, A, B, ca.branch, x, (1 - w) * ca.lam + w * cb.lam);
+	}
+	// a bracket across a = 1 (or with one end not critical): from each critical end on its own branch
+	for (const [P, c] of [
+		[A, ca],
+		[B, cb]
+	] as const) {
+		if (!c) continue;
+		const s = newtonCritical(d, l, t, A, B, c.branch, Math.log(P.surface!.zstar), c.lam);
+		if (s) return s;
+	}
+	return null;
+}
+
+function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket, branch: Branch, x: number, lam: number): Surface | null {
 	const zLo = Math.min(A.zeta, B.zeta);
 	const zHi = Math.max(A.zeta, B.zeta);
 	const F = (s: Surface): [number, number] => [s.l / l - 1, s.t - t];
@@ -432,8 +445,10 @@ export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: 
 	let [f0, f1] = F(s);
 	const HX = 1e-7;
 	const HL = 1e-7 * Math.max(1, Math.abs(lam));
+	const tScale = Math.max(1, Math.abs(t));
+	const inside = (c: Surface) => (c.zeta > zLo && c.zeta < zHi ? c : null);
 	for (let k = 0; k < 12; k++) {
-		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * Math.max(1, Math.abs(t))) return s.zeta > zLo && s.zeta < zHi ? s : null;
+		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * tScale) return inside(s);
 		const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
 		const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
 		if (!sx || !sl) return null;
@@ -454,7 +469,11 @@ export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: 
 			const c = criticalSurfaceAt(d, Math.exp(x + step * dx), lam + step * dl, branch);
 			if (!c) continue;
 			const [g0, g1] = F(c);
-			if (Math.abs(g0) + Math.abs(g1) < norm || step < 1e-3) {
+			if (step < 1e-3) {
+				// no descent: at the integrals' rounding (|F| ~ 1e−14 near a = 1) that is convergence, else a dead end
+				return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale ? inside(s) : null;
+			}
+			if (Math.abs(g0) + Math.abs(g1) < norm) {
 				next = c;
 				x += step * dx;
 				lam += step * dl;
@@ -466,8 +485,11 @@ export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: 
 		if (!next) return null;
 		s = next;
 	}
-	return null;
+	return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale ? inside(s) : null;
 }
+
+/** The residual (relative width, time in zh) a Newton solve accepts once its steps stop descending. */
+const NEWTON_TOL = 1e-13;
 
 /**
  * Whether the surface (z*, ζ) is better labelled as a critical one, and on which branch: every climbing surface
