@@ -301,7 +301,6 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 	};
 }
 
-
 /**
  * The tip (x = ln z*) of the critical surface (λ, branch) that crosses the shell at ζ: a safeguarded secant in x on
  * ζ(x) − ζ from x0 (the family's edge tip at this ζ, which is the λ → −∞ limit). At fixed λ the crossing falls
