@@ -143,3 +143,19 @@ describe('linear growth of wide strips (Liu & Suh 2014)', () => {
 		expectRel('t_sat', 10, g.saturation.time, 1e-12, 'Balasubramanian et al. 2011: l/2');
 	});
 });
+
+describe('narrow strips down to the solver range (MIN_WIDTH = 1e−8 zh)', () => {
+	for (const d of [2, 3, 4, 6]) {
+		it(`d=${d}: ΔA/l² depends on t/l only, and ΔA → (m/2) t², at l = 1e−8 zh`, () => {
+			// for l ≪ zh, ΔA is first order in m = zh^{−d}: ΔA = m l² φ(t/l) + O(m² l^{d+2}) (dimensional analysis,
+			// common practice), so l = 1e−8 and l = 1e−5 agree to ~1e−15 relative
+			for (const f of [0.1, 0.3]) {
+				const a = hrtDeltaArea(d, 1, 1e-8, f * 1e-8).dA / 1e-16;
+				const b = hrtDeltaArea(d, 1, 1e-5, f * 1e-5).dA / 1e-10;
+				expectRel(`ΔA/l² at t = ${f} l`, b, a, 1e-9, 'first order in m');
+			}
+			const t = 1e-3 * 1e-8;
+			expectRel('ΔA/t² at t = 1e−3 l', 0.5, hrtDeltaArea(d, 1, 1e-8, t).dA / (t * t), 2e-3, 'Liu & Suh 2014');
+		});
+	}
+});

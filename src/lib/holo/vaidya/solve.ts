@@ -174,7 +174,9 @@ export interface CurvePoint {
  * η = 1 − x kept exact by the strip solver. d = 2: artanh(x) = l/2.
  */
 export function saturationTime(d: number, zstar: number, eta: number): number {
-	const lead = -Math.log(eta) / d;
+	// −ln(1 − x) from η where it is exact (near the horizon), from x itself for small tips (η = 1 − x rounds to 1
+	// for x < 1e−16, which made t_sat of a strip of width 1e−20 zh come out (d−1)/d of its value)
+	const lead = -(zstar < 0.5 ? Math.log1p(-zstar) : Math.log(eta)) / d;
 	const out = new Float64Array(1);
 	integrateAdaptive(
 		(u, o) => {
