@@ -46,7 +46,7 @@ function solveTip(d: number, l: number, zeta: number, guess?: number | Surface):
 		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
 	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
-	let xa = Math.log((hint ? hint.zstar : guess) ?? l / vacuumWidthFactor(d));
+	let xa = Math.log(typeof guess === 'object' ? guess.zstar : (guess ?? l / vacuumWidthFactor(d)));
 	let a = g(xa);
 	for (let k = 0; !a.s; k++) {
 		if (k > 60) return null;
