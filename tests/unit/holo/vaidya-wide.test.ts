@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { analyseGrowth, hrtDeltaArea, tsunamiVelocity } from '../../../src/lib/holo/index';
+import { analyseGrowth, hrtDeltaArea, hrtProfile, tsunamiVelocity } from '../../../src/lib/holo/index';
 import { criticalAt, criticalSurfaceAt, phiExp } from '../../../src/lib/holo/vaidya/climb';
 import { minimumOfP, surfaceAt } from '../../../src/lib/holo/vaidya/family';
 import { surfaceForWidth } from '../../../src/lib/holo/vaidya/solve';
@@ -158,4 +158,27 @@ describe('narrow strips down to the solver range (MIN_WIDTH = 1e−8 zh)', () =>
 			expectRel('ΔA/t² at t = 1e−3 l', 0.5, hrtDeltaArea(d, 1, 1e-8, t).dA / (t * t), 2e-3, 'Liu & Suh 2014');
 		});
 	}
+});
+
+describe('profiles of wide strips (climb.ts criticalTail)', () => {
+	it('end at x = l/2 and v = t, the stretch on z_m included', () => {
+		for (const [d, l, t] of [
+			[3, 20, 12],
+			[4, 20, 8],
+			[4, 50, 20],
+			[4, 50, 35],
+			[3, 50, 30],
+			[4, 4, 3],
+			[3, 4, 2]
+		]) {
+			const r = hrtProfile(d, 1, l, t);
+			expect(r.answer.winner.critical).toBeDefined();
+			const end = r.points[r.points.length - 1];
+			expectRel(`x end d=${d} l=${l} t=${t}`, l / 2, end.x, 1e-8, 'the profile integrates dx/dz of the same surface');
+			expectRel(`v end d=${d} l=${l} t=${t}`, t, end.v!, 1e-8, 'boundary time t = v at z = 0');
+			expectRel('tip', r.answer.winner.zstar, r.points[0].z, 1e-14, 'tip at z*');
+			// the surface reaches behind the horizon and stays there along z_m (PHYSICS.md: z_m > zh)
+			expect(Math.max(...r.points.map((p) => p.z))).toBeGreaterThan(1);
+		}
+	});
 });

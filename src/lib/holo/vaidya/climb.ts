@@ -1,3 +1,4 @@
+import { traceProfile, type ProfilePoint } from '../profile';
 import { deltaFromParts, vacuumWidthFactor } from '../strip';
 import { findRootBrent } from '../numeric/brent';
 import { minimumOfP, type Surface } from './family';
@@ -508,4 +509,111 @@ export function criticalBranch(d: number, zstar: number, zeta: number): Branch |
 	if (!(gm < 0)) return null;
 	const E2 = hOf(d, mu, zeta);
 	return E2 + gm < 1e-3 * -gm ? 'pass' : null;
+}
+
+/**
+ * The outer part of a critical surface's profile (profile.ts draws the vacuum part inside the shell), in units of
+ * z*, from `start` (the crossing: z = ζ, v = 0) to the boundary: for a climbing surface the climb to u_t and back,
+ * then the descent; for a passing one the descent across z_m. Traced in the τ of criticalSurface (the peaks
+ * flat), the stretch on z_m (|τ| < τ_s) with its limit rates, so a strip of any width is drawn with its own
+ * width and time (x → l/2, v → t at the boundary). Null when the surface is not there.
+ */
+export function criticalTail(
+	d: number,
+	zstar: number,
+	crit: { branch: Branch; lam: number },
+	start: ProfilePoint,
+	count: number
+): ProfilePoint[] | null {
+	const C = criticalAt(d, zstar, crit.lam, crit.branch);
+	if (!C) return null;
+	const { n, E, um, zeta, lam } = C;
+	const eps = Math.exp(lam);
+	const R1 = (u: number) => Math.expm1(-n * Math.log(u));
+	let K = 0;
+	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
+	K /= 2 * um * um;
+	const sqK = Math.sqrt(K);
+	const R1m = R1(um);
+	const tauS = Math.max(0, -TAU_MODEL - lam);
+	const k = Math.max(16, Math.round(count / 3));
+	const out: ProfilePoint[] = [];
+	let at = start;
+	const seg = (p1: number, rates: (p: number) => [number, number], zOf: (p: number) => number, m = k) => {
+		if (!(p1 > 0)) return;
+		const pts = traceProfile(0, p1, m, rates, zOf, at, true);
+		out.push(...pts);
+		at = pts[pts.length - 1];
+	};
+	// on z_m: P = K ε² sinh²τ (climb) or K ε² cosh²τ (pass) times (1 + O(e^{−184})), so dx/dτ = 1/√K and dv/dτ its
+	// limit with √P → 0 against |E|
+	const onZm = (): [number, number] => [1 / sqK, R1m / (sqK * -E)];
+	const descent = (u: number, r: number, jac: number): [number, number] => {
+		const sp = Math.sqrt(C.Pm + gFromMin(C, r));
+		return [jac / sp, (jac * R1(u)) / (sp * (sp - E))];
+	};
+	if (C.branch === 'climb') {
+		const ut = C.ut;
+		const A = um - zeta;
+		const T = Math.log(A + Math.sqrt((A - eps) * (A + eps))) - lam;
+		const uOf = (tau: number) => ut - eCosh1Of(lam, tau);
+		const rates = (tau: number, back: boolean): [number, number] => {
+			const gapT = eCosh1Of(lam, tau);
+			const u = ut - gapT;
+			const sp = Math.sqrt(diffFrom(C, Math.log1p(-gapT / ut)));
+			const jac = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+			return [jac / sp, (jac * R1(u)) / (sp * (back ? sp - E : -E - sp))];
+		};
+		// in: τ from T down to τ_s, then along z_m to the turning point; back: the mirror
+		seg(
+			T - tauS,
+			(p) => rates(T - p, false),
+			(p) => uOf(T - p)
+		);
+		seg(tauS, onZm, () => um, 4);
+		seg(tauS, onZm, () => um, 4);
+		seg(
+			T - tauS,
+			(p) => rates(tauS + p, true),
+			(p) => uOf(tauS + p)
+		);
+		// then from the shell to the boundary (no peak there), in u
+		seg(
+			zeta,
+			(p) => {
+				const u = zeta - p;
+				return descent(u, Math.log(u / um), 1);
+			},
+			(p) => zeta - p,
+			Math.max(10, Math.round(count / 2))
+		);
+	} else {
+		const t1 = Math.log(zeta - um + Math.hypot(zeta - um, eps)) - lam;
+		const t0 = lam - Math.log(um + Math.hypot(um, eps));
+		const uOf = (tau: number) => um + 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+		const rates = (tau: number): [number, number] => {
+			const du = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+			return descent(um + du, Math.log1p(du / um), 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau)));
+		};
+		// τ from t1 (the shell) down to t0 (the boundary), flat across z_m
+		seg(
+			t1 - tauS,
+			(p) => rates(t1 - p),
+			(p) => uOf(t1 - p)
+		);
+		seg(2 * tauS, onZm, () => um, 4);
+		seg(
+			-tauS - t0,
+			(p) => rates(-tauS - p),
+			(p) => Math.max(0, uOf(-tauS - p)),
+			Math.max(10, Math.round(count / 2))
+		);
+	}
+	return out;
+}
+
+/** ε(cosh τ − 1) from e^{(λ±τ)/2} (see criticalSurface). */
+function eCosh1Of(lam: number, tau: number): number {
+	const q = Math.exp(0.5 * (lam + tau)) - Math.exp(0.5 * (lam - tau));
+	return 0.5 * q * q;
 }

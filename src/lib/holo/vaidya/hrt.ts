@@ -18,6 +18,8 @@ export interface HrtSurface {
 	behindHorizon: boolean;
 	/** conserved E (units zh^{d−1}·… as in PHYSICS.md) — dΔA/dt = 2|E|/z*^{d−1} */
 	E: number;
+	/** a near-critical family member's label (climb.ts), so its profile is traced in the same variables */
+	critical?: { branch: 'climb' | 'pass'; lam: number };
 }
 
 export interface HrtAnswer {
@@ -115,7 +117,8 @@ function fromFamily(s: Surface, zh: number, d: number): HrtSurface {
 		zc: s.zstar * s.zeta * zh,
 		zturn: s.zturn * zh,
 		behindHorizon: s.behindHorizon,
-		E: s.E
+		E: s.E,
+		...(s.critical ? { critical: s.critical } : {})
 	};
 }
 
