@@ -128,7 +128,8 @@ function addExtrema(d: number, l: number, pts: CurvePoint[]): void {
 }
 
 /**
- * Every surface of the family at time t (ζ < 1), one per grid bracket of t(ζ) − t: first two-dimensional Newton
+ * Every surface of the family at time t (ζ < 1), one per grid bracket of t(ζ) − t: when the bracket's ends are
+ * critical surfaces, Newton in (ln z*, λ) (climb.ts criticalBetween); else two-dimensional Newton
  * on (ln l − ln l₀, t − t₀) in (ln z*, ζ) from the bracket's interpolated tip and crossing (newtonIn: ~12
  * surface evaluations), and where that does not converge inside the bracket, Brent's method in ζ with the tip
  * solved at each ζ (~70 evaluations, but it cannot leave the bracket).

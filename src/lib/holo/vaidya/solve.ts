@@ -15,8 +15,11 @@ const PAST_EDGE = 40;
  *
  * Near that edge (the surfaces of the linear-growth regime, and every climbing surface of a wide strip) the width
  * diverges like −C ln(x_e − x), so the tip sits within 1e−10 or less of x_e and a secant in x crawls there by
- * bisection. Once a step lands past the edge, x_e is located to rounding by bisection on the integral-free
- * existence test (surfaceExists), and the search goes on in y = ln(x_e − x), in which the width is close to linear.
+ * bisection, and a double x cannot get closer than rounding (that bounded the width: 10–17 zh at d = 3). So a probe
+ * that is a critical surface (climb.ts criticalBranch: every a > 1, and a < 1 with P(u_m) small), or a critical
+ * guess, hands the solve to climb.ts (λ, in which the width is linear and unbounded); once a step lands past the
+ * edge, x_e is located to rounding by bisection on the integral-free existence test (surfaceExists) and the
+ * critical solve starts there, with the older search in y = ln(x_e − x) as the fallback.
  */
 export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
 	const s = solveTip(d, l, zeta, guess);
