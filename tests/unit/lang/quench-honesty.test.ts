@@ -47,6 +47,9 @@ describe('absurdly small widths and times', () => {
 		expect(e.message).toMatch(/below the quench solver's range/);
 		expect(e.hint ?? '').toMatch(/\(m\/2\)t²/);
 		expect(e.hint ?? '').not.toMatch(/too large/);
+		// d = 4: t_sat ≈ z* = l/W₀ > t here, and (m/2)t² underflows: said so, not printed as 0
+		const u = new Pad().fail('use vaidya d=4; darea l=1e-300 t=1e-300');
+		expect(u.hint ?? '').toMatch(/below the smallest double/);
 	});
 	it('t_sat of a narrow strip keeps its digits (d = 3, l = 1e−7 zh: t_sat ≈ z*, not (d−1)/d of it)', () => {
 		const r = holo.hrtDeltaArea(3, 1, 1e-7, 1e-7);

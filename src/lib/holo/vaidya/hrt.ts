@@ -100,11 +100,13 @@ function belowRange(d: number, zh: number, l: number, t: number): HrtAnswer {
 		const s: HrtSurface = { kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 };
 		return { d, zh, l, t, dA: s.dA, regime: 'saturated', winner: s, surfaces: [s], gap: NaN, tsat };
 	}
+	const early = 0.5 * Math.pow(zh, -d) * t * t;
+	const scale = early > 0 ? `= ${early}` : '≈ 0 (below the smallest double)';
 	throw new HoloError(
 		`l=${l} is below the quench solver's range (l ≥ ${MIN_WIDTH} zh)`,
 		'l',
 		Number.isFinite(tsat) && t < tsat
-			? `before saturation (t < ${tsat}) ΔA is of order (m/2)t² = ${0.5 * Math.pow(zh, -d) * t * t} (Liu & Suh 2014, t ≪ l); from t = ${tsat} on it is the brane's ΔA(l)`
+			? `before saturation (t < ${tsat}) ΔA is of order (m/2)t² ${scale} (Liu & Suh 2014, t ≪ l); from t = ${tsat} on it is the brane's ΔA(l)`
 			: 'the static ΔA of so narrow a strip is not resolved either'
 	);
 }
