@@ -35,6 +35,13 @@ export function phiExp(x: number): number {
 	return sum;
 }
 
+/** K = g″(u_m)/2 in units of the tip: P ≈ P(u_m) + K (u − u_m)² near z_m. */
+function halfCurvature(C: Critical): number {
+	let K = 0;
+	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
+	return K / (2 * C.um * C.um);
+}
+
 /** The integral-free part of a critical surface: everything but the integrals. */
 export interface Critical {
 	d: number;
@@ -353,11 +360,13 @@ export function tipForCrossing(d: number, zeta: number, lam: number, branch: Bra
  */
 export function criticalForWidth(d: number, l: number, zeta: number, xe: number, branch: Branch, lamGuess = -8): Surface | null {
 	let x = xe;
+	let dvdl = NaN; // d(l/l_target)/dλ on z_m: −4 z*/(√K l), the first secant step's slope
 	const g = (lam: number): { v: number; s: Surface | null } => {
 		const tip = tipForCrossing(d, zeta, lam, branch, x);
 		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x)) : null;
 		if (!tip || !s) return { v: -Infinity, s: null }; // past the narrow end of the branch
 		x = tip.x;
+		dvdl = (-4 * s.zstar) / (Math.sqrt(halfCurvature(tip.C)) * l);
 		return { v: s.l / l - 1, s };
 	};
 	let lwide = -Infinity; // v > 0
@@ -373,7 +382,9 @@ export function criticalForWidth(d: number, l: number, zeta: number, xe: number,
 	let best = pa;
 	if (pa.v > 0) lwide = la;
 	else lnarrow = Math.min(lnarrow, la);
-	let lb = la + (pa.v > 0 ? 2 : -2);
+	// the first step from the width's slope on z_m (exact as λ → −∞, a fair guess elsewhere), at most 20 in λ
+	let lb = la + Math.max(-20, Math.min(20, Number.isFinite(dvdl) && dvdl < 0 ? -pa.v / dvdl : pa.v > 0 ? 2 : -2));
+	if (lb === la) lb = la + (pa.v > 0 ? 1e-3 : -1e-3);
 	for (let k = 0; k < 100; k++) {
 		if (Math.abs(pa.v) < 1e-15) return pa.s;
 		const pb = g(lb);
