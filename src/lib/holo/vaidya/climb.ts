@@ -458,45 +458,61 @@ function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket,
 	const HL = 1e-7 * Math.max(1, Math.abs(lam));
 	const tScale = Math.max(1, Math.abs(t));
 	const inside = (c: Surface) => (c.zeta > zLo && c.zeta < zHi ? c : null);
-	for (let k = 0; k < 12; k++) {
+	const done = () => Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale;
+	// the difference Jacobian is kept while a step gains three digits (the quadratic basin: the chord step then
+	// loses little), and recomputed otherwise or when a kept one fails to descend
+	let j00 = 0;
+	let j01 = 0;
+	let j10 = 0;
+	let j11 = 0;
+	let fresh = false;
+	for (let k = 0; k < 16; k++) {
 		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * tScale) return inside(s);
-		const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
-		const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
-		if (!sx || !sl) return null;
-		const [gx0, gx1] = F(sx);
-		const [gl0, gl1] = F(sl);
-		const j00 = (f0 - gx0) / HX;
-		const j10 = (f1 - gx1) / HX;
-		const j01 = (f0 - gl0) / HL;
-		const j11 = (f1 - gl1) / HL;
+		if (!fresh) {
+			const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
+			const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
+			if (!sx || !sl) return null;
+			const [gx0, gx1] = F(sx);
+			const [gl0, gl1] = F(sl);
+			j00 = (f0 - gx0) / HX;
+			j10 = (f1 - gx1) / HX;
+			j01 = (f0 - gl0) / HL;
+			j11 = (f1 - gl1) / HL;
+		}
+		const kept = fresh;
 		const det = j00 * j11 - j01 * j10;
 		if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return null;
 		const dx = -(j11 * f0 - j01 * f1) / det;
 		const dl = -(-j10 * f0 + j00 * f1) / det;
-		// damped: halve the step until a surface exists and |F| does not grow
+		// damped: halve the step until a surface exists and |F| decreases
 		const norm = Math.abs(f0) + Math.abs(f1);
 		let next: Surface | null = null;
 		for (let h = 0, step = 1; h < 12; h++, step *= 0.5) {
+			if (step < 1e-3) break;
 			const c = criticalSurfaceAt(d, Math.exp(x + step * dx), lam + step * dl, branch);
 			if (!c) continue;
 			const [g0, g1] = F(c);
-			if (step < 1e-3) {
-				// no descent: at the integrals' rounding (|F| ~ 1e−14 near a = 1) that is convergence, else a dead end
-				return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale ? inside(s) : null;
-			}
 			if (Math.abs(g0) + Math.abs(g1) < norm) {
 				next = c;
 				x += step * dx;
 				lam += step * dl;
 				f0 = g0;
 				f1 = g1;
+				fresh = step === 1 && Math.abs(g0) + Math.abs(g1) < 1e-3 * norm;
 				break;
 			}
 		}
-		if (!next) return null;
-		s = next;
+		if (next) {
+			s = next;
+			continue;
+		}
+		// no descent: at the integrals' rounding (|F| ~ 1e−14 near a = 1) that is convergence; with a kept
+		// Jacobian, retry with a fresh one; else a dead end
+		if (done()) return inside(s);
+		if (!kept) return null;
+		fresh = false;
 	}
-	return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale ? inside(s) : null;
+	return done() ? inside(s) : null;
 }
 
 /** The residual (relative width, time in zh) a Newton solve accepts once its steps stop descending. */
