@@ -465,10 +465,10 @@ function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket,
 	let j01 = 0;
 	let j10 = 0;
 	let j11 = 0;
-	let fresh = false;
+	let keep = false;
 	for (let k = 0; k < 16; k++) {
 		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * tScale) return inside(s);
-		if (!fresh) {
+		if (!keep) {
 			const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
 			const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
 			if (!sx || !sl) return null;
@@ -479,7 +479,7 @@ function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket,
 			j01 = (f0 - gl0) / HL;
 			j11 = (f1 - gl1) / HL;
 		}
-		const kept = fresh;
+		const kept = keep;
 		const det = j00 * j11 - j01 * j10;
 		if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return null;
 		const dx = -(j11 * f0 - j01 * f1) / det;
@@ -498,7 +498,7 @@ function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket,
 				lam += step * dl;
 				f0 = g0;
 				f1 = g1;
-				fresh = step === 1 && Math.abs(g0) + Math.abs(g1) < 1e-3 * norm;
+				keep = step === 1 && Math.abs(g0) + Math.abs(g1) < 1e-3 * norm;
 				break;
 			}
 		}
@@ -510,7 +510,7 @@ function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket,
 		// Jacobian, retry with a fresh one; else a dead end
 		if (done()) return inside(s);
 		if (!kept) return null;
-		fresh = false;
+		keep = false;
 	}
 	return done() ? inside(s) : null;
 }
