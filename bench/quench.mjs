@@ -4,12 +4,13 @@
 // runs them, and the mpmath fixture runner's time per point beside them. Prints one JSON line per benchmark and
 // updates the "quench" section of bench/RESULTS.md. `npm run bench -- quench`.
 import { readFileSync } from 'node:fs';
-import { loadavg } from 'node:os';
+import { cpus, loadavg } from 'node:os';
 import { join } from 'node:path';
 import { writeSection } from './lib/results.mjs';
 import { bench as timed, loadEngine, root } from './lib/engine.mjs';
 
 const H = await loadEngine(root, 'quench');
+const loadBefore = loadavg()[0];
 
 /** Fewer runs than the engine's rows: a cold quench point is tens of milliseconds. */
 const bench = (name, fn, opts = {}) => timed(name, fn, { minRuns: 5, minMs: 300, ...opts });
@@ -40,6 +41,17 @@ row(bench('20 ΔA(t) points, curve cached (d=4 l=4 t=0..4)', warmPoints(4, 4, 4,
 row(bench('growth sweep 60 points, cold (d=3 l=2 t=0..3)', sweep(3, 2, 3, 60)), '≤ 150 ms', 60);
 row(bench('growth sweep 60 points, cold (d=4 l=4 t=0..4)', sweep(4, 4, 4, 60), { minRuns: 3 }), '≤ 150 ms', 60);
 row(bench('growth sweep 200 points, cold (d=3 l=2 t=0..3)', sweep(3, 2, 3, 200), { minRuns: 3 }), 'inside the time budget', 200);
+// wide strips (surfaces that hug the critical surface, holo/vaidya/climb.ts)
+row(
+	bench('one ΔA(t) point, cold (d=3 l=20 t=8)', () => (H.clearQuenchCache(), H.hrtDeltaArea(3, 1, 20, 8)), { minRuns: 3 }),
+	''
+);
+row(bench('growth sweep 60 points, cold (d=4 l=20 t=0..20)', sweep(4, 20, 20, 60), { minRuns: 3 }), '', 60);
+row(
+	bench('`growth l=50` record, cold (d=4)', () => (H.clearQuenchCache(), H.analyseGrowth(4, 1, 50)), { minRuns: 3 }),
+	'inside the 5 s line budget'
+);
+const loadAfter = loadavg()[0];
 
 let runner = null;
 try {
@@ -51,7 +63,7 @@ try {
 const lines = [
 	'## quench (src/lib/holo/vaidya, `npm run bench -- quench`)',
 	'',
-	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up; "cold" clears the family-curve cache first. Load average when measured: ${loadavg()[0].toFixed(1)} (other work on the machine slows the times).`,
+	`Node ${process.version}, ${new Date().toISOString().slice(0, 10)}. Median of repeated runs after warm-up; "cold" clears the family-curve cache first. Load average (1 min) before / after: ${loadBefore.toFixed(1)} / ${loadAfter.toFixed(1)} on ${cpus().length} cores (other work on the machine slows the times).`,
 	'',
 	'| benchmark | median (µs) | per point (µs) | runs | goal |',
 	'|---|---|---|---|---|',

@@ -26,16 +26,19 @@ const WORKER_BUNDLE = process.env.BULKPAD_WORKER ?? 'dist/eval-worker.mjs';
 const LOCK_MS = '3000';
 /** a heavy line (a sweep) that is cheap, so the in-process test server answers it within its budget however busy */
 const STRIP_SWEEP = 'sweep darea l=0.1..3:400';
-/** 12 HRT surfaces of wide quench strips: seconds of work per chunk of four, so a kill lands inside one */
-const SWEEP = 'use vaidya d=4 zh=1; sweep darea l=6..8:12 t=5';
 /**
- * Half an hour of work (HRT surfaces of wide strips in the quench bulk, about a second each, and no two alike):
- * every chunk runs for minutes, so each worker is inside one when the client hangs up, and the line can only stop
- * by being cancelled. (Exact balls are no longer a candidate: they take about a millisecond each.)
+ * 40 HRT surfaces of very wide quench strips (l = 60…80 zh in d = 6: a family curve each, ~0.1–0.2 s since the
+ * critical-surface solver; d = 4, l = 6…8 became ~40 ms): seconds of work per chunk of ten, so a kill lands inside one
+ */
+const SWEEP = 'use vaidya d=6 zh=1; sweep darea l=60..80:40 t=30';
+/**
+ * Minutes of work (HRT surfaces of very wide quench strips, ~0.1–0.2 s each, and no two alike): every chunk runs
+ * for a minute or more, so each worker is inside one when the client hangs up, and the line can only stop by being
+ * cancelled. (Exact balls are no longer a candidate: they take about a millisecond each.)
  */
 /** the pad's bulk for it: a stateless line of two statements would run whole, unsplit */
-const ENDLESS_BULK = 'use vaidya d=4 zh=1';
-const ENDLESS = 'sweep darea l=6..8:2000 t=5';
+const ENDLESS_BULK = 'use vaidya d=6 zh=1';
+const ENDLESS = 'sweep darea l=60..80:2000 t=30';
 
 interface Proc {
 	child: ChildProcess;

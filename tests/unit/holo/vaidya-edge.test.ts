@@ -14,8 +14,10 @@ describe('tip solve next to the family edge', () => {
 		it(`d=4 l=4 ζ=${zeta}: width hit, tip just inside the edge`, () => {
 			const s = surfaceForWidth(4, 4, zeta, 4);
 			expect(s).not.toBeNull();
-			// one ulp of z* moves ln l by ~3e−8 this close to the edge (measured): the width is hit to that quantum
-			expectRel('width', 4, s!.l, 5e-8, 'the asked width, to the rounding quantum of the tip');
+			// one ulp of z* moves ln l by ~3e−8 this close to the edge, so a solve in z* hit the width only to that
+			// quantum; labelled by λ (climb.ts) the surface has exactly the asked width
+			expectRel('width', 4, s!.l, 1e-13, 'the asked width');
+			expect(s!.critical?.branch).toBe('climb');
 			expect(s!.a).toBeGreaterThan(1); // a climbing surface
 			expect(surfaceExists(4, s!.zstar, zeta)).toBe(true);
 			// one part in 1e−6 wider in the tip is already past the edge: the log map's regime

@@ -2,6 +2,7 @@ import { makeBrane } from '../bulks/brane';
 import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { solveStrip, vacuumWidthFactor } from '../strip';
+import { criticalBetween } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import type { Slice } from '../types';
 import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
@@ -31,6 +32,8 @@ export interface Curve {
 	/** refinement thresholds (1/16 of the grid's range of t and of ΔA) and the midpoints that had no surface */
 	jumpT: number;
 	jumpA: number;
+	/** no refinement where both ends of an interval are later than this (refineScales) */
+	tFar: number;
 	failed: Set<number>;
 	/** every interval refined and every extremum located */
 	complete: boolean;
@@ -143,6 +146,13 @@ function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
 /** The grid point at ζ predicted from its solved neighbours `near` (those with a family surface, or ζ = 0). */
 function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint | null {
 	const use = near.filter((p) => p.surface || p.zeta <= 0);
+	// a neighbour on the critical surface (climb.ts) leads the solve in its own λ: a tip secant in ln z* cannot
+	// get close enough to the family's edge there
+	const critical = use.filter((p) => p.surface?.critical).sort((a, b) => Math.abs(a.zeta - zeta) - Math.abs(b.zeta - zeta))[0]?.surface;
+	if (critical) {
+		const s = surfaceForWidth(curve.d, curve.l, zeta, critical);
+		return s && { zeta, t: s.t, dA: s.dA, surface: s };
+	}
 	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
 	const x = lagrange(
 		use,
@@ -164,7 +174,18 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 	const tsat = saturationTime(d, st.zstar, st.point.eta);
 	const stat = { zstar: st.zstar, eta: st.point.eta, dA: st.deltaArea, tsat };
 	const pts: CurvePoint[] = [{ zeta: 0, t: 0, dA: 0, surface: null }];
-	const curve: Curve = { d, l, points: pts, static: stat, pending: [], jumpT: 0, jumpA: 0, failed: new Set(), complete: false };
+	const curve: Curve = {
+		d,
+		l,
+		points: pts,
+		static: stat,
+		pending: [],
+		jumpT: 0,
+		jumpA: 0,
+		tFar: Infinity,
+		failed: new Set(),
+		complete: false
+	};
 	for (let k = 1; k < GRID; k++) {
 		const p = k / GRID;
 		const zeta = 1 - (1 - p) * (1 - p);
@@ -173,8 +194,10 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 		pts.push(c);
 	}
 	pts.push({ zeta: 1, t: tsat, dA: stat.dA, surface: null });
-	curve.jumpT = Math.max(...pts.map((p) => p.t)) / 16;
-	curve.jumpA = Math.max(...pts.map((p) => p.dA)) / 16;
+	const { tr, ar, tFar } = refineScales(pts);
+	curve.jumpT = tr / 16;
+	curve.jumpA = ar / 16;
+	curve.tFar = tFar;
 	curve.pending = extremaOf(pts);
 	if (full || !simple(pts)) completeCurve(curve);
 	return curve;
@@ -236,6 +259,20 @@ function prepareFor(curve: Curve, t: number): void {
 }
 
 /**
+ * The ranges of t and ΔA that refine() resolves to 1/16: the curve's own, but at most twice the static surface's
+ * (the last point), and no refinement where both ends are later than that (tFar). A wide strip's family reaches
+ * times far beyond saturation (surfaces that stay on the critical surface z_m for a long time, climb.ts: t ~ 4000
+ * at d = 4, l = 20 zh, against t_sat ≈ 13): those would leave the whole rise before saturation inside one grid
+ * interval, and refining them would only bracket times no growth curve asks (one bracket per root suffices there).
+ */
+function refineScales(pts: CurvePoint[]): { tr: number; ar: number; tFar: number } {
+	const end = pts[pts.length - 1];
+	const tr = Math.min(Math.max(...pts.map((p) => p.t)), 2 * end.t);
+	const ar = Math.min(Math.max(...pts.map((p) => p.dA)), 2 * end.dA);
+	return { tr, ar, tFar: 2 * end.t };
+}
+
+/**
  * Bisects grid intervals where t or ΔA moves by more than 1/16 of its range (the steep linear-growth part); with
  * a time t (not NaN) only those whose range of t, widened by that 1/16, contains t — the others cannot hold a
  * solution at this resolution, and a later time or completeCurve refines them. True when points were added.
@@ -248,7 +285,7 @@ function refine(curve: Curve, t: number): boolean {
 	for (let i = 0; i + 1 < pts.length && pts.length < MAX_POINTS;) {
 		const A = pts[i];
 		const B = pts[i + 1];
-		const jump = Math.abs(B.t - A.t) > curve.jumpT || Math.abs(B.dA - A.dA) > curve.jumpA;
+		const jump = (Math.abs(B.t - A.t) > curve.jumpT || Math.abs(B.dA - A.dA) > curve.jumpA) && Math.min(A.t, B.t) < curve.tFar;
 		const mid = 0.5 * (A.zeta + B.zeta);
 		if (jump && B.zeta - A.zeta > 1e-12 * B.zeta && B.zeta < 1 && near(A, B) && !curve.failed.has(mid)) {
 			const c = pointNear(curve, pts.slice(Math.max(0, i - 1), i + 3), mid);
@@ -320,7 +357,8 @@ function locate(curve: Curve, which: Pending[]): void {
 }
 
 /**
- * Every surface of the family at time t (ζ < 1), one per grid bracket of t(ζ) − t: first two-dimensional Newton
+ * Every surface of the family at time t (ζ < 1), one per grid bracket of t(ζ) − t: when the bracket's ends are
+ * critical surfaces, Newton in (ln z*, λ) (climb.ts criticalBetween); else two-dimensional Newton
  * on (ln l − ln l₀, t − t₀) in (ln z*, ζ) from the bracket's interpolated tip and crossing (newtonIn: ~12
  * surface evaluations), and where that does not converge inside the bracket, Brent's method in ζ with the tip
  * solved at each ζ (~70 evaluations, but it cannot leave the bracket).
@@ -336,7 +374,7 @@ export function surfacesAt(curve: Curve, t: number): Surface[] {
 		const gb = B.t - t;
 		if (ga * gb > 0 || (gb === 0 && i + 2 < points.length)) continue;
 		if (B.zeta >= 1 && gb === 0) continue; // the static end itself is added by the caller
-		const quick = newtonIn(curve, A, B, t);
+		const quick = criticalBetween(d, l, t, A, B) ?? newtonIn(curve, A, B, t);
 		if (quick) {
 			out.push(quick);
 			continue;
@@ -345,14 +383,14 @@ export function surfacesAt(curve: Curve, t: number): Surface[] {
 		const g = (zeta: number): number => {
 			if (zeta <= 0) return -t;
 			if (zeta >= 1) return curve.static.tsat - t;
-			const s = surfaceForWidth(d, l, zeta, last?.zstar ?? A.surface?.zstar ?? B.surface?.zstar);
+			const s = surfaceForWidth(d, l, zeta, last ?? A.surface ?? B.surface ?? undefined);
 			if (!s) return NaN;
 			last = s;
 			return s.t - t;
 		};
 		const r = findRootBrent(g, A.zeta, B.zeta, 1e-16, 100, ga, gb);
 		if (!(r.x > 0 && r.x < 1)) continue;
-		const s = last !== null && (last as Surface).zeta === r.x ? last : surfaceForWidth(d, l, r.x, last?.zstar ?? A.surface?.zstar);
+		const s = last !== null && (last as Surface).zeta === r.x ? last : surfaceForWidth(d, l, r.x, last ?? A.surface ?? undefined);
 		if (s) out.push(s);
 	}
 	return out;

@@ -44,6 +44,8 @@ export interface Surface {
 	/** parts for the cancellation-free ΔA */
 	wrel: number;
 	dS: number;
+	/** set on a near-critical surface (climb.ts): its branch and λ = ln ε, the closeness to z_m that labels it */
+	critical?: { branch: 'climb' | 'pass'; lam: number };
 }
 
 interface Setup {

@@ -2,7 +2,7 @@ import { HoloError } from '../errors';
 import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { surfacesAt } from './curve';
-import { curveFor, hrtDeltaArea } from './hrt';
+import { MIN_WIDTH, curveFor, hrtDeltaArea } from './hrt';
 import { surfaceForWidth } from './solve';
 
 /**
@@ -15,8 +15,9 @@ export interface Growth {
 	l: number;
 	/** ΔA/t² as t → 0, against m/2 = 1/(2 zh^d) */
 	early: { coefficient: number; predicted: number; how: string };
-	/** largest dΔA/dt before saturation, against 2 v_E/zh^{d−1} */
-	linear: { slope: number; predicted: number; vE: number; atTime: number; how: string };
+	/** largest dΔA/dt before saturation, against 2 v_E/zh^{d−1}; `regime` false when the strip is too narrow for a
+	 * linear regime (zh ≪ t ≪ l needs l ≫ zh: below LINEAR_WIDTH zh the slope is only the largest one) */
+	linear: { slope: number; predicted: number; vE: number; atTime: number; regime: boolean; how: string };
 	/** the static surface's first time ∫₀^{z*} dz/f: its tip leaves the shell region */
 	tc: { value: number; how: string };
 	/** the time the static surface becomes the smallest */
@@ -24,6 +25,13 @@ export interface Growth {
 	/** continuous (d = 2) or a kink (d ≥ 3): the slope just before saturation */
 	kind: { continuous: boolean; slopeBefore: number; how: string };
 }
+
+/**
+ * The width (in zh) from which `growth` calls its largest slope the linear regime's: the regime needs
+ * zh ≪ t ≪ l. Measured (tests/unit/holo/vaidya-wide.test.ts): at l = 2 zh, d = 3 the largest slope is 33 % below
+ * 2 v_E; at 20 zh it is within 5e−5 for d = 3 and 2e−8 for d = 4, while d = 2 is still 12 % low there (PHYSICS.md).
+ */
+export const LINEAR_WIDTH = 10;
 
 /** Tsunami velocity v_E = (η−1)^{(η−1)/2}/η^{η/2}, η = 2(d−1)/d (Liu & Suh 2014); 1 in d = 2. */
 export function tsunamiVelocity(d: number): number {
@@ -39,6 +47,13 @@ function slopeOf(s: { E: number; zstar: number }, d: number): number {
 export function analyseGrowth(d: number, zh: number, l: number): Growth {
 	hrtDeltaArea(d, zh, l, zh); // validates the inputs
 	const L = l / zh;
+	if (L < MIN_WIDTH) {
+		throw new HoloError(
+			`growth needs l ≥ ${MIN_WIDTH} zh (got l=${l})`,
+			'l',
+			'below that the family of surfaces is not resolved (darea l=… t=… still answers from saturation on)'
+		);
+	}
 	const curve = curveFor(d, L);
 	const scaleA = Math.pow(zh, 2 - d);
 	const scaleS = Math.pow(zh, 1 - d);
@@ -89,12 +104,12 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 		// Brent's minimiser of −slope on the grid bracket around the largest sampled slope (parabolic steps: ~10
 		// tip solves where golden section to the same 1e−12 took ~60)
 		let top = { v: 0, t: 0, zeta: 0 };
-		let guess = pts[idx].surface?.zstar;
+		let guess = pts[idx].surface ?? undefined;
 		minimizeBrent(
 			(z) => {
 				const s = surfaceForWidth(d, L, z, guess);
 				if (!s) return NaN;
-				guess = s.zstar;
+				guess = s;
 				const v = slopeOf(s, d);
 				if (v > top.v) top = { v, t: s.t, zeta: z };
 				return -v;
@@ -129,7 +144,11 @@ export function analyseGrowth(d: number, zh: number, l: number): Growth {
 			predicted: 2 * vE * scaleS,
 			vE,
 			atTime: best.t * zh,
-			how: 'largest dΔA/dt = 2|E|/z*^{d−1} (slope identity) on the dominant surface before saturation'
+			regime: L >= LINEAR_WIDTH,
+			how:
+				L >= LINEAR_WIDTH
+					? 'largest dΔA/dt = 2|E|/z*^{d−1} (slope identity) on the dominant surface before saturation'
+					: `l = ${L} zh is too narrow for a linear regime (it needs zh ≪ t ≪ l; l ≥ ${LINEAR_WIDTH} zh here), so this is only the largest dΔA/dt = 2|E|/z*^{d−1} before saturation, not the tsunami slope`
 		},
 		tc: { value: st.tsat * zh, how: 't_c = ∫₀^{z*} dz/f on the static surface of this width (its tip reaches the shell)' },
 		saturation: {

@@ -2,6 +2,7 @@ import { HoloError } from '../errors';
 import { solveStrip, vacuumWidthFactor } from '../strip';
 import { braneSlice, buildCurve, completeCurve, surfacesAt, type Curve } from './curve';
 import type { Surface } from './family';
+import { saturationTime } from './solve';
 
 /** One candidate extremal surface at (l, t), in the user's units. */
 export interface HrtSurface {
@@ -16,6 +17,8 @@ export interface HrtSurface {
 	behindHorizon: boolean;
 	/** conserved E (units zh^{d−1}·… as in PHYSICS.md) — dΔA/dt = 2|E|/z*^{d−1} */
 	E: number;
+	/** a near-critical family member's label (climb.ts), so its profile is traced in the same variables */
+	critical?: { branch: 'climb' | 'pass'; lam: number };
 }
 
 export interface HrtAnswer {
@@ -88,6 +91,36 @@ function checkInputs(d: number, zh: number, l: number, t: number): void {
 	if (!Number.isFinite(t)) throw new HoloError('t must be a finite number', 't');
 }
 
+/**
+ * The smallest width (in zh) the family curve is built for: below it m z*^d and the shell-crossing integrals
+ * approach the doubles' range (d = 2 lost ΔA between 1e−10 and 1e−20 zh, d = 6 had no curve below 1e−60 zh), and
+ * the answer is of order (m/2) t² ≤ m l²/8 anyway. Checked down to it (tests/unit/holo/vaidya-wide.test.ts): ΔA/l²
+ * is a function of t/l alone for l ≪ zh (first order in m), and the early law (m/2) t².
+ */
+export const MIN_WIDTH = 1e-8;
+
+/**
+ * A strip narrower than MIN_WIDTH zh: from the saturation time on the answer is the static brane's ΔA (a tiny width
+ * is fine physically), before it an error that says why and what ΔA is of order.
+ */
+function belowRange(d: number, zh: number, l: number, t: number): HrtAnswer {
+	const st = staticStrip(d, zh, l);
+	const tsat = saturationTime(d, st.zstar / zh, st.point.eta) * zh;
+	if (t >= tsat && Number.isFinite(st.deltaArea)) {
+		const s: HrtSurface = { kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 };
+		return { d, zh, l, t, dA: s.dA, regime: 'saturated', winner: s, surfaces: [s], gap: NaN, tsat };
+	}
+	const early = 0.5 * Math.pow(zh, -d) * t * t;
+	const scale = early > 0 ? `= ${early}` : '≈ 0 (below the smallest double)';
+	throw new HoloError(
+		`l=${l} is below the quench solver's range (l ≥ ${MIN_WIDTH} zh)`,
+		'l',
+		Number.isFinite(tsat) && t < tsat
+			? `before saturation (t < ${tsat}) ΔA is of order (m/2)t² ${scale} (Liu & Suh 2014, t ≪ l); from t = ${tsat} on it is the brane's ΔA(l)`
+			: 'the static ΔA of so narrow a strip is not resolved either'
+	);
+}
+
 function fromFamily(s: Surface, zh: number, d: number): HrtSurface {
 	return {
 		kind: 'shell',
@@ -96,7 +129,8 @@ function fromFamily(s: Surface, zh: number, d: number): HrtSurface {
 		zc: s.zstar * s.zeta * zh,
 		zturn: s.zturn * zh,
 		behindHorizon: s.behindHorizon,
-		E: s.E
+		E: s.E,
+		...(s.critical ? { critical: s.critical } : {})
 	};
 }
 
@@ -121,6 +155,7 @@ export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAn
 		};
 		return { d, zh, l, t, dA: 0, regime: 'before', winner: v, surfaces: [v], gap: NaN, tsat: NaN };
 	}
+	if (l / zh < MIN_WIDTH) return belowRange(d, zh, l, t);
 	const curve = cachedCurve(d, l / zh);
 	const T = t / zh;
 	const cands = surfacesAt(curve, T).map((s) => fromFamily(s, zh, d));
@@ -132,7 +167,12 @@ export function hrtDeltaArea(d: number, zh: number, l: number, t: number): HrtAn
 		cands.push({ kind: 'static', dA: st.deltaArea, zstar: st.zstar, zc: NaN, zturn: st.zstar, behindHorizon: false, E: 0 });
 	}
 	if (cands.length === 0) {
-		throw new HoloError(`no extremal surface found for l=${l} at t=${t}`, 'l', 'the width may be too large for the quench solver');
+		// wide strips are resolved (climb.ts); what is left is a curve that did not bracket this time
+		throw new HoloError(
+			`no extremal surface found for l=${l} at t=${t}`,
+			't',
+			'the family curve of this width has no surface at this time; a nearby t may have one'
+		);
 	}
 	cands.sort((a, b) => a.dA - b.dA);
 	const winner = cands[0];

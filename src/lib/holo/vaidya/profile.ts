@@ -1,5 +1,6 @@
 import { makeBrane } from '../bulks/brane';
 import { staticProfile, traceProfile, type ProfilePoint } from '../profile';
+import { criticalTail } from './climb';
 import { surfaceAt } from './family';
 import { hrtDeltaArea, type HrtAnswer } from './hrt';
 
@@ -38,11 +39,12 @@ export function hrtProfile(d: number, zh: number, l: number, t: number, count = 
 	}
 	const Z = w.zstar / zh;
 	const zeta = w.zc / w.zstar;
-	const s = surfaceAt(d, Z, zeta);
-	if (!s) throw new Error('the winning surface could not be re-evaluated');
+	// a critical winner (climb.ts) is not re-evaluated in (z*, ζ): that labelling cannot reach its tip
+	const s = w.critical ? null : surfaceAt(d, Z, zeta);
+	if (!s && !w.critical) throw new Error('the winning surface could not be re-evaluated');
 	const n = 2 * (d - 1);
 	const mu = Math.pow(Z, d);
-	const E = s.E;
+	const E = s ? s.E : w.E;
 	const P = (u: number) => E * E + (1 - mu * Math.pow(u, d)) * Math.expm1(-n * Math.log(u));
 	const R1 = (u: number) => Math.expm1(-n * Math.log(u));
 	const zc = zeta;
@@ -62,12 +64,19 @@ export function hrtProfile(d: number, zh: number, l: number, t: number, count = 
 	let at: ProfilePoint = inside[inside.length - 1];
 	at = { x: at.x, z: zeta, v: 0 };
 	const parts: ProfilePoint[] = [tip, ...inside];
+	if (w.critical) {
+		// a wide strip's surface on the critical surface z_m: traced in climb.ts's variables
+		const tail = criticalTail(d, Z, w.critical, at, count);
+		if (!tail) throw new Error('the winning surface could not be re-evaluated');
+		parts.push(...tail);
+		return { answer, points: parts.map((p) => ({ x: p.x * Z * zh, z: p.z * Z * zh, v: (p.v ?? 0) * Z * zh })) };
+	}
 	const descent = (u: number): [number, number] => {
 		const sp = Math.sqrt(P(u));
 		return [1 / sp, R1(u) / (sp * (sp - E))];
 	};
-	if (s.a > 1) {
-		const ut = s.zturn / Z;
+	if (s!.a > 1) {
+		const ut = s!.zturn / Z;
 		const S = Math.sqrt(ut - zeta);
 		// the climb: u = u_t − q² with q = S − p running from S to 0 (dv/dz = (R − 1)/(√P(−E − √P)) > 0 there)
 		const climb = traceProfile(

@@ -1,4 +1,5 @@
 import { vacuumWidthFactor } from '../strip';
+import { criticalBranch, criticalForWidth } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import { integrateAdaptive } from './quad';
 
@@ -14,17 +15,41 @@ const PAST_EDGE = 40;
  *
  * Near that edge (the surfaces of the linear-growth regime, and every climbing surface of a wide strip) the width
  * diverges like −C ln(x_e − x), so the tip sits within 1e−10 or less of x_e and a secant in x crawls there by
- * bisection. Once a step lands past the edge, x_e is located to rounding by bisection on the integral-free
- * existence test (surfaceExists), and the search goes on in y = ln(x_e − x), in which the width is close to linear.
+ * bisection, and a double x cannot get closer than rounding (that bounded the width: 10–17 zh at d = 3). So a probe
+ * that is a critical surface (climb.ts criticalBranch: every a > 1, and a < 1 with P(u_m) small), or a critical
+ * guess, hands the solve to climb.ts (λ, in which the width is linear and unbounded); once a step lands past the
+ * edge, x_e is located to rounding by bisection on the integral-free existence test (surfaceExists) and the
+ * critical solve starts there, with the older search in y = ln(x_e − x) as the fallback.
  */
-export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number): Surface | null {
+export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
+	const s = solveTip(d, l, zeta, guess);
+	// a width the search could not reach (rounding of the tip at the edge, no λ on the branch) is no surface of
+	// this strip: curves skip it rather than carry a point of another width
+	return s && Math.abs(s.l / l - 1) <= 1e-9 ? s : null;
+}
+
+function solveTip(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
+	// a critical neighbour (climb.ts) as the guess: its branch and λ lead straight to this ζ's surface
+	const hint = typeof guess === 'object' ? guess : undefined;
+	if (hint?.critical) {
+		const s = criticalForWidth(d, l, zeta, Math.log(hint.zstar), hint.critical.branch, hint.critical.lam);
+		if (s) return s;
+	}
 	const lnl = Math.log(l);
+	let tried = false;
 	const g = (x: number): { v: number; s: Surface | null } => {
+		// once a probe is a critical surface (climb.ts), the rest of the solve is in its λ (tried once)
+		const branch = tried ? null : criticalBranch(d, Math.exp(x), zeta);
+		if (branch) {
+			tried = true;
+			const c = criticalForWidth(d, l, zeta, x, branch);
+			if (c) return { v: 0, s: c };
+		}
 		const s = surfaceAt(d, Math.exp(x), zeta);
 		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
 	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
-	let xa = Math.log(guess ?? l / vacuumWidthFactor(d));
+	let xa = Math.log(typeof guess === 'object' ? guess.zstar : (guess ?? l / vacuumWidthFactor(d)));
 	let a = g(xa);
 	for (let k = 0; !a.s; k++) {
 		if (k > 60) return null;
@@ -41,7 +66,7 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 		const b = g(xb);
 		if (!b.s) {
 			hi = Math.min(hi, xb);
-			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, zeta, g, a, xa, lo, xb);
+			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, l, zeta, g, a, xa, lo, xb);
 			xb = 0.5 * (xa + xb);
 			continue;
 		}
@@ -75,6 +100,7 @@ type Probe = (x: number) => { v: number; s: Surface | null };
  */
 function nearEdge(
 	d: number,
+	l: number,
 	zeta: number,
 	g: Probe,
 	a: { v: number; s: Surface | null },
@@ -90,6 +116,11 @@ function nearEdge(
 		else bad = m;
 	}
 	const xe = bad;
+	// a critical surface (climb.ts) reaches any width next to the edge with full accuracy; the secant in y below
+	// stays for what it cannot label (then bounded by the rounding of the tip)
+	const branch = 0.5 * Math.exp(d * (ok + Math.log(zeta))) > 1 ? 'climb' : 'pass';
+	const crit = criticalForWidth(d, l, zeta, ok, branch);
+	if (crit) return crit;
 	const yMin = Math.log(4e-16 * Math.max(1, Math.abs(xe)));
 	const yOf = (x: number) => Math.log(xe - x);
 	// bracket in y: yWide (width above the target: nearer the edge) < yNarrow
@@ -146,7 +177,9 @@ export interface CurvePoint {
  * η = 1 − x kept exact by the strip solver. d = 2: artanh(x) = l/2.
  */
 export function saturationTime(d: number, zstar: number, eta: number): number {
-	const lead = -Math.log(eta) / d;
+	// −ln(1 − x) from η where it is exact (near the horizon), from x itself for small tips (η = 1 − x rounds to 1
+	// for x < 1e−16, which made t_sat of a strip of width 1e−20 zh come out (d−1)/d of its value)
+	const lead = -(zstar < 0.5 ? Math.log1p(-zstar) : Math.log(eta)) / d;
 	const out = new Float64Array(1);
 	integrateAdaptive(
 		(u, o) => {

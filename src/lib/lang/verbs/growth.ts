@@ -11,7 +11,7 @@ export const growth = defineVerb({
 		method:
 			'the family of HRT surfaces at this width (holo/vaidya): early ΔA/t² Richardson-extrapolated to t → 0; the largest dΔA/dt = 2|E|/z*^{d−1} before saturation; t_c = ∫dz/f on the static surface; saturation where the rising surface’s ΔA meets the static one',
 		accuracy:
-			'early coefficient ≤ 1e-6 relative of m/2; t_c and the d = 2 saturation time ≤ 1e-12 relative (tests/unit/holo/vaidya.test.ts); widths ≲ 8 zh (wider strips are ill-conditioned in the solver)',
+			'early coefficient ≤ 1e-6 relative of m/2; t_c and the d = 2 saturation time ≤ 1e-12 relative (tests/unit/holo/vaidya.test.ts); at l = 20 zh the slope is 2 v_E to ≤ 1e-3 in d = 3, 4 (vaidya-wide.test.ts); below l = 10 zh there is no linear regime and the record says so (linear_regime = 0); l ≥ 1e-8 zh',
 		source: 'Liu & Suh, PRD 89 (2014) 066012; Balasubramanian et al., PRD 84 (2011) 026010',
 		examples: ['use vaidya d=3; growth l=2', 'use vaidya d=2 zh=1; growth l=4']
 	},
@@ -27,6 +27,7 @@ export const growth = defineVerb({
 				slope: g.linear.slope,
 				slope_expected: g.linear.predicted,
 				v_E: g.linear.vE,
+				linear_regime: g.linear.regime ? 1 : 0,
 				t_slope: g.linear.atTime,
 				t_c: g.tc.value,
 				t_sat: g.saturation.time,
@@ -36,7 +37,7 @@ export const growth = defineVerb({
 			},
 			note: [
 				`early = ${g.early.how}; expected m/2`,
-				`slope: ${g.linear.how}; expected 2 v_E/zh^{d−1}`,
+				g.linear.regime ? `slope: ${g.linear.how}; expected 2 v_E/zh^{d−1}` : `slope (no linear regime): ${g.linear.how}`,
 				g.tc.how,
 				`t_sat: ${g.saturation.how}`,
 				g.kind.how

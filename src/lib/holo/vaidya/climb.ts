@@ -1,0 +1,646 @@
+import { traceProfile, type ProfilePoint } from '../profile';
+import { deltaFromParts, vacuumWidthFactor } from '../strip';
+import { findRootBrent } from '../numeric/brent';
+import { minimumOfP, type Surface } from './family';
+import { integrateAdaptive } from './quad';
+
+/**
+ * Near-critical surfaces of the quench family (units zh = 1; notation of family.ts: u = z/z*, n = 2(d−1),
+ * μ = z*^d, g(u) = f(R − 1), P = E² + g, u_m the one minimum of g). Wide strips need surfaces that hug the
+ * critical surface z_m = u_m z* for a long stretch: P(u_m) → 0 and the width diverges like −C ln|P(u_m)|^{½}. In
+ * (z*, ζ) that limit is the family's edge, where a double ln z* cannot get closer than rounding, which bounds the
+ * reachable width. Here such a surface is labelled instead by (z*, λ) and a branch:
+ *  - 'climb' (a > 1, ζ < u_t < u_m): the turning point u_t = u_m − e^λ, and E² := −g(u_t) exactly;
+ *  - 'pass' (a < 1, u_m < ζ): the surface passes z_m on its way out with P(u_m) = G(u_m − e^λ), G = g − g(u_m)
+ *    (the mirror of the climbing one's |P(u_m)|).
+ * The crossing ζ then follows from a²(R_c − 1) = E², i.e. h(ζ) := (μ²/4) ζ² (1 − ζ^{2d−2}) = E² (a root bracketed
+ * on the branch's side of a = 1: P(ζ) = (R_c − 1)(a − 1)² ≥ 0 makes h − E² change sign there). Every width is then
+ * linear in λ, so λ → −∞ reaches any width, and nothing small is formed by subtraction: P near u_m is
+ * P(u_m) + G(u) with G = Σ ±c_k φ(α_k ln(u/u_m)), φ(x) = eˣ − 1 − x (the linear terms cancel exactly at the
+ * minimum), and near the turning point it is G(u) − G(u_t) written from ln(u/u_t) (diffFrom below). The peaks of
+ * 1/√P are mapped away: u = u_m + ε sinh τ across z_m (pass), u = u_m − ε cosh τ from the turning point (climb).
+ */
+export type Branch = 'climb' | 'pass';
+
+/** φ(x) = eˣ − 1 − x, to full relative accuracy (Taylor series for |x| < ½). */
+export function phiExp(x: number): number {
+	if (Math.abs(x) >= 0.5) return Math.expm1(x) - x;
+	let term = (x * x) / 2;
+	let sum = term;
+	for (let k = 3; k < 30; k++) {
+		term *= x / k;
+		sum += term;
+		if (Math.abs(term) < 1e-17 * Math.abs(sum)) break;
+	}
+	return sum;
+}
+
+/** K = g″(u_m)/2 in units of the tip: P ≈ P(u_m) + K (u − u_m)² near z_m. */
+function halfCurvature(C: Critical): number {
+	let K = 0;
+	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
+	return K / (2 * C.um * C.um);
+}
+
+/** The integral-free part of a critical surface: everything but the integrals. */
+export interface Critical {
+	d: number;
+	n: number;
+	mu: number;
+	lnmu: number;
+	branch: Branch;
+	lam: number;
+	um: number;
+	/** G(u) − G(u_m) coefficients at u_m: g − g(u_m) = Σ s_k c_k expm1(α_k r), r = ln(u/u_m) */
+	c: Float64Array;
+	alpha: Float64Array;
+	/** P(u_m) (< 0 when climbing) */
+	Pm: number;
+	E2: number;
+	E: number;
+	zeta: number;
+	a: number;
+	/** turning point (climb), else NaN; ln(u_t/u_m) */
+	ut: number;
+	rt: number;
+}
+
+const SIGN = [1, -1, 1];
+/** ln of the closeness to z_m below which a surface is taken as on it (see criticalSurface). */
+const TAU_MODEL = 184;
+
+/** G(r) = g(u) − g(u_m), r = ln(u/u_m), with the (exactly cancelling) linear terms dropped. */
+function gFromMin(C: Critical, r: number): number {
+	let s = 0;
+	for (let k = 0; k < 3; k++) s += SIGN[k] * C.c[k] * phiExp(C.alpha[k] * r);
+	return s;
+}
+
+/**
+ * G(u) − G(u_t) = g(u) − g(u_t) from ρ = ln(u/u_t) (exact near the turning point): with φ(x) − φ(y) =
+ * expm1(y)(x − y) + e^y φ(x − y), the term linear in ρ carries u_t g′(u_t) ~ e^λ as a sum of terms of that size.
+ */
+function diffFrom(C: Critical, rho: number): number {
+	let s = 0;
+	for (let k = 0; k < 3; k++) {
+		const y = C.alpha[k] * C.rt;
+		const x = C.alpha[k] * rho;
+		s += SIGN[k] * C.c[k] * (Math.expm1(y) * x + Math.exp(y) * phiExp(x));
+	}
+	return s;
+}
+
+/** h(ζ) = a²(R_c − 1) = (μ²/4) ζ² (1 − ζ^{2d−2}), the E² of the surface refracted at ζ. */
+function hOf(d: number, mu: number, zeta: number): number {
+	return 0.25 * mu * mu * zeta * zeta * -Math.expm1((2 * d - 2) * Math.log(zeta));
+}
+
+/**
+ * The integral-free data of the critical surface (z*, λ, branch), or null when there is none: the turning point
+ * must lie behind the horizon (E² > 0) and the crossing must exist on the branch's side of a = 1.
+ */
+export function criticalAt(d: number, zstar: number, lam: number, branch: Branch): Critical | null {
+	const n = 2 * (d - 1);
+	const lnmu = d * Math.log(zstar);
+	const mu = Math.exp(lnmu);
+	const um = minimumOfP(d, mu);
+	const eps = Math.exp(lam);
+	if (!(eps < um) || !(um < 1)) return null;
+	const lnum = Math.log(um);
+	const c = Float64Array.of(Math.exp(-n * lnum), Math.exp(lnmu + (d - n) * lnum), Math.exp(lnmu + d * lnum));
+	const alpha = Float64Array.of(-n, d - n, d);
+	// g(u_m) = (u_m^{−n} − 1)(1 − μ u_m^d)
+	const gm = Math.expm1(-n * lnum) * -Math.expm1(lnmu + d * lnum);
+	if (!(gm < 0)) return null;
+	const C: Critical = {
+		d,
+		n,
+		mu,
+		lnmu,
+		branch,
+		lam,
+		um,
+		c,
+		alpha,
+		Pm: 0,
+		E2: 0,
+		E: 0,
+		zeta: NaN,
+		a: NaN,
+		ut: NaN,
+		rt: NaN
+	};
+	const r = Math.log1p(-eps / um);
+	const G = gFromMin(C, r);
+	C.Pm = branch === 'climb' ? -G : G;
+	C.E2 = C.Pm - gm;
+	if (!(C.E2 > 0)) return null;
+	C.E = -Math.sqrt(C.E2);
+	const z1 = Math.exp((Math.LN2 - lnmu) / d); // a = 1
+	let lo: number;
+	let hi: number;
+	if (branch === 'climb') {
+		C.ut = um - eps;
+		C.rt = r;
+		lo = z1;
+		hi = C.ut;
+	} else {
+		lo = um;
+		hi = Math.min(z1, 1);
+	}
+	if (!(lo < hi)) return null;
+	const q = (z: number) => hOf(d, mu, z) - C.E2;
+	const qlo = q(lo);
+	const qhi = q(hi);
+	if (qlo * qhi > 0) return null;
+	const root = findRootBrent(q, lo, hi, 1e-17, 200, qlo, qhi);
+	C.zeta = root.x;
+	C.a = 0.5 * Math.exp(lnmu + d * Math.log(C.zeta));
+	if (branch === 'climb' ? !(C.a > 1) : !(C.a < 1)) return null;
+	return C;
+}
+
+/** The critical surface (z*, λ, branch) with its width, time and ΔA, or null when there is none. */
+export function criticalSurfaceAt(d: number, zstar: number, lam: number, branch: Branch): Surface | null {
+	const C = criticalAt(d, zstar, lam, branch);
+	return C ? criticalSurface(C, zstar) : null;
+}
+
+export function criticalSurface(C: Critical, zstar: number): Surface | null {
+	const { d, n, E, E2, zeta, um } = C;
+	const lam = C.lam;
+	const eps = Math.exp(lam);
+	const W0 = vacuumWidthFactor(d);
+	// outside the shell on [0, ζ]: P^{−½} − (R−1)^{−½}, R(…) and dv/dz = (R−1)/(√P(√P − E)) (no 1/f)
+	// r = ln(u/u_m) is given apart: across z_m of a passing surface u − u_m is far below the rounding of u
+	const outer = (u: number, r: number, jac: number, o: Float64Array): boolean => {
+		const lnu = Math.log(u);
+		const R1 = Math.expm1(-n * lnu);
+		const P = C.Pm + gFromMin(C, r);
+		if (!(P > 0) || !(R1 > 0)) return false;
+		const sq = Math.sqrt(P);
+		let dw: number;
+		if (P < 0.5 * R1) dw = 1 / sq - 1 / Math.sqrt(R1);
+		else {
+			// near the boundary P ≈ R − 1: the difference from (P − (R−1))/(R−1) = E²/(R−1) − μu^d
+			const X = E2 / R1 - Math.exp(C.lnmu + d * lnu);
+			dw = Math.expm1(-0.5 * Math.log1p(X)) / Math.sqrt(R1);
+		}
+		o[0] = jac * dw;
+		o[1] = jac * (1 + R1) * dw;
+		o[2] = (jac * R1) / (sq * (sq - E));
+		return true;
+	};
+	// ε sinh τ, ε cosh τ and ε(cosh τ − 1) from e^{λ±τ}: λ may be far below the doubles' exponent range (a wide
+	// strip's far members need λ ~ −10³…−10⁵) while the integration variable τ runs to ~ −λ
+	const eSinh = (tau: number) => 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+	const eCosh = (tau: number) => 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau));
+	const eCosh1 = (tau: number) => {
+		const q = Math.exp(0.5 * (lam + tau)) - Math.exp(0.5 * (lam - tau));
+		return 0.5 * q * q;
+	};
+	// |τ| < τ_s, where ε e^{|τ|} < e^{−TAU_MODEL}: the surface is within 1e−80 of z_m and the integrands equal their
+	// limits there (P = K ε² cosh²τ or K ε² sinh²τ up to a relative 1e−80, K = G″(u_m)/2), so that stretch
+	// is the limit times its length — the part of the width and time that grows linearly in −λ
+	const tauS = Math.max(0, -TAU_MODEL - lam);
+	let K = 0;
+	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
+	K /= 2 * um * um;
+	const Rm = Math.exp(-n * Math.log(um));
+	const fm = -Math.expm1(C.lnmu + d * Math.log(um));
+	const sqK = Math.sqrt(K);
+	let dw = 0;
+	let da = 0;
+	let tt = 0;
+	const part = new Float64Array(3);
+	const add = () => {
+		dw += part[0];
+		da += part[1];
+		tt += part[2];
+	};
+	let zturn = zstar;
+	let fmin = -Math.expm1(C.lnmu + d * Math.log(zeta));
+	if (C.branch === 'pass') {
+		// u = u_m + ε sinh τ: the 1/√P ≈ 1/√(K (ε² + (u − u_m)²)) peak becomes flat in τ
+		const g = (tau: number, o: Float64Array) => {
+			const du = eSinh(tau);
+			return outer(um + du, Math.log1p(du / um), eCosh(tau), o);
+		};
+		const t0 = lam - Math.log(um + Math.hypot(um, eps));
+		const t1 = Math.log(zeta - um + Math.hypot(zeta - um, eps)) - lam;
+		if (!(t0 < -tauS && t1 > tauS)) return null;
+		if (tauS > 0) {
+			if (!integrateAdaptive(g, t0, -tauS, 3, part)) return null;
+			add();
+			if (!integrateAdaptive(g, tauS, t1, 3, part)) return null;
+			add();
+			dw += (2 * tauS) / sqK;
+			da += (2 * tauS * Rm) / sqK;
+			tt += (2 * tauS * (Rm - 1)) / (sqK * -E);
+		} else {
+			if (!integrateAdaptive(g, t0, t1, 3, part)) return null;
+			add();
+		}
+	} else {
+		// no peak on [0, ζ] (P ≥ P(ζ) = (R_c − 1)(a − 1)² there): w = ln √(1 − u) as in family.ts
+		const ok = integrateAdaptive(
+			(w, o) => {
+				const s2 = Math.exp(2 * w);
+				const u = -Math.expm1(2 * w);
+				return outer(u, Math.log(u / um), 2 * s2, o);
+			},
+			0.5 * Math.log1p(-zeta),
+			0,
+			3,
+			part
+		);
+		if (!ok) return null;
+		add();
+		const ut = C.ut;
+		zturn = ut * zstar;
+		fmin = -Math.expm1(C.lnmu + d * Math.log(ut));
+		// u = u_m − ε cosh τ from the turning point (τ = 0) back to the shell: flat across the 1/√P peak at z_m
+		const A = um - zeta;
+		if (!(A > eps)) return null;
+		const T = Math.log(A + Math.sqrt((A - eps) * (A + eps))) - lam;
+		if (!(T > tauS)) return null;
+		const ok2 = integrateAdaptive(
+			(tau, o) => {
+				const gapT = eCosh1(tau); // u_t − u
+				const u = ut - gapT;
+				const P = diffFrom(C, Math.log1p(-gapT / ut));
+				if (!(P > 0)) return false;
+				const sq = Math.sqrt(P);
+				const f = -Math.expm1(C.lnmu + d * Math.log(u));
+				const jac = eSinh(tau);
+				o[0] = (2 * jac) / sq;
+				o[1] = (2 * jac * Math.exp(-n * Math.log(u))) / sq;
+				o[2] = (jac * 2 * E) / (f * sq);
+				return true;
+			},
+			tauS,
+			T,
+			3,
+			part
+		);
+		if (!ok2) return null;
+		add();
+		dw += (2 * tauS) / sqK;
+		da += (2 * tauS * Rm) / sqK;
+		tt += (2 * tauS * E) / (fm * sqK);
+	}
+	const wrel = (2 * dw) / W0;
+	const l = zstar * W0 * (1 + wrel);
+	if (!(l > 0) || !Number.isFinite(l)) return null;
+	return {
+		d,
+		zstar,
+		zeta,
+		l,
+		t: zstar * tt,
+		dA: deltaFromParts(d, l, wrel, da),
+		E,
+		a: C.a,
+		zturn,
+		behindHorizon: fmin < 0,
+		wrel,
+		dS: da,
+		critical: { branch: C.branch, lam: C.lam }
+	};
+}
+
+/**
+ * The tip (x = ln z*) of the critical surface (λ, branch) that crosses the shell at ζ: a safeguarded secant in x on
+ * ζ(x) − ζ from x0 (the family's edge tip at this ζ, which is the λ → −∞ limit). At fixed λ the crossing falls
+ * smoothly with the tip (the map (z*, λ) → ζ has no edge; seen in every scan), so a few steps reach rounding.
+ */
+export function tipForCrossing(d: number, zeta: number, lam: number, branch: Branch, x0: number): { x: number; C: Critical } | null {
+	const at = (x: number) => criticalAt(d, Math.exp(x), lam, branch);
+	let xa = x0;
+	let ca = at(xa);
+	// a start where the surface exists: towards smaller tips first (the edge tip lies just inside for λ ≪ 0)
+	for (let k = 0; !ca && k < 60; k++) {
+		xa = x0 + (k % 2 ? 1 : -1) * 1e-3 * Math.pow(2, k >> 1);
+		ca = at(xa);
+	}
+	if (!ca) return null;
+	let lo = -Infinity; // ζ(lo) > ζ: tip too small
+	let hi = Infinity;
+	const side = (x: number, z: number) => {
+		if (z > zeta) lo = Math.max(lo, x);
+		else hi = Math.min(hi, x);
+	};
+	side(xa, ca.zeta);
+	let xb = xa + (ca.zeta > zeta ? 1e-3 : -1e-3);
+	for (let k = 0; k < 100; k++) {
+		if (Math.abs(ca.zeta - zeta) <= 2e-16 * zeta) return { x: xa, C: ca };
+		const cb = at(xb);
+		if (!cb) {
+			// no surface there: come back halfway (the existence range in x is an interval around the answer)
+			xb = 0.5 * (xa + xb);
+			if (Math.abs(xb - xa) < 1e-15) break;
+			continue;
+		}
+		side(xb, cb.zeta);
+		let xn = cb.zeta === ca.zeta ? NaN : xb - ((cb.zeta - zeta) * (xb - xa)) / (cb.zeta - ca.zeta);
+		if (!(xn > lo && xn < hi)) xn = Number.isFinite(lo) && Number.isFinite(hi) ? 0.5 * (lo + hi) : xb + (cb.zeta > zeta ? 0.1 : -0.1);
+		xa = xb;
+		ca = cb;
+		if (Math.abs(xn - xb) <= 1e-16 * Math.max(1, Math.abs(xb))) return { x: xb, C: cb };
+		xb = xn;
+	}
+	return Math.abs(ca.zeta - zeta) <= 1e-12 * zeta ? { x: xa, C: ca } : null;
+}
+
+/**
+ * The critical surface of width l crossing the shell at ζ (units zh = 1), for a tip solve that met the family's edge
+ * x_e at this ζ (solve.ts): the branch is the edge's (climbing when a > 1 there), the tip follows λ (tipForCrossing),
+ * and λ is found by a safeguarded secant on l(λ)/l − 1, which is close to linear (the width diverges like −C λ), so
+ * any width is reached with the accuracy of the integrals. Null when no λ gives the width on this branch.
+ */
+export function criticalForWidth(d: number, l: number, zeta: number, xe: number, branch: Branch, lamGuess = -8): Surface | null {
+	let x = xe;
+	let dvdl = NaN; // d(l/l_target)/dλ on z_m: −4 z*/(√K l), the first secant step's slope
+	const g = (lam: number): { v: number; s: Surface | null } => {
+		const tip = tipForCrossing(d, zeta, lam, branch, x);
+		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x)) : null;
+		if (!tip || !s) return { v: -Infinity, s: null }; // past the narrow end of the branch
+		x = tip.x;
+		dvdl = (-4 * s.zstar) / (Math.sqrt(halfCurvature(tip.C)) * l);
+		return { v: s.l / l - 1, s };
+	};
+	let lwide = -Infinity; // v > 0
+	let lnarrow = Infinity; // v < 0 or no surface
+	let la = lamGuess;
+	let pa = g(la);
+	for (let k = 0; !pa.s && k < 40; k++) {
+		lnarrow = Math.min(lnarrow, la);
+		la -= 4;
+		pa = g(la);
+	}
+	if (!pa.s) return null;
+	let best = pa;
+	if (pa.v > 0) lwide = la;
+	else lnarrow = Math.min(lnarrow, la);
+	// the first step from the width's slope on z_m (exact as λ → −∞, a fair guess elsewhere), at most 20 in λ
+	let lb = la + Math.max(-20, Math.min(20, Number.isFinite(dvdl) && dvdl < 0 ? -pa.v / dvdl : pa.v > 0 ? 2 : -2));
+	if (lb === la) lb = la + (pa.v > 0 ? 1e-3 : -1e-3);
+	for (let k = 0; k < 100; k++) {
+		if (Math.abs(pa.v) < 1e-15) return pa.s;
+		const pb = g(lb);
+		if (!pb.s) {
+			lnarrow = Math.min(lnarrow, lb);
+			lb = Number.isFinite(lwide) ? 0.5 * (lwide + lnarrow) : 0.5 * (la + lb);
+			continue;
+		}
+		if (Math.abs(pb.v) < Math.abs(best.v)) best = pb;
+		if (pb.v > 0) lwide = Math.max(lwide, lb);
+		else lnarrow = Math.min(lnarrow, lb);
+		let ln = pb.v === pa.v ? NaN : lb - (pb.v * (lb - la)) / (pb.v - pa.v);
+		if (!(ln > lwide && ln < lnarrow)) {
+			if (Number.isFinite(lwide) && Number.isFinite(lnarrow)) ln = 0.5 * (lwide + lnarrow);
+			else ln = lb + (pb.v > 0 ? 4 : -4);
+		}
+		if (Math.abs(ln - lb) <= 1e-15 * Math.max(1, Math.abs(lb))) break;
+		la = lb;
+		pa = pb;
+		lb = ln;
+	}
+	return Math.abs(best.v) < WIDTH_TOL ? best.s : null;
+}
+
+/** A critical solve that stops short of the asked width (rounding in λ) is kept when this close (relative). */
+const WIDTH_TOL = 1e-13;
+
+/** Two neighbouring points of a family curve (curve.ts's CurvePoint, without importing it). */
+interface Bracket {
+	zeta: number;
+	t: number;
+	surface: Surface | null;
+}
+
+/**
+ * The surface of width l at time t between two critical members A, B of one branch of the family curve, by Newton's
+ * method in (x = ln z*, λ) on (l(x, λ)/l − 1, t(x, λ) − t) from the bracket's interpolation; null unless it converges
+ * to rounding with its crossing ζ inside the bracket. In (z*, λ) the width and time are smooth (the edge of the
+ * (z*, ζ) labelling is λ → −∞), so three or four steps of ~3 surfaces each replace a bracketed search in ζ whose
+ * every step solves the tip (the caller's fallback).
+ */
+export function criticalBetween(d: number, l: number, t: number, A: Bracket, B: Bracket): Surface | null {
+	const ca = A.surface?.critical;
+	const cb = B.surface?.critical;
+	const w = (t - A.t) / (B.t - A.t);
+	if (!(w >= 0 && w <= 1)) return null;
+	if (ca && cb && ca.branch === cb.branch) {
+		const x = (1 - w) * Math.log(A.surface!.zstar) + w * Math.log(B.surface!.zstar);
+		return newtonCritical(d, l, t, A, B, ca.branch, x, (1 - w) * ca.lam + w * cb.lam);
+	}
+	// a bracket across a = 1 (or with one end not critical): from each critical end on its own branch
+	for (const [P, c] of [
+		[A, ca],
+		[B, cb]
+	] as const) {
+		if (!c) continue;
+		const s = newtonCritical(d, l, t, A, B, c.branch, Math.log(P.surface!.zstar), c.lam);
+		if (s) return s;
+	}
+	return null;
+}
+
+function newtonCritical(d: number, l: number, t: number, A: Bracket, B: Bracket, branch: Branch, x: number, lam: number): Surface | null {
+	const zLo = Math.min(A.zeta, B.zeta);
+	const zHi = Math.max(A.zeta, B.zeta);
+	const F = (s: Surface): [number, number] => [s.l / l - 1, s.t - t];
+	let s = criticalSurfaceAt(d, Math.exp(x), lam, branch);
+	if (!s) return null;
+	let [f0, f1] = F(s);
+	const HX = 1e-7;
+	const HL = 1e-7 * Math.max(1, Math.abs(lam));
+	const tScale = Math.max(1, Math.abs(t));
+	const inside = (c: Surface) => (c.zeta > zLo && c.zeta < zHi ? c : null);
+	const done = () => Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * tScale;
+	// the difference Jacobian is kept while a step gains three digits (the quadratic basin: the chord step then
+	// loses little), and recomputed otherwise or when a kept one fails to descend
+	let j00 = 0;
+	let j01 = 0;
+	let j10 = 0;
+	let j11 = 0;
+	let keep = false;
+	for (let k = 0; k < 16; k++) {
+		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * tScale) return inside(s);
+		if (!keep) {
+			const sx = criticalSurfaceAt(d, Math.exp(x - HX), lam, branch);
+			const sl = criticalSurfaceAt(d, Math.exp(x), lam - HL, branch);
+			if (!sx || !sl) return null;
+			const [gx0, gx1] = F(sx);
+			const [gl0, gl1] = F(sl);
+			j00 = (f0 - gx0) / HX;
+			j10 = (f1 - gx1) / HX;
+			j01 = (f0 - gl0) / HL;
+			j11 = (f1 - gl1) / HL;
+		}
+		const kept = keep;
+		const det = j00 * j11 - j01 * j10;
+		if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return null;
+		const dx = -(j11 * f0 - j01 * f1) / det;
+		const dl = -(-j10 * f0 + j00 * f1) / det;
+		// damped: halve the step until a surface exists and |F| decreases
+		const norm = Math.abs(f0) + Math.abs(f1);
+		let next: Surface | null = null;
+		for (let h = 0, step = 1; h < 12; h++, step *= 0.5) {
+			if (step < 1e-3) break;
+			const c = criticalSurfaceAt(d, Math.exp(x + step * dx), lam + step * dl, branch);
+			if (!c) continue;
+			const [g0, g1] = F(c);
+			if (Math.abs(g0) + Math.abs(g1) < norm) {
+				next = c;
+				x += step * dx;
+				lam += step * dl;
+				f0 = g0;
+				f1 = g1;
+				keep = step === 1 && Math.abs(g0) + Math.abs(g1) < 1e-3 * norm;
+				break;
+			}
+		}
+		if (next) {
+			s = next;
+			continue;
+		}
+		// no descent: at the integrals' rounding (|F| ~ 1e−14 near a = 1) that is convergence; with a kept
+		// Jacobian, retry with a fresh one; else a dead end
+		if (done()) return inside(s);
+		if (!kept) return null;
+		keep = false;
+	}
+	return done() ? inside(s) : null;
+}
+
+/** The residual (relative width, time in zh) a Newton solve accepts once its steps stop descending. */
+const NEWTON_TOL = 1e-13;
+
+/**
+ * Whether the surface (z*, ζ) is better labelled as a critical one, and on which branch: every climbing surface
+ * (a > 1: its turning point approaches z_m as the width grows, and the (z*, ζ) integrals need ever narrower panels
+ * there), and a passing one once P(u_m) < 10⁻³ |g(u_m)| (its peak at z_m is already narrow). Integral-free.
+ */
+export function criticalBranch(d: number, zstar: number, zeta: number): Branch | null {
+	const lnmu = d * Math.log(zstar);
+	const a = 0.5 * Math.exp(lnmu + d * Math.log(zeta));
+	if (a > 1) return 'climb';
+	const mu = Math.exp(lnmu);
+	const um = minimumOfP(d, mu);
+	if (!(um < zeta)) return null;
+	const n = 2 * (d - 1);
+	const lnum = Math.log(um);
+	const gm = Math.expm1(-n * lnum) * -Math.expm1(lnmu + d * lnum);
+	if (!(gm < 0)) return null;
+	const E2 = hOf(d, mu, zeta);
+	return E2 + gm < 1e-3 * -gm ? 'pass' : null;
+}
+
+/**
+ * The outer part of a critical surface's profile (profile.ts draws the vacuum part inside the shell), in units of
+ * z*, from `start` (the crossing: z = ζ, v = 0) to the boundary: for a climbing surface the climb to u_t and back,
+ * then the descent; for a passing one the descent across z_m. Traced in the τ of criticalSurface (the peaks
+ * flat), the stretch on z_m (|τ| < τ_s) with its limit rates, so a strip of any width is drawn with its own
+ * width and time (x → l/2, v → t at the boundary). Null when the surface is not there.
+ */
+export function criticalTail(
+	d: number,
+	zstar: number,
+	crit: { branch: Branch; lam: number },
+	start: ProfilePoint,
+	count: number
+): ProfilePoint[] | null {
+	const C = criticalAt(d, zstar, crit.lam, crit.branch);
+	if (!C) return null;
+	const { n, E, um, zeta, lam } = C;
+	const eps = Math.exp(lam);
+	const R1 = (u: number) => Math.expm1(-n * Math.log(u));
+	let K = 0;
+	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
+	K /= 2 * um * um;
+	const sqK = Math.sqrt(K);
+	const R1m = R1(um);
+	const tauS = Math.max(0, -TAU_MODEL - lam);
+	const k = Math.max(16, Math.round(count / 3));
+	const out: ProfilePoint[] = [];
+	let at = start;
+	const seg = (p1: number, rates: (p: number) => [number, number], zOf: (p: number) => number, m = k) => {
+		if (!(p1 > 0)) return;
+		const pts = traceProfile(0, p1, m, rates, zOf, at, true);
+		out.push(...pts);
+		at = pts[pts.length - 1];
+	};
+	// on z_m: P = K ε² sinh²τ (climb) or K ε² cosh²τ (pass) times (1 + O(e^{−184})), so dx/dτ = 1/√K and dv/dτ its
+	// limit with √P → 0 against |E|
+	const onZm = (): [number, number] => [1 / sqK, R1m / (sqK * -E)];
+	const descent = (u: number, r: number, jac: number): [number, number] => {
+		const sp = Math.sqrt(C.Pm + gFromMin(C, r));
+		return [jac / sp, (jac * R1(u)) / (sp * (sp - E))];
+	};
+	if (C.branch === 'climb') {
+		const ut = C.ut;
+		const A = um - zeta;
+		const T = Math.log(A + Math.sqrt((A - eps) * (A + eps))) - lam;
+		const uOf = (tau: number) => ut - eCosh1Of(lam, tau);
+		const rates = (tau: number, back: boolean): [number, number] => {
+			const gapT = eCosh1Of(lam, tau);
+			const u = ut - gapT;
+			const sp = Math.sqrt(diffFrom(C, Math.log1p(-gapT / ut)));
+			const jac = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+			return [jac / sp, (jac * R1(u)) / (sp * (back ? sp - E : -E - sp))];
+		};
+		// in: τ from T down to τ_s, then along z_m to the turning point; back: the mirror
+		seg(
+			T - tauS,
+			(p) => rates(T - p, false),
+			(p) => uOf(T - p)
+		);
+		seg(tauS, onZm, () => um, 4);
+		seg(tauS, onZm, () => um, 4);
+		seg(
+			T - tauS,
+			(p) => rates(tauS + p, true),
+			(p) => uOf(tauS + p)
+		);
+		// then from the shell to the boundary (no peak there), in u
+		seg(
+			zeta,
+			(p) => {
+				const u = zeta - p;
+				return descent(u, Math.log(u / um), 1);
+			},
+			(p) => zeta - p,
+			Math.max(10, Math.round(count / 2))
+		);
+	} else {
+		const t1 = Math.log(zeta - um + Math.hypot(zeta - um, eps)) - lam;
+		const t0 = lam - Math.log(um + Math.hypot(um, eps));
+		const uOf = (tau: number) => um + 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+		const rates = (tau: number): [number, number] => {
+			const du = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
+			return descent(um + du, Math.log1p(du / um), 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau)));
+		};
+		// τ from t1 (the shell) down to t0 (the boundary), flat across z_m
+		seg(
+			t1 - tauS,
+			(p) => rates(t1 - p),
+			(p) => uOf(t1 - p)
+		);
+		seg(2 * tauS, onZm, () => um, 4);
+		seg(
+			-tauS - t0,
+			(p) => rates(-tauS - p),
+			(p) => Math.max(0, uOf(-tauS - p)),
+			Math.max(10, Math.round(count / 2))
+		);
+	}
+	return out;
+}
+
+/** ε(cosh τ − 1) from e^{(λ±τ)/2} (see criticalSurface). */
+function eCosh1Of(lam: number, tau: number): number {
+	const q = Math.exp(0.5 * (lam + tau)) - Math.exp(0.5 * (lam - tau));
+	return 0.5 * q * q;
+}
