@@ -146,13 +146,6 @@ function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
 /** The grid point at ζ predicted from its solved neighbours `near` (those with a family surface, or ζ = 0). */
 function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint | null {
 	const use = near.filter((p) => p.surface || p.zeta <= 0);
-	// a neighbour on the critical surface (climb.ts) leads the solve in its own λ: a tip secant in ln z* cannot
-	// get close enough to the family's edge there
-	const critical = use.filter((p) => p.surface?.critical).sort((a, b) => Math.abs(a.zeta - zeta) - Math.abs(b.zeta - zeta))[0]?.surface;
-	if (critical) {
-		const s = surfaceForWidth(curve.d, curve.l, zeta, critical);
-		return s && { zeta, t: s.t, dA: s.dA, surface: s };
-	}
 	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
 	const x = lagrange(
 		use,
