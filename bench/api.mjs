@@ -80,7 +80,10 @@ try {
 	const post = (body) => ({ url: `${server.baseUrl}/api/eval`, method: 'POST', headers: auth, body: JSON.stringify(body) });
 	const ladder = [
 		await one('GET /api/health (HTTP, routing, security headers)', { url: `${server.baseUrl}/api/health` }),
-		await one('darea l=0.5 stateless (+ POST body, session check (one prepared join), zod, parse, engine, JSON): fast path', post({ input: 'darea l=0.5' })),
+		await one(
+			'darea l=0.5 stateless (+ POST body, session check (one prepared join), zod, parse, engine, JSON): fast path',
+			post({ input: 'darea l=0.5' })
+		),
 		await one(
 			'darea l=0.5 \\| table stateless, queued (+ queue, IPC to a process, structured clone)',
 			post({ input: 'darea l=0.5 | table' })

@@ -197,7 +197,9 @@ function seriesDisplay(r: Extract<Result, { kind: 'series' }>): string[] {
 	const valueRow = (k: number) => {
 		const term = r.terms.find((t) => t.k === k);
 		return term
-			? [`a_{${k}} &\\approx ${latexNumber(term.coeff)} \\quad \\text{(exact form not typeset here, too long for one row; it is in the pad's JSON export)}`]
+			? [
+					`a_{${k}} &\\approx ${latexNumber(term.coeff)} \\quad \\text{(exact form not typeset here, too long for one row; it is in the pad's JSON export)}`
+				]
 			: [];
 	};
 	const rows = r.list
