@@ -254,14 +254,16 @@ function newtonRoot(P: Prepared, x0: number, lnl: number, bounded: boolean): num
 		x0,
 		{ xtol: NEWTON_XTOL, maxIter: NEWTON_MAX_ITER, ceiling: bounded ? HORIZON_X_MAX : Infinity, limit: X_LIMIT }
 	);
+	// the width as typed (exp of its logarithm is off in the last digits: 1e6 would read 999999.9999999995)
+	const typed = Number(Math.exp(lnl).toPrecision(12));
 	if (r.reason === 'ceiling') {
 		throw new HoloError(
-			`l=${Math.exp(lnl)} puts the turning point within e^−700 of the horizon`,
+			`l=${typed} puts the turning point within e^−700 of the horizon`,
 			'l',
 			'that is beyond double precision; there ΔA = l/zh^{d−1} + const to all printed digits'
 		);
 	}
-	if (r.reason) throw unreachable(Math.exp(lnl));
+	if (r.reason) throw unreachable(typed);
 	return r.x;
 }
 
