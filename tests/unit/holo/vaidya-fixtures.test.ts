@@ -5,6 +5,19 @@ import type { ScalarResult } from '../../../src/lib/lang/result';
 import fx from '../../fixtures/holo/vaidya.json';
 import { expectRel } from './check';
 
+type Row = (typeof fx.rows)[number];
+
+/** Every family surface of the answer against the runner's, matched in order of ΔA. */
+function expectSurfacesOfRow(a: ReturnType<typeof hrtDeltaArea>, r: Row): void {
+	const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
+	const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));
+	expect(shells.length).toBe(ref.length);
+	shells.forEach((s, i) => {
+		expectRel(`surface ${i} ΔA`, Number(ref[i].dA), s.dA, 1e-8, 'mpmath runner');
+		expectRel(`surface ${i} z*`, Number(ref[i].zstar), s.zstar, 1e-8, 'mpmath runner');
+	});
+}
+
 /**
  * The quench engine against its independent reference: tests/fixtures/holo/vaidya_runner.py (mpmath at 24
  * digits, tanh-sinh in z, every extremal surface found from scratch). Through the public API (the engine's
@@ -42,13 +55,7 @@ describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py
 			expectRel(`pad line ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), v.value, 1e-8, 'mpmath runner');
 			expect(v.fields?.surfaces).toBe(r.count);
 			expect(a.surfaces.length).toBe(r.count);
-			const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
-			const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));
-			expect(shells.length).toBe(ref.length);
-			shells.forEach((s, i) => {
-				expectRel(`surface ${i} ΔA`, Number(ref[i].dA), s.dA, 1e-8, 'mpmath runner');
-				expectRel(`surface ${i} z*`, Number(ref[i].zstar), s.zstar, 1e-8, 'mpmath runner');
-			});
+			expectSurfacesOfRow(a, r);
 			if (Number(r.t) >= Number(r.tsat)) {
 				const st = a.surfaces.find((s) => s.kind === 'static');
 				expect(st).toBeDefined();
@@ -70,13 +77,7 @@ describe('quench cold points against the mpmath runner (nothing cached before ea
 			const a = hrtDeltaArea(r.d, 1, r.l, Number(r.t));
 			expectRel(`ΔA d=${r.d} l=${r.l} t=${r.t}`, Number(r.dA), a.dA, 1e-8, 'mpmath runner');
 			expect(a.surfaces.length).toBe(r.count);
-			const shells = a.surfaces.filter((s) => s.kind === 'shell').sort((x, y) => x.dA - y.dA);
-			const ref = [...r.surfaces].sort((x, y) => Number(x.dA) - Number(y.dA));
-			expect(shells.length).toBe(ref.length);
-			shells.forEach((s, i) => {
-				expectRel(`surface ${i} ΔA`, Number(ref[i].dA), s.dA, 1e-8, 'mpmath runner');
-				expectRel(`surface ${i} z*`, Number(ref[i].zstar), s.zstar, 1e-8, 'mpmath runner');
-			});
+			expectSurfacesOfRow(a, r);
 		});
 	}
 });

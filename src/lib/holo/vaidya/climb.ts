@@ -1,7 +1,6 @@
 import { traceProfile, type ProfilePoint } from '../profile';
-import { deltaFromParts, vacuumWidthFactor } from '../strip';
 import { findRootBrent } from '../numeric/brent';
-import { minimumOfP, type Surface } from './family';
+import { minimumOfP, surfaceFromParts, type Surface } from './family';
 import { integrateAdaptive } from './quad';
 
 /**
@@ -170,7 +169,6 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 	const { d, n, E, E2, zeta, um } = C;
 	const lam = C.lam;
 	const eps = Math.exp(lam);
-	const W0 = vacuumWidthFactor(d);
 	// outside the shell on [0, ζ]: P^{−½} − (R−1)^{−½}, R(…) and dv/dz = (R−1)/(√P(√P − E)) (no 1/f)
 	// r = ln(u/u_m) is given apart: across z_m of a passing surface u − u_m is far below the rounding of u
 	const outer = (u: number, r: number, jac: number, o: Float64Array): boolean => {
@@ -289,24 +287,19 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 		da += (2 * tauS * Rm) / sqK;
 		tt += (2 * tauS * E) / (fm * sqK);
 	}
-	const wrel = (2 * dw) / W0;
-	const l = zstar * W0 * (1 + wrel);
-	if (!(l > 0) || !Number.isFinite(l)) return null;
-	return {
+	return surfaceFromParts(
 		d,
 		zstar,
 		zeta,
-		l,
-		t: zstar * tt,
-		dA: deltaFromParts(d, l, wrel, da),
-		E,
-		a: C.a,
-		zturn,
-		behindHorizon: fmin < 0,
-		wrel,
-		dS: da,
-		critical: { branch: C.branch, lam: C.lam }
-	};
+		{ dw, da, tt },
+		{
+			E,
+			a: C.a,
+			zturn,
+			behindHorizon: fmin < 0,
+			critical: { branch: C.branch, lam: C.lam }
+		}
+	);
 }
 
 /**

@@ -150,7 +150,6 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 	const { n, E, E2 } = S;
 	const um = minimumOfP(d, S.mu);
 	if (!(pAt(S, Math.min(um, zeta)) > 0)) return null;
-	const W0 = vacuumWidthFactor(d);
 	const om = 1 - zeta;
 	// the integrand of the differences at u (1 − u given apart, exact near the tip); jac = du/d(variable)
 	// Only products and two square roots (the quench's hot loop): the powers of u by multiplication, and
@@ -247,21 +246,24 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 		da += climb[1];
 		tt += climb[2];
 	}
-	const wrel = (2 * dw) / W0;
+	return surfaceFromParts(d, zstar, zeta, { dw, da, tt }, { E, a: S.a, zturn, behindHorizon: fmin < 0 });
+}
+
+/**
+ * A Surface from the integrals relative to the vacuum surface of the same tip (dw: width, da: area, tt: time, in
+ * units of the tip) — the one assembly for the (z*, ζ) family here and the critical surfaces of climb.ts. Null
+ * when the width is not a positive finite number (the integrals failed).
+ */
+export function surfaceFromParts(
+	d: number,
+	zstar: number,
+	zeta: number,
+	parts: { dw: number; da: number; tt: number },
+	rest: Pick<Surface, 'E' | 'a' | 'zturn' | 'behindHorizon' | 'critical'>
+): Surface | null {
+	const W0 = vacuumWidthFactor(d);
+	const wrel = (2 * parts.dw) / W0;
 	const l = zstar * W0 * (1 + wrel);
 	if (!(l > 0) || !Number.isFinite(l)) return null;
-	return {
-		d,
-		zstar,
-		zeta,
-		l,
-		t: zstar * tt,
-		dA: deltaFromParts(d, l, wrel, da),
-		E,
-		a: S.a,
-		zturn,
-		behindHorizon: fmin < 0,
-		wrel,
-		dS: da
-	};
+	return { d, zstar, zeta, l, t: zstar * parts.tt, dA: deltaFromParts(d, l, wrel, parts.da), ...rest, wrel, dS: parts.da };
 }
