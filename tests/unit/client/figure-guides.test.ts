@@ -5,7 +5,7 @@ import { bandLegend, layoutFigure, tolText, type Prim } from '../../../src/lib/c
 import { sceneSvg } from '../../../src/lib/client/figure/svg';
 import { scenePdf } from '../../../src/lib/client/figure/pdf';
 import { figurePgf } from '../../../src/lib/client/figure/pgf';
-import { BACKGROUNDS, GUIDE_STYLE, contrast } from '../../../src/lib/client/figure/palette';
+import { BACKGROUNDS, GUIDE_STYLE, contrast, guideStyle } from '../../../src/lib/client/figure/palette';
 import { labelText } from '../../../src/lib/client/figure/texlabel';
 
 /** A hand-made growth-like table: ΔA(t) rising to saturation, with two reference curves as the quench helper fills. */
@@ -41,9 +41,9 @@ describe('plot guides', () => {
 		const scene = layoutFigure(f);
 		const paths = guidePaths(scene.prims);
 		expect(paths).toHaveLength(2);
-		for (const p of paths) {
+		for (const [i, p] of paths.entries()) {
 			expect(p.stroke).toBe(GUIDE_STYLE.stroke);
-			expect(p.dash).toBe(GUIDE_STYLE.dash);
+			expect(p.dash).toBe(guideStyle(i).dash);
 			expect(p.width).toBeLessThanOrEqual(1);
 			expect(p.clip).toBe(0);
 		}
@@ -63,6 +63,9 @@ describe('plot guides', () => {
 		const scene = layoutFigure(figureOfTable(growth));
 		const lines = scene.prims.filter((p) => p.t === 'line' && p.cls?.includes('legend-guide'));
 		expect(lines).toHaveLength(2);
+		// each guide its own dash, so the legend tells the thermal value from the early law in grey alone
+		expect(new Set(lines.map((l) => (l.t === 'line' ? l.dash : '')))).toEqual(new Set([guideStyle(0).dash, guideStyle(1).dash]));
+		expect(guideStyle(0).dash).not.toBe(guideStyle(1).dash);
 		const texts = scene.prims
 			.filter((p) => p.t === 'text' && p.cls === 'legend-text')
 			.map((p) => (p.t === 'text' ? p.runs.map((r) => r.text).join('') : ''));
@@ -75,8 +78,8 @@ describe('plot guides', () => {
 		const svg = sceneSvg(scene, { file: true, id: 'g', label: 'growth' });
 		const guides = svg.match(/<path class="plot-guide"[^>]*>/g) ?? [];
 		expect(guides).toHaveLength(2);
-		for (const g of guides) {
-			expect(g).toContain(`stroke-dasharray="${GUIDE_STYLE.dash}"`);
+		for (const [i, g] of guides.entries()) {
+			expect(g).toContain(`stroke-dasharray="${guideStyle(i).dash}"`);
 			expect(g).toContain('clip-path="url(#g-clip0)"');
 		}
 		// PDF: the guide colour 0x8C/255 ≈ 0.549 is set as a stroke colour

@@ -5,7 +5,7 @@
  */
 import { formatNumber } from '$lib/client/format';
 import { linearScale, logDomain, logScale, niceDomain, type Scale } from '$lib/client/scale';
-import { DATASET_COLOUR, GUIDE_STYLE, INK } from './palette';
+import { DATASET_COLOUR, INK, guideStyle } from './palette';
 import type { FigureSpec } from './spec';
 import { labelRuns, type LabelRun } from './texlabel';
 
@@ -194,13 +194,11 @@ export function layoutFigure(f: FigureSpec): Scene {
 	});
 
 	// guides under everything else: reference curves, clipped to the main panel; they never set the axes' range
-	for (const g of f.guides ?? [])
+	for (const [i, g] of (f.guides ?? []).entries())
 		prims.push({
 			t: 'path',
 			segs: segments(g.points, xs, ys),
-			stroke: GUIDE_STYLE.stroke,
-			width: GUIDE_STYLE.width,
-			dash: GUIDE_STYLE.dash,
+			...guideStyle(i),
 			clip: 0,
 			cls: 'plot-guide'
 		});
@@ -316,7 +314,7 @@ function legend(prims: Prim[], f: FigureSpec) {
 			f.markers.legend + (f.markers.errors ? '\\;\\pm\\sigma' : '')
 		);
 	}
-	for (const g of f.guides ?? []) entry(line(GUIDE_STYLE, 'legend-line legend-guide'), g.legend);
+	for (const [i, g] of (f.guides ?? []).entries()) entry(line(guideStyle(i), 'legend-line legend-guide'), g.legend);
 	if (f.bands.length) {
 		prims.push({
 			t: 'text',

@@ -27,6 +27,12 @@ export const DATASET_COLOUR = '#009E73';
  * 6:1 against the dark background (WCAG 2.1 relative luminance, computed), so they show and never compete.
  */
 export const GUIDE_STYLE: CurveStyle = { stroke: '#8C8C8C', dash: '5 3', width: 1 };
+/** one dash pattern per guide of a figure (thermal value, early law, linear growth…), so their legend lines differ */
+export const GUIDE_DASHES = ['5 3', '1 3', '9 3 2 3'];
+
+export function guideStyle(index: number): CurveStyle {
+	return { ...GUIDE_STYLE, dash: GUIDE_DASHES[index % GUIDE_DASHES.length]! };
+}
 
 export function curveStyle(column: string, index: number, overlay: boolean): CurveStyle {
 	if (overlay) {

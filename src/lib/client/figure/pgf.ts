@@ -4,7 +4,7 @@
  * \usepackage{pgfplots}. Same curves, colours, dash patterns, bands, markers and residual panel as the screen.
  */
 import { exactNumber } from '$lib/client/format';
-import { GUIDE_STYLE, INK, INK_FILE, ORDER_COLOURS } from './palette';
+import { GUIDE_STYLE, INK, INK_FILE, ORDER_COLOURS, guideStyle } from './palette';
 import { layoutFigure, tolText } from './layout';
 import type { FigureSpec } from './spec';
 import { texForPgf } from './texlabel';
@@ -91,11 +91,11 @@ export function figurePgf(f: FigureSpec, opts: { standalone?: boolean } = {}): s
 		);
 		legend.push(texForPgf(c.legend));
 	}
-	for (const g of guides) {
+	for (const [i, g] of guides.entries()) {
 		const lines = coords(g.points, f.logX, f.logY);
 		if (!lines.length) continue;
 		body.push(
-			`\\addplot[${dash(GUIDE_STYLE.dash)}, line width=${(GUIDE_STYLE.width * 0.5).toFixed(2)}pt, color=${use(GUIDE_STYLE.stroke)}, no markers] coordinates {`,
+			`\\addplot[${dash(guideStyle(i).dash)}, line width=${(GUIDE_STYLE.width * 0.5).toFixed(2)}pt, color=${use(GUIDE_STYLE.stroke)}, no markers] coordinates {`,
 			...lines,
 			'};'
 		);
