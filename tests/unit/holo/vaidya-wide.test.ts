@@ -98,7 +98,7 @@ describe('the width grows linearly in λ (no bound from the doubles)', () => {
 });
 
 describe('linear growth of wide strips (Liu & Suh 2014)', () => {
-	for (const d of [3, 4]) {
+	for (const d of [3, 4, 5, 6]) {
 		it(`d=${d}, l = 20 zh: dΔA/dt = 2 v_E/zh^{d−1} to 1e−3 in the linear regime`, () => {
 			const l = 20;
 			const vE = tsunamiVelocity(d);

@@ -198,8 +198,9 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 
 /**
  * At most two interior extrema of t (the fold near saturation and its partner minimum): the shape the laziness
- * of prepareFor relies on. More means the rounding-noise regime of wide strips (PHYSICS.md's pitfalls; d ≥ 5 at
- * l ≳ 3 zh here): there the whole curve is built, exactly as for a growth analysis, and no time skips a search.
+ * of prepareFor relies on. More means rounding noise (PHYSICS.md's pitfalls; wide strips in d ≥ 5 showed it before
+ * the critical surfaces of climb.ts): there the whole curve is built, exactly as for a growth analysis, and no time
+ * skips a search.
  */
 function simple(pts: CurvePoint[]): boolean {
 	let n = 0;
