@@ -7,19 +7,8 @@
  * δm = m, δq = q(d−1)/d in the metric's labels, and the charged δq_c at fixed zh is δm = 2q_c/zh^d, δq = 1/zh^{d−1}.
  */
 import { describe, expect, it } from 'vitest';
-import { HoloError } from '../../../../src/lib/holo/errors';
 import { firstLaw, makeBulk, mu, tent } from '../../../../src/lib/holo/index';
-import { expectRel } from '../check';
-
-function holoError(fn: () => unknown): HoloError {
-	try {
-		fn();
-	} catch (e) {
-		if (e instanceof HoloError) return e;
-		throw e;
-	}
-	throw new Error('expected a HoloError');
-}
+import { expectHoloError, expectRel } from '../check';
 
 function chargedAsMetric(d: number, zh: number, qc: number) {
 	const m = (1 + qc * qc) / Math.pow(zh, d);
@@ -86,16 +75,16 @@ describe('metric first law along named parameters', () => {
 
 	it('errors name along and the parameter at fault', () => {
 		const { bulk } = chargedAsMetric(4, 1, 0.5);
-		const e1 = holoError(() => tent(bulk, 0.5, 2, ['m', 'r']));
+		const e1 = expectHoloError(() => tent(bulk, 0.5, 2, ['m', 'r']));
 		expect(e1.key).toBe('along');
 		expect(e1.message).toContain("'r'");
 		expect(e1.hint).toContain('m, q');
-		const e2 = holoError(() => tent(bulk, 0.5, 2, ['q', 'm']));
+		const e2 = expectHoloError(() => tent(bulk, 0.5, 2, ['q', 'm']));
 		expect(e2.key).toBe('along');
 		expect(e2.message).toContain('does not move the energy');
-		const e3 = holoError(() => tent(makeBulk('brane', { d: 4, zh: 1 }), 0.5, 2, ['zh']));
+		const e3 = expectHoloError(() => tent(makeBulk('brane', { d: 4, zh: 1 }), 0.5, 2, ['zh']));
 		expect(e3.key).toBe('along');
-		const e4 = holoError(() => tent(makeBulk('metric', { d: 4, f: '1 - m*z^4*exp(-z)', m: 1 }), 0.5, 'exact', ['m']));
+		const e4 = expectHoloError(() => tent(makeBulk('metric', { d: 4, f: '1 - m*z^4*exp(-z)', m: 1 }), 0.5, 'exact', ['m']));
 		expect(e4.key).toBe('o');
 	});
 });

@@ -6,24 +6,13 @@
  */
 import katex from 'katex';
 import { describe, expect, it } from 'vitest';
-import { HoloError } from '../../../../src/lib/holo/errors';
 import { deltaArea, makeBulk } from '../../../../src/lib/holo/index';
 import { metricModelOf } from '../../../../src/lib/holo/bulks/metric';
 import { evaluateCoeff, metricCoeffsNumeric, metricCoeffsSymbolic } from '../../../../src/lib/holo/metric/coeffs';
 import { fgStress } from '../../../../src/lib/holo/metric/fg';
 import { readMetric } from '../../../../src/lib/holo/metric/model';
 import { seriesPowers, seriesValues } from '../../../../src/lib/holo/series/index';
-import { expectAbs, expectRel } from '../check';
-
-function holoError(fn: () => unknown): HoloError {
-	try {
-		fn();
-	} catch (e) {
-		if (e instanceof HoloError) return e;
-		throw e;
-	}
-	throw new Error('expected a HoloError');
-}
+import { expectAbs, expectHoloError, expectRel } from '../check';
 
 describe('metric written as a named bulk reproduces it', () => {
 	it('brane: exact ΔA to 1e−10 at every width the brane reaches, near the horizon included', () => {
@@ -118,7 +107,7 @@ describe('symbolic parameters', () => {
 	it('a symbolic bulk answers structure, and numbers only with values', () => {
 		const bulk = makeBulk('metric', { d: 4, f: '1 - m*z^4' });
 		expect(bulk.params.params).toBe('m');
-		expect(holoError(() => bulk.slice.f(0.1)).message).toContain('m is symbolic');
+		expect(expectHoloError(() => bulk.slice.f(0.1)).message).toContain('m is symbolic');
 		expect(metricModelOf(bulk)!.model.symbols).toEqual(['m']);
 	});
 });
@@ -126,8 +115,8 @@ describe('symbolic parameters', () => {
 describe('stress tensor, horizon and errors', () => {
 	it('a z² term is a deformation: no stress tensor, and the series refuses the log divergence (d = 4)', () => {
 		const bulk = makeBulk('metric', { d: 4, f: '1 - z^2 - z^4' });
-		expect(holoError(() => bulk.stress!(1)).message).toMatch(/not a normalisable deformation: f has a z\^2 term/);
-		expect(holoError(() => seriesValues(bulk, 2)).message).toMatch(/log divergence/);
+		expect(expectHoloError(() => bulk.stress!(1)).message).toMatch(/not a normalisable deformation: f has a z\^2 term/);
+		expect(expectHoloError(() => seriesValues(bulk, 2)).message).toMatch(/log divergence/);
 	});
 
 	it('the wave as a static metric: T_yy = d/(16πG zp^d) (PHYSICS.md), T = 0, horizonless', () => {
@@ -143,19 +132,19 @@ describe('stress tensor, horizon and errors', () => {
 		const bad = makeBulk('metric', { d: 4, f: '1 - z^4', g: '1 - z^4/2' });
 		// the strip still ends at f's zero
 		expect(bad.slice.zmax).toBeCloseTo(1, 12);
-		const e = holoError(() => bad.thermo!(1));
+		const e = expectHoloError(() => bad.thermo!(1));
 		expect(e.key).toBe('g');
 		expect(e.message).toMatch(/g does not vanish at f's zero/);
 		const root = makeBulk('metric', { d: 4, f: 'sqrt(1 - z^4)' });
-		expect(holoError(() => root.thermo!(1)).message).toMatch(/^f's zero at zh=1\.00000000000 is not simple/);
+		expect(expectHoloError(() => root.thermo!(1)).message).toMatch(/^f's zero at zh=1\.00000000000 is not simple/);
 	});
 
 	it('names the term at fault', () => {
-		const e1 = holoError(() => makeBulk('metric', { d: 4, f: '2 - z^4' }));
+		const e1 = expectHoloError(() => makeBulk('metric', { d: 4, f: '2 - z^4' }));
 		expect([e1.key, e1.message]).toEqual(['f', 'f(0) must be 1 (got 2)']);
-		const e2 = holoError(() => makeBulk('metric', { d: 4, f: '1 - z^4', h: '1 + z^4*log(z)' }));
+		const e2 = expectHoloError(() => makeBulk('metric', { d: 4, f: '1 - z^4', h: '1 + z^4*log(z)' }));
 		expect(e2.message).toContain('log(z)');
-		const e3 = holoError(() => makeBulk('metric', { d: 4, f: '1 - sqrt(z)^8' }));
+		const e3 = expectHoloError(() => makeBulk('metric', { d: 4, f: '1 - sqrt(z)^8' }));
 		expect(e3.message).toContain('sqrt(z)');
 	});
 
