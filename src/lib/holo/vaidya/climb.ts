@@ -1,7 +1,7 @@
 import { traceProfile, type ProfilePoint } from '../profile';
 import { findRootBrent } from '../numeric/brent';
 import { minimumOfP, surfaceFromParts, type Surface } from './family';
-import { integrateAdaptive } from './quad';
+import { QUAD_TOL, integrateAdaptive } from './quad';
 
 /**
  * Near-critical surfaces of the quench family (units zh = 1; notation of family.ts: u = z/z*, n = 2(d−1),
@@ -21,17 +21,48 @@ import { integrateAdaptive } from './quad';
  */
 export type Branch = 'climb' | 'pass';
 
-/** φ(x) = eˣ − 1 − x, to full relative accuracy (Taylor series for |x| < ½). */
+/** 1/k! for the Taylor series of φ (phiSeries). */
+const INV_FACT = (() => {
+	const c = new Float64Array(21);
+	c[0] = 1;
+	for (let k = 1; k <= 20; k++) c[k] = c[k - 1] / k;
+	return c;
+})();
+
+/**
+ * φ(x) = eˣ − 1 − x for |x| < 1 by its Taylor series, x² Σ_{k=2}^{20} x^{k−2}/k! in Horner form: the next term is
+ * below 1e−18 of the sum there (φ(x) ≥ x²/2·0.73), and the alternating terms of negative x stay well conditioned.
+ * A fixed degree rather than a stopping test: the critical integrands call this three times per node.
+ */
+function phiSeries(x: number): number {
+	let s = INV_FACT[20];
+	for (let k = 19; k >= 2; k--) s = s * x + INV_FACT[k];
+	return s * x * x;
+}
+
+/** φ(x) = eˣ − 1 − x, to full relative accuracy (the series for |x| < 1). */
 export function phiExp(x: number): number {
-	if (Math.abs(x) >= 0.5) return Math.expm1(x) - x;
-	let term = (x * x) / 2;
-	let sum = term;
-	for (let k = 3; k < 30; k++) {
-		term *= x / k;
-		sum += term;
-		if (Math.abs(term) < 1e-17 * Math.abs(sum)) break;
-	}
-	return sum;
+	return Math.abs(x) < 1 ? phiSeries(x) : Math.expm1(x) - x;
+}
+
+/**
+ * φ(x) with eˣ already known as `ex` (a power of a ratio of u's, formed by multiplication, so the integrands need
+ * no exp per term): the series for |x| < 1, where ex − 1 − x would cancel; beyond, ex − 1 − x loses at most
+ * α·e/(e − 2) ≈ 4α ulps (α ≤ 10 the power's exponent, e^{±1} against φ(±1)), below the integrals' 1e−14.
+ */
+function phiPow(x: number, ex: number): number {
+	return Math.abs(x) < 1 ? phiSeries(x) : ex - 1 - x;
+}
+
+/** w^{−n}, w^{d−n}, w^d (n = 2d − 2, the exponents α of Critical) by multiplication, into `out`. */
+function powersOf(w: number, d: number, out: Float64Array): void {
+	let wd1 = 1;
+	for (let k = 1; k < d; k++) wd1 *= w;
+	const wmn = 1 / (wd1 * wd1);
+	const wd = wd1 * w;
+	out[0] = wmn;
+	out[1] = wd * wmn;
+	out[2] = wd;
 }
 
 /** K = g″(u_m)/2 in units of the tip: P ≈ P(u_m) + K (u − u_m)² near z_m. */
@@ -62,29 +93,37 @@ export interface Critical {
 	/** turning point (climb), else NaN; ln(u_t/u_m) */
 	ut: number;
 	rt: number;
+	/** expm1(α_k r_t) and exp(α_k r_t) of a climbing surface (diffFrom), per surface rather than per node */
+	em1y: Float64Array;
+	ey: Float64Array;
+	/** scratch for powersOf (one surface's integrands run one at a time) */
+	pw: Float64Array;
 }
 
 const SIGN = [1, -1, 1];
 /** ln of the closeness to z_m below which a surface is taken as on it (see criticalSurface). */
 const TAU_MODEL = 184;
 
-/** G(r) = g(u) − g(u_m), r = ln(u/u_m), with the (exactly cancelling) linear terms dropped. */
-function gFromMin(C: Critical, r: number): number {
+/** G(r) = g(u) − g(u_m), r = ln(u/u_m), w = u/u_m, with the (exactly cancelling) linear terms dropped. */
+function gFromMin(C: Critical, r: number, w: number): number {
+	const pw = C.pw;
+	powersOf(w, C.d, pw);
 	let s = 0;
-	for (let k = 0; k < 3; k++) s += SIGN[k] * C.c[k] * phiExp(C.alpha[k] * r);
+	for (let k = 0; k < 3; k++) s += SIGN[k] * C.c[k] * phiPow(C.alpha[k] * r, pw[k]);
 	return s;
 }
 
 /**
- * G(u) − G(u_t) = g(u) − g(u_t) from ρ = ln(u/u_t) (exact near the turning point): with φ(x) − φ(y) =
- * expm1(y)(x − y) + e^y φ(x − y), the term linear in ρ carries u_t g′(u_t) ~ e^λ as a sum of terms of that size.
+ * G(u) − G(u_t) = g(u) − g(u_t) from ρ = ln(u/u_t), w = u/u_t (exact near the turning point): with φ(x + y) − φ(y) =
+ * expm1(y) x + e^y φ(x), the term linear in ρ carries u_t g′(u_t) ~ e^λ as a sum of terms of that size.
  */
-function diffFrom(C: Critical, rho: number): number {
+function diffFrom(C: Critical, rho: number, w: number): number {
+	const pw = C.pw;
+	powersOf(w, C.d, pw);
 	let s = 0;
 	for (let k = 0; k < 3; k++) {
-		const y = C.alpha[k] * C.rt;
 		const x = C.alpha[k] * rho;
-		s += SIGN[k] * C.c[k] * (Math.expm1(y) * x + Math.exp(y) * phiExp(x));
+		s += SIGN[k] * C.c[k] * (C.em1y[k] * x + C.ey[k] * phiPow(x, pw[k]));
 	}
 	return s;
 }
@@ -127,10 +166,13 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 		zeta: NaN,
 		a: NaN,
 		ut: NaN,
-		rt: NaN
+		rt: NaN,
+		em1y: new Float64Array(3),
+		ey: new Float64Array(3),
+		pw: new Float64Array(3)
 	};
 	const r = Math.log1p(-eps / um);
-	const G = gFromMin(C, r);
+	const G = gFromMin(C, r, 1 - eps / um);
 	C.Pm = branch === 'climb' ? -G : G;
 	C.E2 = C.Pm - gm;
 	if (!(C.E2 > 0)) return null;
@@ -141,6 +183,10 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 	if (branch === 'climb') {
 		C.ut = um - eps;
 		C.rt = r;
+		for (let k = 0; k < 3; k++) {
+			C.em1y[k] = Math.expm1(alpha[k] * r);
+			C.ey[k] = Math.exp(alpha[k] * r);
+		}
 		lo = z1;
 		hi = C.ut;
 	} else {
@@ -165,38 +211,46 @@ export function criticalSurfaceAt(d: number, zstar: number, lam: number, branch:
 	return C ? criticalSurface(C, zstar) : null;
 }
 
-export function criticalSurface(C: Critical, zstar: number): Surface | null {
+/** `quadTol`: the integrals' relative tolerance (family.ts surfaceAt). */
+export function criticalSurface(C: Critical, zstar: number, quadTol = QUAD_TOL): Surface | null {
 	const { d, n, E, E2, zeta, um } = C;
 	const lam = C.lam;
 	const eps = Math.exp(lam);
 	// outside the shell on [0, ζ]: P^{−½} − (R−1)^{−½}, R(…) and dv/dz = (R−1)/(√P(√P − E)) (no 1/f)
-	// r = ln(u/u_m) is given apart: across z_m of a passing surface u − u_m is far below the rounding of u
-	const outer = (u: number, r: number, jac: number, o: Float64Array): boolean => {
-		const lnu = Math.log(u);
-		const R1 = Math.expm1(-n * lnu);
-		const P = C.Pm + gFromMin(C, r);
+	// r = ln(u/u_m) and w = u/u_m are given apart: across z_m of a passing surface u − u_m is far below the
+	// rounding of u; 1 − u too, so R − 1 = (1 − u) Σ_{j<n} u^j / u^n is exact near the shell as in family.ts.
+	// Only products, one log (r) and square roots per node: this is the wide strips' hot loop.
+	const mu = C.mu;
+	const outer = (u: number, omu: number, r: number, w: number, jac: number, o: Float64Array): boolean => {
+		let sum = 0;
+		let un = 1;
+		let ud = 1;
+		for (let j = 0; j < n; j++) {
+			sum += un;
+			un *= u;
+			if (j === d - 1) ud = un;
+		}
+		const R1 = (omu * sum) / un;
+		const P = C.Pm + gFromMin(C, r, w);
 		if (!(P > 0) || !(R1 > 0)) return false;
 		const sq = Math.sqrt(P);
+		const sr = Math.sqrt(R1);
 		let dw: number;
-		if (P < 0.5 * R1) dw = 1 / sq - 1 / Math.sqrt(R1);
+		if (P < 0.5 * R1) dw = 1 / sq - 1 / sr;
 		else {
-			// near the boundary P ≈ R − 1: the difference from (P − (R−1))/(R−1) = E²/(R−1) − μu^d
-			const X = E2 / R1 - Math.exp(C.lnmu + d * lnu);
-			dw = Math.expm1(-0.5 * Math.log1p(X)) / Math.sqrt(R1);
+			// near the boundary P ≈ R − 1: the difference from X = (P − (R−1))/(R−1) = E²/(R−1) − μu^d, as
+			// (1 + X)^{−½} − 1 = −X/(ρ(1 + ρ)), ρ = √(1 + X)
+			const X = E2 / R1 - mu * ud;
+			const rr = Math.sqrt(1 + X);
+			dw = -X / (rr * (1 + rr) * sr);
 		}
 		o[0] = jac * dw;
 		o[1] = jac * (1 + R1) * dw;
 		o[2] = (jac * R1) / (sq * (sq - E));
 		return true;
 	};
-	// ε sinh τ, ε cosh τ and ε(cosh τ − 1) from e^{λ±τ}: λ may be far below the doubles' exponent range (a wide
-	// strip's far members need λ ~ −10³…−10⁵) while the integration variable τ runs to ~ −λ
-	const eSinh = (tau: number) => 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
-	const eCosh = (tau: number) => 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau));
-	const eCosh1 = (tau: number) => {
-		const q = Math.exp(0.5 * (lam + tau)) - Math.exp(0.5 * (lam - tau));
-		return 0.5 * q * q;
-	};
+	// ε sinh τ, ε cosh τ and ε(cosh τ − 1) are formed from e^{λ±τ} (or their square roots): λ may be far below
+	// the doubles' exponent range (a wide strip's far members need λ ~ −10³…−10⁵) while τ runs to ~ −λ
 	// |τ| < τ_s, where ε e^{|τ|} < e^{−TAU_MODEL}: the surface is within 1e−80 of z_m and the integrands equal their
 	// limits there (P = K ε² cosh²τ or K ε² sinh²τ up to a relative 1e−80, K = G″(u_m)/2), so that stretch
 	// is the limit times its length — the part of the width and time that grows linearly in −λ
@@ -220,23 +274,27 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 	let fmin = -Math.expm1(C.lnmu + d * Math.log(zeta));
 	if (C.branch === 'pass') {
 		// u = u_m + ε sinh τ: the 1/√P ≈ 1/√(K (ε² + (u − u_m)²)) peak becomes flat in τ
+		const omum = 1 - um;
 		const g = (tau: number, o: Float64Array) => {
-			const du = eSinh(tau);
-			return outer(um + du, Math.log1p(du / um), eCosh(tau), o);
+			const ep = Math.exp(lam + tau);
+			const em = Math.exp(lam - tau);
+			const du = 0.5 * (ep - em);
+			const z = du / um;
+			return outer(um + du, omum - du, Math.log1p(z), 1 + z, 0.5 * (ep + em), o);
 		};
 		const t0 = lam - Math.log(um + Math.hypot(um, eps));
 		const t1 = Math.log(zeta - um + Math.hypot(zeta - um, eps)) - lam;
 		if (!(t0 < -tauS && t1 > tauS)) return null;
 		if (tauS > 0) {
-			if (!integrateAdaptive(g, t0, -tauS, 3, part)) return null;
+			if (!integrateAdaptive(g, t0, -tauS, 3, part, quadTol)) return null;
 			add();
-			if (!integrateAdaptive(g, tauS, t1, 3, part)) return null;
+			if (!integrateAdaptive(g, tauS, t1, 3, part, quadTol)) return null;
 			add();
 			dw += (2 * tauS) / sqK;
 			da += (2 * tauS * Rm) / sqK;
 			tt += (2 * tauS * (Rm - 1)) / (sqK * -E);
 		} else {
-			if (!integrateAdaptive(g, t0, t1, 3, part)) return null;
+			if (!integrateAdaptive(g, t0, t1, 3, part, quadTol)) return null;
 			add();
 		}
 	} else {
@@ -244,13 +302,15 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 		const ok = integrateAdaptive(
 			(w, o) => {
 				const s2 = Math.exp(2 * w);
-				const u = -Math.expm1(2 * w);
-				return outer(u, Math.log(u / um), 2 * s2, o);
+				// 1 − s2 is exact enough where it is ≥ ½; nearer the boundary u is formed without cancellation
+				const u = s2 <= 0.5 ? 1 - s2 : -Math.expm1(2 * w);
+				return outer(u, s2, Math.log(u / um), u / um, 2 * s2, o);
 			},
 			0.5 * Math.log1p(-zeta),
 			0,
 			3,
-			part
+			part,
+			quadTol
 		);
 		if (!ok) return null;
 		add();
@@ -264,22 +324,29 @@ export function criticalSurface(C: Critical, zstar: number): Surface | null {
 		if (!(T > tauS)) return null;
 		const ok2 = integrateAdaptive(
 			(tau, o) => {
-				const gapT = eCosh1(tau); // u_t − u
+				const hp = Math.exp(0.5 * (lam + tau));
+				const hm = Math.exp(0.5 * (lam - tau));
+				const q = hp - hm;
+				const gapT = 0.5 * q * q; // u_t − u = ε(cosh τ − 1)
+				const jac = 0.5 * q * (hp + hm); // ε sinh τ
 				const u = ut - gapT;
-				const P = diffFrom(C, Math.log1p(-gapT / ut));
+				const z = gapT / ut;
+				const P = diffFrom(C, Math.log1p(-z), 1 - z);
 				if (!(P > 0)) return false;
 				const sq = Math.sqrt(P);
-				const f = -Math.expm1(C.lnmu + d * Math.log(u));
-				const jac = eSinh(tau);
+				let ud1 = 1;
+				for (let k = 1; k < d; k++) ud1 *= u;
+				const f = 1 - mu * ud1 * u;
 				o[0] = (2 * jac) / sq;
-				o[1] = (2 * jac * Math.exp(-n * Math.log(u))) / sq;
+				o[1] = (2 * jac) / (ud1 * ud1 * sq); // u^{−n} = (u^{d−1})^{−2}
 				o[2] = (jac * 2 * E) / (f * sq);
 				return true;
 			},
 			tauS,
 			T,
 			3,
-			part
+			part,
+			quadTol
 		);
 		if (!ok2) return null;
 		add();
@@ -351,12 +418,23 @@ export function tipForCrossing(d: number, zeta: number, lam: number, branch: Bra
  * and λ is found by a safeguarded secant on l(λ)/l − 1, which is close to linear (the width diverges like −C λ), so
  * any width is reached with the accuracy of the integrals. Null when no λ gives the width on this branch.
  */
-export function criticalForWidth(d: number, l: number, zeta: number, xe: number, branch: Branch, lamGuess = -8): Surface | null {
+export function criticalForWidth(
+	d: number,
+	l: number,
+	zeta: number,
+	xe: number,
+	branch: Branch,
+	lamGuess = -8,
+	loose?: number
+): Surface | null {
+	// a loose solve (a curve's bracketing point, curve.ts) stops at |l/l₀ − 1| < loose, its integrals to the same
+	const stop = loose ?? 1e-15;
+	const quadTol = loose ?? QUAD_TOL;
 	let x = xe;
 	let dvdl = NaN; // d(l/l_target)/dλ on z_m: −4 z*/(√K l), the first secant step's slope
 	const g = (lam: number): { v: number; s: Surface | null } => {
 		const tip = tipForCrossing(d, zeta, lam, branch, x);
-		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x)) : null;
+		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x), quadTol) : null;
 		if (!tip || !s) return { v: -Infinity, s: null }; // past the narrow end of the branch
 		x = tip.x;
 		dvdl = (-4 * s.zstar) / (Math.sqrt(halfCurvature(tip.C)) * l);
@@ -379,7 +457,7 @@ export function criticalForWidth(d: number, l: number, zeta: number, xe: number,
 	let lb = la + Math.max(-20, Math.min(20, Number.isFinite(dvdl) && dvdl < 0 ? -pa.v / dvdl : pa.v > 0 ? 2 : -2));
 	if (lb === la) lb = la + (pa.v > 0 ? 1e-3 : -1e-3);
 	for (let k = 0; k < 100; k++) {
-		if (Math.abs(pa.v) < 1e-15) return pa.s;
+		if (Math.abs(pa.v) < stop) return pa.s;
 		const pb = g(lb);
 		if (!pb.s) {
 			lnarrow = Math.min(lnarrow, lb);
@@ -399,7 +477,7 @@ export function criticalForWidth(d: number, l: number, zeta: number, xe: number,
 		pa = pb;
 		lb = ln;
 	}
-	return Math.abs(best.v) < WIDTH_TOL ? best.s : null;
+	return Math.abs(best.v) < Math.max(WIDTH_TOL, loose ?? 0) ? best.s : null;
 }
 
 /** A critical solve that stops short of the asked width (rounding in λ) is kept when this close (relative). */
@@ -568,8 +646,8 @@ export function criticalTail(
 	// on z_m: P = K ε² sinh²τ (climb) or K ε² cosh²τ (pass) times (1 + O(e^{−184})), so dx/dτ = 1/√K and dv/dτ its
 	// limit with √P → 0 against |E|
 	const onZm = (): [number, number] => [1 / sqK, R1m / (sqK * -E)];
-	const descent = (u: number, r: number, jac: number): [number, number] => {
-		const sp = Math.sqrt(C.Pm + gFromMin(C, r));
+	const descent = (u: number, r: number, w: number, jac: number): [number, number] => {
+		const sp = Math.sqrt(C.Pm + gFromMin(C, r, w));
 		return [jac / sp, (jac * R1(u)) / (sp * (sp - E))];
 	};
 	if (C.branch === 'climb') {
@@ -580,7 +658,7 @@ export function criticalTail(
 		const rates = (tau: number, back: boolean): [number, number] => {
 			const gapT = eCosh1Of(lam, tau);
 			const u = ut - gapT;
-			const sp = Math.sqrt(diffFrom(C, Math.log1p(-gapT / ut)));
+			const sp = Math.sqrt(diffFrom(C, Math.log1p(-gapT / ut), 1 - gapT / ut));
 			const jac = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
 			return [jac / sp, (jac * R1(u)) / (sp * (back ? sp - E : -E - sp))];
 		};
@@ -602,7 +680,7 @@ export function criticalTail(
 			zeta,
 			(p) => {
 				const u = zeta - p;
-				return descent(u, Math.log(u / um), 1);
+				return descent(u, Math.log(u / um), u / um, 1);
 			},
 			(p) => zeta - p,
 			Math.max(10, Math.round(count / 2))
@@ -613,7 +691,7 @@ export function criticalTail(
 		const uOf = (tau: number) => um + 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
 		const rates = (tau: number): [number, number] => {
 			const du = 0.5 * (Math.exp(lam + tau) - Math.exp(lam - tau));
-			return descent(um + du, Math.log1p(du / um), 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau)));
+			return descent(um + du, Math.log1p(du / um), 1 + du / um, 0.5 * (Math.exp(lam + tau) + Math.exp(lam - tau)));
 		};
 		// τ from t1 (the shell) down to t0 (the boundary), flat across z_m
 		seg(

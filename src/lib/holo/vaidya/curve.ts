@@ -2,7 +2,8 @@ import { makeBrane } from '../bulks/brane';
 import { findRootBrent } from '../numeric/brent';
 import { minimizeBrent } from '../numeric/minimize';
 import { solveStrip, vacuumWidthFactor } from '../strip';
-import { criticalBetween } from './climb';
+import { criticalBetween, criticalForWidth } from './climb';
+import { QUAD_TOL } from './quad';
 import { surfaceAt, surfaceExists, type Surface } from './family';
 import type { Slice } from '../types';
 import { saturationTime, surfaceForWidth, type CurvePoint } from './solve';
@@ -37,6 +38,8 @@ export interface Curve {
 	failed: Set<number>;
 	/** every interval refined and every extremum located */
 	complete: boolean;
+	/** new points are solved loosely (LOOSE): a lazily built curve, until completeCurve */
+	loose: boolean;
 }
 
 interface Pending {
@@ -56,7 +59,19 @@ const MAX_POINTS = 400;
 interface GridPoint extends CurvePoint {
 	slope?: number;
 	located?: boolean;
+	/** solved to LOOSE only (its t and ΔA good to ~1e−10 relative): it may bracket, not answer */
+	loose?: boolean;
 }
+
+/**
+ * The tolerance of a lazily built curve's points (|ln(l(z*)/l)| and the integrals' relative tolerance): they only
+ * bracket the solutions at a time, which are then solved exactly, so the grid of a cold point need not be exact —
+ * about half the integrand calls per surface and a secant step less per point. A point whose time is within
+ * UPGRADE of an asked time is solved exactly before the brackets are read (its t is off by ~1e−10 relative, far
+ * inside that margin), so no bracket's sign depends on a loose value; completeCurve makes every point exact.
+ */
+const LOOSE = 1e-10;
+const UPGRADE = 1e-6;
 
 /**
  * The brane slice per (d, zh), kept: the strip solver prepares its quadrature nodes once per slice object (~0.2 ms,
@@ -94,22 +109,24 @@ function tipOf(curve: { l: number; d: number; static: { zstar: number } }, p: Cu
  */
 const GRID_TOL = 1e-13;
 
-function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): CurvePoint | null {
+function tipAt(d: number, l: number, zeta: number, x0: number, m0: number, loose?: number): CurvePoint | null {
 	const lnl = Math.log(l);
+	const tol = loose ?? GRID_TOL;
+	const quadTol = loose ?? QUAD_TOL;
 	let x = x0;
-	let s = surfaceAt(d, Math.exp(x), zeta);
+	let s = surfaceAt(d, Math.exp(x), zeta, quadTol);
 	let m = m0 > 0 && Number.isFinite(m0) ? m0 : 1;
 	if (s) {
 		let F = Math.log(s.l) - lnl;
 		for (let k = 0; k < 8; k++) {
-			if (Math.abs(F) < GRID_TOL) return made(zeta, s, m);
+			if (Math.abs(F) < tol) return made(zeta, s, m, loose);
 			const xn = x - F / m;
 			const small = Math.abs(xn - x) < 1e-14 * Math.max(1, Math.abs(x));
-			const c = surfaceAt(d, Math.exp(xn), zeta);
+			const c = surfaceAt(d, Math.exp(xn), zeta, quadTol);
 			if (!c) break;
 			const Fn = Math.log(c.l) - lnl;
 			// rounding reached (as surfaceForWidth's own stop): keep the better of the two
-			if (small) return made(zeta, Math.abs(Fn) < Math.abs(F) ? c : s, m);
+			if (small) return made(zeta, Math.abs(Fn) < Math.abs(F) ? c : s, m, loose);
 			if (!(Math.abs(Fn) < Math.abs(F))) break;
 			const mn = (Fn - F) / (xn - x);
 			if (!(mn > 0) || !Number.isFinite(mn)) break;
@@ -119,12 +136,38 @@ function tipAt(d: number, l: number, zeta: number, x0: number, m0: number): Curv
 			s = c;
 		}
 	}
-	const r = surfaceForWidth(d, l, zeta, Math.exp(x));
-	return r ? made(zeta, r, m) : null;
+	const r = surfaceForWidth(d, l, zeta, Math.exp(x), loose);
+	return r ? made(zeta, r, m, loose) : null;
 }
 
-function made(zeta: number, s: Surface, slope: number): GridPoint {
-	return { zeta, t: s.t, dA: s.dA, surface: s, slope };
+function made(zeta: number, s: Surface, slope: number, loose?: number): GridPoint {
+	return loose === undefined ? { zeta, t: s.t, dA: s.dA, surface: s, slope } : { zeta, t: s.t, dA: s.dA, surface: s, slope, loose: true };
+}
+
+/** The exact point at a loose one's ζ, from its tip (and λ when critical): one or two secant steps. */
+function exactAt(curve: Curve, p: GridPoint): GridPoint | null {
+	const s = p.surface!;
+	if (s.critical) {
+		const c = criticalForWidth(curve.d, curve.l, p.zeta, Math.log(s.zstar), s.critical.branch, s.critical.lam);
+		if (c) return { ...made(p.zeta, c, p.slope ?? 1), located: p.located };
+	}
+	const q = tipAt(curve.d, curve.l, p.zeta, Math.log(s.zstar), p.slope ?? 1);
+	return q ? { ...q, located: p.located } : null;
+}
+
+/**
+ * Makes every loose point that `which` selects exact, in place; a point with no exact surface (a loose solve at the
+ * family's edge that rounding cannot confirm) is dropped, as a grid point without a surface would have been.
+ */
+function upgrade(curve: Curve, which: (p: GridPoint) => boolean): void {
+	const pts = curve.points as GridPoint[];
+	for (let i = pts.length - 1; i >= 0; i--) {
+		const p = pts[i];
+		if (!p.loose || !which(p)) continue;
+		const q = exactAt(curve, p);
+		if (q) pts[i] = q;
+		else pts.splice(i, 1);
+	}
 }
 
 /**
@@ -146,7 +189,8 @@ function lagrange(near: CurvePoint[], ys: number[], zeta: number): number {
 /** The grid point at ζ predicted from its solved neighbours `near` (those with a family surface, or ζ = 0). */
 function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint | null {
 	const use = near.filter((p) => p.surface || p.zeta <= 0);
-	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1);
+	const loose = curve.loose ? LOOSE : undefined;
+	if (!use.length) return tipAt(curve.d, curve.l, zeta, Math.log(curve.l / vacuumWidthFactor(curve.d)), 1, loose);
 	const x = lagrange(
 		use,
 		use.map((p) => Math.log(tipOf(curve, p))),
@@ -155,7 +199,7 @@ function pointNear(curve: Curve, near: CurvePoint[], zeta: number): CurvePoint |
 	// the slope is 1 for the vacuum (ζ = 0); a neighbour solved by the fallback has none: start from 1 then
 	const ms = use.map((p) => (p.zeta <= 0 ? 1 : (p as GridPoint).slope));
 	const m = ms.every((v) => v !== undefined) ? lagrange(use, ms as number[], zeta) : 1;
-	return tipAt(curve.d, curve.l, zeta, x, m);
+	return tipAt(curve.d, curve.l, zeta, x, m, loose);
 }
 
 /**
@@ -177,7 +221,8 @@ export function buildCurve(d: number, l: number, full = true): Curve {
 		jumpA: 0,
 		tFar: Infinity,
 		failed: new Set(),
-		complete: false
+		complete: false,
+		loose: !full
 	};
 	for (let k = 1; k < GRID; k++) {
 		const p = k / GRID;
@@ -216,6 +261,13 @@ function simple(pts: CurvePoint[]): boolean {
 /** Refines every interval and locates every extremum (a growth analysis reads the whole curve). */
 export function completeCurve(curve: Curve): void {
 	if (curve.complete) return;
+	if (curve.loose) {
+		// every point exact, and the extrema located again on exact points (a loose one is good to ~1e−5 in ζ)
+		curve.points = curve.points.filter((p) => !((p as GridPoint).located && (p as GridPoint).loose));
+		upgrade(curve, () => true);
+		curve.loose = false;
+		curve.pending = extremaOf(curve.points);
+	}
 	if (refine(curve, NaN)) curve.pending = extremaOf(curve.points);
 	locate(curve, curve.pending);
 	curve.pending = [];
@@ -247,9 +299,12 @@ function prepareFor(curve: Curve, t: number): void {
 		return up <= margin;
 	};
 	const now = curve.pending.filter(hidden);
-	if (!now.length) return;
-	locate(curve, now);
-	curve.pending = curve.pending.filter((p) => !now.includes(p));
+	if (now.length) {
+		locate(curve, now);
+		curve.pending = curve.pending.filter((p) => !now.includes(p));
+	}
+	const margin = UPGRADE * Math.max(1, Math.abs(t));
+	upgrade(curve, (p) => Math.abs(p.t - t) <= margin);
 }
 
 /**

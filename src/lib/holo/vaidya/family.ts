@@ -1,5 +1,5 @@
 import { deltaFromParts, vacuumWidthFactor } from '../strip';
-import { integrateAdaptive } from './quad';
+import { QUAD_TOL, integrateAdaptive } from './quad';
 
 /**
  * One extremal surface of a strip in thin-shell AdS–Vaidya, in units zh = 1 (m = 1), labelled by its tip z* and
@@ -144,8 +144,12 @@ export function surfaceExists(d: number, zstar: number, zeta: number): boolean {
 	return S.a > 1 ? um > S.zeta && pAt(S, Math.min(um, 1)) < 0 : true;
 }
 
-/** The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). */
-export function surfaceAt(d: number, zstar: number, zeta: number): Surface | null {
+/**
+ * The surface with tip z* crossing the shell at ζ z*, or null when there is none (P ≤ 0 somewhere). `quadTol` is
+ * the integrals' relative tolerance: 1e−14 for answers, looser for the points of a family curve that only
+ * bracket answers (curve.ts LOOSE).
+ */
+export function surfaceAt(d: number, zstar: number, zeta: number, quadTol = QUAD_TOL): Surface | null {
 	const S = setup(d, zstar, zeta);
 	const { n, E, E2 } = S;
 	const um = minimumOfP(d, S.mu);
@@ -192,7 +196,8 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 		0.5 * Math.log1p(-us),
 		0,
 		3,
-		partA
+		partA,
+		quadTol
 	);
 	const okB =
 		okA &&
@@ -204,7 +209,8 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 			0,
 			1,
 			3,
-			partB
+			partB,
+			quadTol
 		);
 	if (!okB) return null;
 	const inner3 = new Float64Array(3);
@@ -239,7 +245,8 @@ export function surfaceAt(d: number, zstar: number, zeta: number): Surface | nul
 			0,
 			Math.sqrt(ut - zeta),
 			3,
-			climb
+			climb,
+			quadTol
 		);
 		if (!ok2) return null;
 		dw += climb[0];

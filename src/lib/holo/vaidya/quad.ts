@@ -9,6 +9,8 @@ import { gaussLegendre } from '../numeric/gauss';
  * surface (the linear-growth regime). `out` receives the sums; false = a NaN met or the depth was exhausted.
  */
 const N = 16;
+/** The integrals' relative tolerance for every answer (the quench's surfaces are accurate to about this). */
+export const QUAD_TOL = 1e-14;
 const MAX_DEPTH = 40;
 /** Integrand calls per integral before the remaining panels are accepted as they are (rounding, not truncation,
  * then limits the agreement; reached only on the narrowest peaks of near-critical surfaces). */
@@ -43,7 +45,7 @@ export function integrateAdaptive(
 	b: number,
 	k: number,
 	out: Float64Array,
-	tol = 1e-14,
+	tol = QUAD_TOL,
 	scale?: Float64Array
 ): boolean {
 	const scratch = takeScratch(k);

@@ -1,7 +1,7 @@
 import { vacuumWidthFactor } from '../strip';
 import { criticalBranch, criticalForWidth } from './climb';
 import { surfaceAt, surfaceExists, type Surface } from './family';
-import { integrateAdaptive } from './quad';
+import { QUAD_TOL, integrateAdaptive } from './quad';
 
 /** ln(l(z*)/l) past the edge of the family (no surface): l grows without bound towards that edge (the surface
  * then hugs a critical surface z_m and its width diverges like −ln of the distance), so "too wide" is the
@@ -21,18 +21,21 @@ const PAST_EDGE = 40;
  * edge, x_e is located to rounding by bisection on the integral-free existence test (surfaceExists) and the
  * critical solve starts there, with the older search in y = ln(x_e − x) as the fallback.
  */
-export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
-	const s = solveTip(d, l, zeta, guess);
+export function surfaceForWidth(d: number, l: number, zeta: number, guess?: number | Surface, loose?: number): Surface | null {
+	const s = solveTip(d, l, zeta, guess, loose);
 	// a width the search could not reach (rounding of the tip at the edge, no λ on the branch) is no surface of
 	// this strip: curves skip it rather than carry a point of another width
 	return s && Math.abs(s.l / l - 1) <= 1e-9 ? s : null;
 }
 
-function solveTip(d: number, l: number, zeta: number, guess?: number | Surface): Surface | null {
+/** `loose`: stop at |ln(l(x)/l)| < loose with the integrals to the same (a curve's bracketing point, curve.ts). */
+function solveTip(d: number, l: number, zeta: number, guess?: number | Surface, loose?: number): Surface | null {
+	const stop = loose ?? 1e-15;
+	const quadTol = loose ?? QUAD_TOL;
 	// a critical neighbour (climb.ts) as the guess: its branch and λ lead straight to this ζ's surface
 	const hint = typeof guess === 'object' ? guess : undefined;
 	if (hint?.critical) {
-		const s = criticalForWidth(d, l, zeta, Math.log(hint.zstar), hint.critical.branch, hint.critical.lam);
+		const s = criticalForWidth(d, l, zeta, Math.log(hint.zstar), hint.critical.branch, hint.critical.lam, loose);
 		if (s) return s;
 	}
 	const lnl = Math.log(l);
@@ -42,10 +45,10 @@ function solveTip(d: number, l: number, zeta: number, guess?: number | Surface):
 		const branch = tried ? null : criticalBranch(d, Math.exp(x), zeta);
 		if (branch) {
 			tried = true;
-			const c = criticalForWidth(d, l, zeta, x, branch);
+			const c = criticalForWidth(d, l, zeta, x, branch, undefined, loose);
 			if (c) return { v: 0, s: c };
 		}
-		const s = surfaceAt(d, Math.exp(x), zeta);
+		const s = surfaceAt(d, Math.exp(x), zeta, quadTol);
 		return s ? { v: Math.log(s.l) - lnl, s } : { v: PAST_EDGE, s: null };
 	};
 	// a valid start: from the guess, smaller tips until a surface exists (the family's edge is on the wide side)
@@ -62,17 +65,17 @@ function solveTip(d: number, l: number, zeta: number, guess?: number | Surface):
 	let hi = a.v > 0 ? xa : Infinity;
 	let xb = xa - Math.min(Math.max(a.v, -0.5), 0.5);
 	for (let k = 0; k < 200; k++) {
-		if (Math.abs(a.v) < 1e-15) return a.s;
+		if (Math.abs(a.v) < stop) return a.s;
 		const b = g(xb);
 		if (!b.s) {
 			hi = Math.min(hi, xb);
-			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, l, zeta, g, a, xa, lo, xb);
+			if (!surfaceExists(d, Math.exp(xb), zeta)) return nearEdge(d, l, zeta, g, a, xa, lo, xb, loose);
 			xb = 0.5 * (xa + xb);
 			continue;
 		}
 		if (b.v < 0) lo = Math.max(lo, xb);
 		else hi = Math.min(hi, xb);
-		if (Math.abs(b.v) < 1e-15) return b.s;
+		if (Math.abs(b.v) < stop) return b.s;
 		let xn = b.v === a.v ? NaN : xb - (b.v * (xb - xa)) / (b.v - a.v);
 		if (!(xn > lo && xn < hi)) {
 			if (Number.isFinite(lo) && Number.isFinite(hi)) xn = 0.5 * (lo + hi);
@@ -106,7 +109,8 @@ function nearEdge(
 	a: { v: number; s: Surface | null },
 	xa: number,
 	lo: number,
-	xPast: number
+	xPast: number,
+	loose?: number
 ): Surface | null {
 	let ok = xa;
 	let bad = xPast;
@@ -119,7 +123,7 @@ function nearEdge(
 	// a critical surface (climb.ts) reaches any width next to the edge with full accuracy; the secant in y below
 	// stays for what it cannot label (then bounded by the rounding of the tip)
 	const branch = 0.5 * Math.exp(d * (ok + Math.log(zeta))) > 1 ? 'climb' : 'pass';
-	const crit = criticalForWidth(d, l, zeta, ok, branch);
+	const crit = criticalForWidth(d, l, zeta, ok, branch, undefined, loose);
 	if (crit) return crit;
 	const yMin = Math.log(4e-16 * Math.max(1, Math.abs(xe)));
 	const yOf = (x: number) => Math.log(xe - x);
@@ -141,7 +145,7 @@ function nearEdge(
 			continue;
 		}
 		if (Math.abs(pb.v) < Math.abs(best.v)) best = pb;
-		if (Math.abs(pb.v) < 1e-15) return pb.s;
+		if (Math.abs(pb.v) < (loose ?? 1e-15)) return pb.s;
 		if (pb.v < 0) yNarrow = Math.min(yNarrow, yb);
 		else yWide = Math.max(yWide, yb);
 		let yn = pb.v === pa.v ? NaN : yb - (pb.v * (yb - ya)) / (pb.v - pa.v);
