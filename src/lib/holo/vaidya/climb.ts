@@ -21,23 +21,33 @@ import { QUAD_TOL, integrateAdaptive } from './quad';
  */
 export type Branch = 'climb' | 'pass';
 
-/** 1/k! for the Taylor series of φ (phiSeries). */
-const INV_FACT = (() => {
-	const c = new Float64Array(21);
-	c[0] = 1;
-	for (let k = 1; k <= 20; k++) c[k] = c[k - 1] / k;
+/** 1/k! for k = 2…20: the Taylor coefficients of φ(x)/x² (phiSeries). */
+const [P0, P1, P2, P3, P4, P5, P6, P7, P8, P9, P10, P11, P12, P13, P14, P15, P16, P17, P18] = (() => {
+	const c: number[] = [];
+	let f = 1;
+	for (let k = 1; k <= 20; k++) {
+		f /= k;
+		if (k >= 2) c.push(f);
+	}
 	return c;
 })();
 
 /**
- * φ(x) = eˣ − 1 − x for |x| < 1 by its Taylor series, x² Σ_{k=2}^{20} x^{k−2}/k! in Horner form: the next term is
- * below 1e−18 of the sum there (φ(x) ≥ x²/2·0.73), and the alternating terms of negative x stay well conditioned.
- * A fixed degree rather than a stopping test: the critical integrands call this three times per node.
+ * φ(x) = eˣ − 1 − x for |x| < 1 by its Taylor series, x² Σ_{k=2}^{20} x^{k−2}/k!: the next term is below 1e−18
+ * of the sum there (φ(x) ≥ 0.73 x²/2), and the alternating terms of negative x stay well conditioned. A fixed
+ * degree in Estrin's form (pairs, then powers x², x⁴, x⁸, x¹⁶: five dependent steps where Horner's rule has
+ * nineteen) — the critical integrands call this three times per node.
  */
 function phiSeries(x: number): number {
-	let s = INV_FACT[20];
-	for (let k = 19; k >= 2; k--) s = s * x + INV_FACT[k];
-	return s * x * x;
+	const x2 = x * x;
+	const x4 = x2 * x2;
+	const x8 = x4 * x4;
+	const q0 = P0 + P1 * x + (P2 + P3 * x) * x2;
+	const q1 = P4 + P5 * x + (P6 + P7 * x) * x2;
+	const q2 = P8 + P9 * x + (P10 + P11 * x) * x2;
+	const q3 = P12 + P13 * x + (P14 + P15 * x) * x2;
+	const q4 = P16 + P17 * x + P18 * x2;
+	return (q0 + q1 * x4 + (q2 + q3 * x4) * x8 + q4 * (x8 * x8)) * x2;
 }
 
 /** φ(x) = eˣ − 1 − x, to full relative accuracy (the series for |x| < 1). */
@@ -425,29 +435,35 @@ export function criticalForWidth(
 	xe: number,
 	branch: Branch,
 	lamGuess = -8,
-	loose?: number
+	loose?: number,
+	near = false
 ): Surface | null {
 	// a loose solve (a curve's bracketing point, curve.ts) stops at |l/l₀ − 1| < loose, its integrals to the same
 	const stop = loose ?? 1e-15;
-	const quadTol = loose ?? QUAD_TOL;
+	const base = loose ?? QUAD_TOL;
+	// the integrals of a step need only resolve the residual the next step leaves, ~|v|² for the secant: 1e−8 of
+	// the last |v| (at most 1e−6, at least the solve's own tolerance), so the first steps from a rough λ (|v| ~ 0.1)
+	// cost about half a full surface; a surface is returned only when its own integrals were to `base` (below)
+	const tolAfter = (v: number) => Math.max(base, Math.min(1e-6, 1e-8 * Math.abs(v)));
 	let x = xe;
 	let dvdl = NaN; // d(l/l_target)/dλ on z_m: −4 z*/(√K l), the first secant step's slope
-	const g = (lam: number): { v: number; s: Surface | null } => {
+	const g = (lam: number, tol: number): { v: number; s: Surface | null; tol: number; lam: number } => {
 		const tip = tipForCrossing(d, zeta, lam, branch, x);
-		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x), quadTol) : null;
-		if (!tip || !s) return { v: -Infinity, s: null }; // past the narrow end of the branch
+		const s = tip ? criticalSurface(tip.C, Math.exp(tip.x), tol) : null;
+		if (!tip || !s) return { v: -Infinity, s: null, tol, lam }; // past the narrow end of the branch
 		x = tip.x;
 		dvdl = (-4 * s.zstar) / (Math.sqrt(halfCurvature(tip.C)) * l);
-		return { v: s.l / l - 1, s };
+		return { v: s.l / l - 1, s, tol, lam };
 	};
 	let lwide = -Infinity; // v > 0
 	let lnarrow = Infinity; // v < 0 or no surface
 	let la = lamGuess;
-	let pa = g(la);
+	// `near`: the guess is a solution already (a loose point made exact), so its residual is small from the start
+	let pa = g(la, near ? base : 1e-6);
 	for (let k = 0; !pa.s && k < 40; k++) {
 		lnarrow = Math.min(lnarrow, la);
 		la -= 4;
-		pa = g(la);
+		pa = g(la, 1e-6);
 	}
 	if (!pa.s) return null;
 	let best = pa;
@@ -457,14 +473,23 @@ export function criticalForWidth(
 	let lb = la + Math.max(-20, Math.min(20, Number.isFinite(dvdl) && dvdl < 0 ? -pa.v / dvdl : pa.v > 0 ? 2 : -2));
 	if (lb === la) lb = la + (pa.v > 0 ? 1e-3 : -1e-3);
 	for (let k = 0; k < 100; k++) {
-		if (Math.abs(pa.v) < stop) return pa.s;
-		const pb = g(lb);
+		if (Math.abs(pa.v) < stop) {
+			if (pa.tol <= base) return pa.s;
+			// converged on integrals looser than the solve's: the same λ to the full tolerance, then go on from there
+			const again = g(la, base);
+			if (!again.s) break;
+			if (Math.abs(again.v) < stop) return again.s;
+			pa = again;
+			best = again;
+			lb = Number.isFinite(dvdl) && dvdl < 0 ? la - pa.v / dvdl : la + (pa.v > 0 ? 1e-9 : -1e-9);
+		}
+		const pb = g(lb, tolAfter(pa.v));
 		if (!pb.s) {
 			lnarrow = Math.min(lnarrow, lb);
 			lb = Number.isFinite(lwide) ? 0.5 * (lwide + lnarrow) : 0.5 * (la + lb);
 			continue;
 		}
-		if (Math.abs(pb.v) < Math.abs(best.v)) best = pb;
+		if (Math.abs(pb.v) < Math.abs(best.v) || best.tol > base) best = pb;
 		if (pb.v > 0) lwide = Math.max(lwide, lb);
 		else lnarrow = Math.min(lnarrow, lb);
 		let ln = pb.v === pa.v ? NaN : lb - (pb.v * (lb - la)) / (pb.v - pa.v);
@@ -477,7 +502,9 @@ export function criticalForWidth(
 		pa = pb;
 		lb = ln;
 	}
-	return Math.abs(best.v) < Math.max(WIDTH_TOL, loose ?? 0) ? best.s : null;
+	// rounding in λ reached on integrals looser than the solve's: the best λ once more to the full tolerance
+	if (best.tol > base) best = g(best.lam, base);
+	return best.s && Math.abs(best.v) < Math.max(WIDTH_TOL, loose ?? 0) ? best.s : null;
 }
 
 /** A critical solve that stops short of the asked width (rounding in λ) is kept when this close (relative). */

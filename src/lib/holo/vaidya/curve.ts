@@ -148,7 +148,7 @@ function made(zeta: number, s: Surface, slope: number, loose?: number): GridPoin
 function exactAt(curve: Curve, p: GridPoint): GridPoint | null {
 	const s = p.surface!;
 	if (s.critical) {
-		const c = criticalForWidth(curve.d, curve.l, p.zeta, Math.log(s.zstar), s.critical.branch, s.critical.lam);
+		const c = criticalForWidth(curve.d, curve.l, p.zeta, Math.log(s.zstar), s.critical.branch, s.critical.lam, undefined, true);
 		if (c) return { ...made(p.zeta, c, p.slope ?? 1), located: p.located };
 	}
 	const q = tipAt(curve.d, curve.l, p.zeta, Math.log(s.zstar), p.slope ?? 1);
