@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyseGrowth, clearQuenchCache, deltaArea, hrtDeltaArea, makeBulk, tsunamiVelocity } from '../../../src/lib/holo/index';
+import { curveFor } from '../../../src/lib/holo/vaidya/hrt';
+import { surfacesAt } from '../../../src/lib/holo/vaidya/curve';
 import { expectAbs, expectRel } from './check';
 
 /**
@@ -126,6 +128,36 @@ describe('quench: before, after and in between', () => {
 		for (const r of runs.slice(1)) {
 			expect(r.length).toBe(9);
 			r.forEach((v, i) => expectRel(`surface ${i}`, runs[0][i], v, 1e-12, 'the same surfaces, polished to rounding'));
+		}
+	});
+	it('a cold point just below a fold of t(ζ) finds the pair of surfaces there, as the whole curve does (loose grid, exact near t)', () => {
+		// the lazily built curve's points are solved to 1e−7 only (curve.ts LOOSE); its located maximum is located
+		// again on exact points when a time comes this close, so the pair either side of the fold is bracketed
+		for (const [d, l] of [
+			[3, 2],
+			[4, 1],
+			[4, 4],
+			[6, 2]
+		]) {
+			clearQuenchCache();
+			const curve = curveFor(d, l);
+			const pts = curve.points;
+			const maxima = pts.filter((p, i) => i > 0 && i + 1 < pts.length && p.t > pts[i - 1].t && p.t >= pts[i + 1].t);
+			expect(maxima.length, `a fold at d=${d} l=${l}`).toBeGreaterThan(0);
+			for (const m of maxima)
+				for (const below of [1e-6, 1e-9]) {
+					const t = m.t * (1 - below);
+					const whole = surfacesAt(curve, t).map((s) => s.dA);
+					expect(whole.length).toBe(2);
+					clearQuenchCache();
+					const cold = hrtDeltaArea(d, 1, l, t)
+						.surfaces.filter((s) => s.kind === 'shell')
+						.map((s) => s.dA);
+					expect(cold.length, `d=${d} l=${l} t=t_max(1−${below})`).toBe(2);
+					cold.sort((a, b) => a - b);
+					whole.sort((a, b) => a - b);
+					cold.forEach((v, i) => expectRel(`d=${d} l=${l} surface ${i}`, whole[i], v, 1e-11, 'the same surfaces, polished to rounding'));
+				}
 		}
 	});
 	it('slope identity dΔA/dt = 2|E|/z*^{d−1} against central differences (PHYSICS.md; derived)', () => {

@@ -59,19 +59,22 @@ const MAX_POINTS = 400;
 interface GridPoint extends CurvePoint {
 	slope?: number;
 	located?: boolean;
-	/** solved to LOOSE only (its t and ΔA good to ~1e−10 relative): it may bracket, not answer */
+	/** solved to LOOSE only (its t and ΔA good to ~1e−7 relative): it may bracket, not answer */
 	loose?: boolean;
 }
 
 /**
  * The tolerance of a lazily built curve's points (|ln(l(z*)/l)| and the integrals' relative tolerance): they only
  * bracket the solutions at a time, which are then solved exactly, so the grid of a cold point need not be exact —
- * about half the integrand calls per surface and a secant step less per point. A point whose time is within
- * UPGRADE of an asked time is solved exactly before the brackets are read (its t is off by ~1e−10 relative, far
- * inside that margin), so no bracket's sign depends on a loose value; completeCurve makes every point exact.
+ * about half the integrand calls per surface and one or two secant steps less per point (a cold d = 4, l = 4 zh
+ * point 2.6× faster with the critical solves' own savings). A point whose time is within UPGRADE of an asked time
+ * is solved exactly before the brackets are read (its t is off by ~1e−7 relative at most, a thousandth of that
+ * margin), and a loosely located extremum that close is located again (relocate), so no bracket's sign depends on
+ * a loose value; completeCurve makes every point exact. Checked: 540 cold points at d = 2…6 against exact curves
+ * (the same surfaces, ΔA to 1e−11), and the pair just below each fold (tests/unit/holo/vaidya.test.ts).
  */
-const LOOSE = 1e-10;
-const UPGRADE = 1e-6;
+const LOOSE = 1e-7;
+const UPGRADE = 1e-4;
 
 /**
  * The brane slice per (d, zh), kept: the strip solver prepares its quadrature nodes once per slice object (~0.2 ms,
@@ -304,7 +307,29 @@ function prepareFor(curve: Curve, t: number): void {
 		curve.pending = curve.pending.filter((p) => !now.includes(p));
 	}
 	const margin = UPGRADE * Math.max(1, Math.abs(t));
+	relocate(curve, (p) => Math.abs(p.t - t) <= margin);
 	upgrade(curve, (p) => Math.abs(p.t - t) <= margin);
+}
+
+/**
+ * Locates again, on exact points, every loosely located extremum that `which` selects: a loose minimiser finds
+ * t_max only to ~1e−7 (its points' own accuracy), and a time between that and the true t_max would find its
+ * pair of surfaces near the fold unbracketed. Costs ~10 exact tips, paid only by times that close to a fold.
+ */
+function relocate(curve: Curve, which: (p: GridPoint) => boolean): void {
+	const pts = curve.points as GridPoint[];
+	const redo: Pending[] = [];
+	for (let i = 1; i + 1 < pts.length; i++) {
+		const b = pts[i];
+		if (!b.located || !b.loose || !which(b)) continue;
+		redo.push({ a: pts[i - 1], b, c: pts[i + 1], sgn: b.t >= pts[i - 1].t ? 1 : -1 });
+	}
+	if (!redo.length) return;
+	curve.points = pts.filter((p) => !redo.some((r) => r.b === p));
+	const loose = curve.loose;
+	curve.loose = false;
+	locate(curve, redo);
+	curve.loose = loose;
 }
 
 /**

@@ -25,7 +25,7 @@ export function surfaceForWidth(d: number, l: number, zeta: number, guess?: numb
 	const s = solveTip(d, l, zeta, guess, loose);
 	// a width the search could not reach (rounding of the tip at the edge, no λ on the branch) is no surface of
 	// this strip: curves skip it rather than carry a point of another width
-	return s && Math.abs(s.l / l - 1) <= 1e-9 ? s : null;
+	return s && Math.abs(s.l / l - 1) <= Math.max(1e-9, 10 * (loose ?? 0)) ? s : null;
 }
 
 /** `loose`: stop at |ln(l(x)/l)| < loose with the integrals to the same (a curve's bracketing point, curve.ts). */
