@@ -147,7 +147,7 @@ function hOf(d: number, mu: number, zeta: number): number {
  * The integral-free data of the critical surface (z*, λ, branch), or null when there is none: the turning point
  * must lie behind the horizon (E² > 0) and the crossing must exist on the branch's side of a = 1.
  */
-export function criticalAt(d: number, zstar: number, lam: number, branch: Branch): Critical | null {
+export function criticalAt(d: number, zstar: number, lam: number, branch: Branch, zetaGuess?: number): Critical | null {
 	const n = 2 * (d - 1);
 	const lnmu = d * Math.log(zstar);
 	const mu = Math.exp(lnmu);
@@ -208,11 +208,36 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 	const qlo = q(lo);
 	const qhi = q(hi);
 	if (qlo * qhi > 0) return null;
-	const root = findRootBrent(q, lo, hi, 1e-17, 200, qlo, qhi);
-	C.zeta = root.x;
+	C.zeta = crossing(d, mu, C.E2, lo, hi, qlo, qhi, zetaGuess) ?? findRootBrent(q, lo, hi, 1e-17, 200, qlo, qhi).x;
 	C.a = 0.5 * Math.exp(lnmu + d * Math.log(C.zeta));
 	if (branch === 'climb' ? !(C.a > 1) : !(C.a < 1)) return null;
 	return C;
+}
+
+/**
+ * The root of h(ζ) = E² in (lo, hi) by Newton's method from a guess inside (tipForCrossing asks for ζ near its
+ * target), safeguarded by the bracket (a step leaving it bisects; common practice): h′ = (μ²/4)(2ζ − (n+2)ζ^{n+1}) in
+ * closed form, so three or four steps where Brent's method took ~12 evaluations of h. Null without a guess or when
+ * it does not settle (Brent's method then).
+ */
+function crossing(d: number, mu: number, E2: number, lo: number, hi: number, qlo: number, qhi: number, guess?: number): number | null {
+	if (guess === undefined || !(guess > lo && guess < hi)) return null;
+	const n = 2 * d - 2;
+	const c = 0.25 * mu * mu;
+	const rising = qlo < 0;
+	let z = guess;
+	for (let k = 0; k < 40; k++) {
+		const q = hOf(d, mu, z) - E2;
+		if (q === 0) return z;
+		if (q < 0 === rising) lo = z;
+		else hi = z;
+		const dq = c * (2 * z - (n + 2) * Math.pow(z, n + 1));
+		let zn = z - q / dq;
+		if (!(zn > lo && zn < hi)) zn = 0.5 * (lo + hi);
+		if (Math.abs(zn - z) <= 4e-16 * z) return zn;
+		z = zn;
+	}
+	return null;
 }
 
 /** The critical surface (z*, λ, branch) with its width, time and ΔA, or null when there is none. */
@@ -385,7 +410,7 @@ export function criticalSurface(C: Critical, zstar: number, quadTol = QUAD_TOL):
  * smoothly with the tip (the map (z*, λ) → ζ has no edge; seen in every scan), so a few steps reach rounding.
  */
 export function tipForCrossing(d: number, zeta: number, lam: number, branch: Branch, x0: number): { x: number; C: Critical } | null {
-	const at = (x: number) => criticalAt(d, Math.exp(x), lam, branch);
+	const at = (x: number) => criticalAt(d, Math.exp(x), lam, branch, zeta);
 	let xa = x0;
 	let ca = at(xa);
 	// a start where the surface exists: towards smaller tips first (the edge tip lies just inside for λ ≪ 0)
