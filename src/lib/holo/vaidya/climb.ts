@@ -103,11 +103,30 @@ export interface Critical {
 	/** turning point (climb), else NaN; ln(u_t/u_m) */
 	ut: number;
 	rt: number;
-	/** expm1(α_k r_t) and exp(α_k r_t) of a climbing surface (diffFrom), per surface rather than per node */
-	em1y: Float64Array;
-	ey: Float64Array;
-	/** scratch for powersOf (one surface's integrands run one at a time) */
-	pw: Float64Array;
+	/** expm1(α_k r_t) and exp(α_k r_t) of a climbing surface (diffFrom): per surface rather than per node, and
+	 * only once its integrals are asked for (turnConstants), not for every trial tip of tipForCrossing */
+	em1y: Float64Array | null;
+	ey: Float64Array | null;
+}
+
+/** The exponents α of g's three powers per d (−n, d − n, d), shared by every Critical of that d. */
+const ALPHAS: Float64Array[] = [];
+function alphasOf(d: number): Float64Array {
+	return (ALPHAS[d] ??= Float64Array.of(-2 * (d - 1), 2 - d, d));
+}
+
+/** Scratch for powersOf: the integrands of one surface run one at a time and none calls another. */
+const PW = new Float64Array(3);
+
+/** Sets em1y and ey of a climbing surface (diffFrom needs them). */
+function turnConstants(C: Critical): void {
+	if (C.ey) return;
+	C.em1y = new Float64Array(3);
+	C.ey = new Float64Array(3);
+	for (let k = 0; k < 3; k++) {
+		C.em1y[k] = Math.expm1(C.alpha[k] * C.rt);
+		C.ey[k] = Math.exp(C.alpha[k] * C.rt);
+	}
 }
 
 const SIGN = [1, -1, 1];
@@ -116,7 +135,7 @@ const TAU_MODEL = 184;
 
 /** G(r) = g(u) − g(u_m), r = ln(u/u_m), w = u/u_m, with the (exactly cancelling) linear terms dropped. */
 function gFromMin(C: Critical, r: number, w: number): number {
-	const pw = C.pw;
+	const pw = PW;
 	powersOf(w, C.d, pw);
 	let s = 0;
 	for (let k = 0; k < 3; k++) s += SIGN[k] * C.c[k] * phiPow(C.alpha[k] * r, pw[k]);
@@ -128,12 +147,14 @@ function gFromMin(C: Critical, r: number, w: number): number {
  * expm1(y) x + e^y φ(x), the term linear in ρ carries u_t g′(u_t) ~ e^λ as a sum of terms of that size.
  */
 function diffFrom(C: Critical, rho: number, w: number): number {
-	const pw = C.pw;
+	const pw = PW;
+	const em1y = C.em1y!;
+	const ey = C.ey!;
 	powersOf(w, C.d, pw);
 	let s = 0;
 	for (let k = 0; k < 3; k++) {
 		const x = C.alpha[k] * rho;
-		s += SIGN[k] * C.c[k] * (C.em1y[k] * x + C.ey[k] * phiPow(x, pw[k]));
+		s += SIGN[k] * C.c[k] * (em1y[k] * x + ey[k] * phiPow(x, pw[k]));
 	}
 	return s;
 }
@@ -156,7 +177,7 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 	if (!(eps < um) || !(um < 1)) return null;
 	const lnum = Math.log(um);
 	const c = Float64Array.of(Math.exp(-n * lnum), Math.exp(lnmu + (d - n) * lnum), Math.exp(lnmu + d * lnum));
-	const alpha = Float64Array.of(-n, d - n, d);
+	const alpha = alphasOf(d);
 	// g(u_m) = (u_m^{−n} − 1)(1 − μ u_m^d)
 	const gm = Math.expm1(-n * lnum) * -Math.expm1(lnmu + d * lnum);
 	if (!(gm < 0)) return null;
@@ -177,9 +198,8 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 		a: NaN,
 		ut: NaN,
 		rt: NaN,
-		em1y: new Float64Array(3),
-		ey: new Float64Array(3),
-		pw: new Float64Array(3)
+		em1y: null,
+		ey: null
 	};
 	const r = Math.log1p(-eps / um);
 	const G = gFromMin(C, r, 1 - eps / um);
@@ -193,10 +213,6 @@ export function criticalAt(d: number, zstar: number, lam: number, branch: Branch
 	if (branch === 'climb') {
 		C.ut = um - eps;
 		C.rt = r;
-		for (let k = 0; k < 3; k++) {
-			C.em1y[k] = Math.expm1(alpha[k] * r);
-			C.ey[k] = Math.exp(alpha[k] * r);
-		}
 		lo = z1;
 		hi = C.ut;
 	} else {
@@ -248,6 +264,7 @@ export function criticalSurfaceAt(d: number, zstar: number, lam: number, branch:
 
 /** `quadTol`: the integrals' relative tolerance (family.ts surfaceAt). */
 export function criticalSurface(C: Critical, zstar: number, quadTol = QUAD_TOL): Surface | null {
+	if (C.branch === 'climb') turnConstants(C);
 	const { d, n, E, E2, zeta, um } = C;
 	const lam = C.lam;
 	const eps = Math.exp(lam);
@@ -677,6 +694,7 @@ export function criticalTail(
 ): ProfilePoint[] | null {
 	const C = criticalAt(d, zstar, crit.lam, crit.branch);
 	if (!C) return null;
+	if (C.branch === 'climb') turnConstants(C);
 	const { n, E, um, zeta, lam } = C;
 	const eps = Math.exp(lam);
 	const R1 = (u: number) => Math.expm1(-n * Math.log(u));
