@@ -530,8 +530,14 @@ function newtonIn(curve: Curve, A: CurvePoint, B: CurvePoint, t: number): Surfac
 				break;
 			}
 		}
-		if (!next) return null;
+		// no descent: at the integrals' rounding (|F| ~ 1e−14; t itself carries a few ulps) that is convergence, as
+		// in climb.ts newtonCritical; else a dead end for the bracketed path
+		if (!next) return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * Math.max(1, Math.abs(t)) ? s : null;
 		s = next;
 	}
-	return null;
+	// steps that still "descend" at rounding level (the damped step takes any trial once it is short) end here
+	return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * Math.max(1, Math.abs(t)) ? s : null;
 }
+
+/** The residual (ln of the width, time in zh) newtonIn accepts once its steps stop descending. */
+const NEWTON_TOL = 1e-13;
