@@ -51,6 +51,17 @@ row(
 	bench('`growth l=50` record, cold (d=4)', () => (H.clearQuenchCache(), H.analyseGrowth(4, 1, 50)), { minRuns: 3 }),
 	'inside the 5 s line budget'
 );
+// the goal's whole range (widths ≤ 4 zh): one cold point at half the saturation time, per d and width
+const WIDTHS = [1, 2, 3, 4];
+const matrix = [2, 3, 4].map((d) =>
+	WIDTHS.map((l) => {
+		const t = 0.5 * H.hrtDeltaArea(d, 1, l, 1).tsat;
+		return bench(`cold d=${d} l=${l} t=${t.toFixed(3)}`, () => (H.clearQuenchCache(), H.hrtDeltaArea(d, 1, l, t)), {
+			minRuns: 5,
+			minMs: 200
+		}).median_us;
+	})
+);
 const loadAfter = loadavg()[0];
 
 let runner = null;
@@ -68,6 +79,12 @@ const lines = [
 	'| benchmark | median (µs) | per point (µs) | runs | goal |',
 	'|---|---|---|---|---|',
 	...results.map((r) => `| ${r.name} | ${r.median_us} | ${r.per_point_us ?? ''} | ${r.runs} | ${r.goal} |`),
+	'',
+	"One cold ΔA(t) point at t = t_sat/2 (µs, median), across the goal's range (≤ 2 ms at widths ≤ 4 zh):",
+	'',
+	`| d | ${WIDTHS.map((l) => `l = ${l} zh`).join(' | ')} |`,
+	`|---|${WIDTHS.map(() => '---').join('|')}|`,
+	...matrix.map((r, i) => `| ${i + 2} | ${r.map((v) => Math.round(v)).join(' | ')} |`),
 	'',
 	runner
 		? `mpmath fixture runner (tests/fixtures/holo/vaidya_runner.py, 24 digits, every surface from scratch): ${runner.secondsPerPoint} s per (l, t) point, mean over ${runner.rows.length} rows`
