@@ -502,9 +502,11 @@ export function criticalForWidth(
 	let la = lamGuess;
 	// `near`: the guess is a solution already (a loose point made exact), so its residual is small from the start
 	let pa = g(la, near ? base : 1e-6);
-	for (let k = 0; !pa.s && k < 40; k++) {
+	// no surface at the guess (past the branch's narrow end, where λ nears its largest value): back off by ¼, ½, 1,
+	// 2, 4, … — a guess from a neighbour is usually just past that end, and a failed trial costs no integrals
+	for (let k = 0, step = 0.25; !pa.s && k < 40; k++, step = Math.min(2 * step, 4)) {
 		lnarrow = Math.min(lnarrow, la);
-		la -= 4;
+		la -= step;
 		pa = g(la, 1e-6);
 	}
 	if (!pa.s) return null;
