@@ -511,6 +511,7 @@ export function criticalForWidth(
 	}
 	if (!pa.s) return null;
 	let best = pa;
+	let stalled = 0;
 	if (pa.v > 0) lwide = la;
 	else lnarrow = Math.min(lnarrow, la);
 	// the first step from the width's slope on z_m (exact as λ → −∞, a fair guess elsewhere), at most 20 in λ
@@ -533,6 +534,8 @@ export function criticalForWidth(
 			lb = Number.isFinite(lwide) ? 0.5 * (lwide + lnarrow) : 0.5 * (la + lb);
 			continue;
 		}
+		if (Math.abs(pb.v) < 0.5 * Math.abs(best.v)) stalled = 0;
+		else if (++stalled > 8) break; // no λ on this branch gives the width (the residual stays put at its end)
 		if (Math.abs(pb.v) < Math.abs(best.v) || best.tol > base) best = pb;
 		if (pb.v > 0) lwide = Math.max(lwide, lb);
 		else lnarrow = Math.min(lnarrow, lb);
