@@ -27,15 +27,14 @@ const LOCK_MS = '3000';
 /** a heavy line (a sweep) that is cheap, so the in-process test server answers it within its budget however busy */
 const STRIP_SWEEP = 'sweep darea l=0.1..3:400';
 /**
- * 80 HRT surfaces of very wide quench strips (l = 60…80 zh in d = 6: a family curve each, ~65 ms on a quiet machine
- * since the critical-surface solver and the lazily built curve; d = 4, l = 6…8 became far cheaper): over a second of
- * work per chunk of twenty, so a kill ~50 ms after the chunk starts lands inside it. A faster solver may need more
- * points here.
+ * 80 HRT surfaces of very wide quench strips (l = 60…80 zh in d = 6: a family curve each, ~40 ms on a quiet machine
+ * since the loose curve grid; ~65 ms before, and d = 4, l = 6…8 became far cheaper): over half a second of work per
+ * chunk of twenty, so a kill ~50 ms after the chunk starts lands inside it. A faster solver may need more points here.
  */
 const SWEEP = 'use vaidya d=6 zh=1; sweep darea l=60..80:80 t=30';
 /**
- * Minutes of work (HRT surfaces of very wide quench strips, ~65 ms each, and no two alike): every chunk runs
- * for half a minute or more, so each worker is inside one when the client hangs up, and the line can only stop by being
+ * Minutes of work (HRT surfaces of very wide quench strips, ~40 ms each, and no two alike): every chunk runs
+ * for twenty seconds or more, so each worker is inside one when the client hangs up, and the line can only stop by being
  * cancelled. (Exact balls are no longer a candidate: they take about a millisecond each.)
  */
 /** the pad's bulk for it: a stateless line of two statements would run whole, unsplit */
