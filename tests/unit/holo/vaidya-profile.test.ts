@@ -8,13 +8,16 @@ describe('surface profiles', () => {
 			[2, 2, 0.7],
 			[3, 2, 1.0],
 			[3, 2, 1.48],
-			[4, 3, 2.0] // climbs behind the horizon before turning back
+			[4, 3, 2.0], // climbs behind the horizon before turning back
+			[4, 4, 3.2] // a critical winner (climb.ts criticalTail)
 		]) {
 			const r = hrtProfile(d, 1, l, t);
 			const end = r.points[r.points.length - 1];
 			expectRel(`x end d=${d} l=${l} t=${t}`, l / 2, end.x, 1e-8, 'the profile integrates dx/dz of the same surface');
 			expectRel(`v end d=${d} l=${l} t=${t}`, t, end.v!, 1e-8, 'boundary time t = v at z = 0');
 			expectAbs(`z end`, 0, end.z, 1e-12, 'boundary');
+			// no point outside the bulk: the boundary end is z = 0, not an ulp beyond it (a table shows every digit)
+			for (const p of r.points) expect(p.z).toBeGreaterThanOrEqual(0);
 			expectRel(`tip`, r.answer.winner.zstar, r.points[0].z, 1e-14, 'tip at z*');
 			// inside the shell the surface lies on v + z = z_c (pure AdS before the shell: PHYSICS.md)
 			expect(r.points[0].v!).toBeLessThan(0);

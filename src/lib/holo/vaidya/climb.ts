@@ -757,7 +757,7 @@ export function criticalTail(
 				const u = zeta - p;
 				return descent(u, Math.log(u / um), u / um, 1);
 			},
-			(p) => zeta - p,
+			(p) => Math.max(0, zeta - p), // the last node can land an ulp past ζ
 			Math.max(10, Math.round(count / 2))
 		);
 	} else {

@@ -118,7 +118,7 @@ export function hrtProfile(d: number, zh: number, l: number, t: number, count = 
 			const [dx, dv] = descent(u);
 			return [-dx, -dv];
 		},
-		(u) => u,
+		(u) => Math.max(0, u), // the last node can land an ulp below the boundary
 		{ x: at.x, z: at.z, v: at.v },
 		true
 	);
