@@ -326,6 +326,14 @@ describe('sign-up policy', () => {
 		expect((await admin.patch('/api/admin/settings', { signup: { mode: 'open', domains: [] } })).status).toBe(200);
 		const reader = await freshWithRole(admin, 'policy-reader', 'reader');
 		expect((await reader.get('/admin/users')).status).toBe(403);
+		// /admin itself: the admin lands on the user list, a reader is refused, a visitor is sent to sign in
+		const home = await admin.get('/admin');
+		expect(home.status).toBe(303);
+		expect(home.headers.get('location')).toBe('/admin/users');
+		expect((await reader.get('/admin')).status).toBe(403);
+		const visitor = await new Client().get('/admin');
+		expect(visitor.status).toBe(303);
+		expect(visitor.headers.get('location')).toContain('/signin');
 	});
 });
 
