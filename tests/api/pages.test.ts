@@ -150,9 +150,20 @@ describe('what a visitor without a session sees of a pad', () => {
 	});
 
 	it('is a 404 for a member it is not shared with, exactly as for a pad that does not exist', async () => {
+		const pages: string[] = [];
 		for (const id of [sharedPadId, PARAMS.id!.missing]) {
-			expect((await otherMember.get(`/pads/${id}`)).status).toBe(404);
+			const pad = await otherMember.get(`/pads/${id}`);
+			expect(pad.status).toBe(404);
 			expect((await otherMember.get(`/shared/${id}`)).status).toBe(404);
+			// the app's own error page, with the ways on, and the same words whether the pad exists or not
+			expect(pad.body).toContain('Nothing here');
+			expect(pad.body).toContain('href="/pads"');
+			pages.push(
+				String(pad.body)
+					.replace(/\/pads\/[A-Za-z0-9_-]+/g, '/pads/ID')
+					.replace(/nonce="[^"]*"/g, 'nonce')
+			);
 		}
+		expect(pages[0]).toBe(pages[1]);
 	});
 });
