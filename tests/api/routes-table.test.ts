@@ -78,6 +78,7 @@ const TABLE: Record<string, string> = {
 	'POST /api/t/[slug]/comments':                   '401 2xx 2xx 2xx 2xx',
 	// pages (GET) and their form actions (POST), as a browser without JavaScript sends them
 	'GET /':                                         '3xx 3xx 3xx 3xx 3xx',
+	'GET /admin':                                    '3xx 403 403 403 3xx',
 	'GET /admin/outbox':                             '3xx 403 403 403 2xx',
 	'GET /admin/users':                              '3xx 403 403 403 2xx',
 	'GET /datasets':                                 '3xx 2xx 2xx 2xx 2xx',
