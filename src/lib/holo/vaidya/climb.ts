@@ -1,6 +1,6 @@
 import { traceProfile, type ProfilePoint } from '../profile';
 import { findRootBrent } from '../numeric/brent';
-import { minimumOfP, surfaceFromParts, type Surface } from './family';
+import { minimumOfP, rMinus1, surfaceFromParts, type Surface } from './family';
 import { QUAD_TOL, integrateAdaptive } from './quad';
 
 /**
@@ -273,16 +273,11 @@ export function criticalSurface(C: Critical, zstar: number, quadTol = QUAD_TOL):
 	// rounding of u; 1 − u too, so R − 1 = (1 − u) Σ_{j<n} u^j / u^n is exact near the shell as in family.ts.
 	// Only products, one log (r) and square roots per node: this is the wide strips' hot loop.
 	const mu = C.mu;
+	const ru = new Float64Array(2);
 	const outer = (u: number, omu: number, r: number, w: number, jac: number, o: Float64Array): boolean => {
-		let sum = 0;
-		let un = 1;
-		let ud = 1;
-		for (let j = 0; j < n; j++) {
-			sum += un;
-			un *= u;
-			if (j === d - 1) ud = un;
-		}
-		const R1 = (omu * sum) / un;
+		rMinus1(u, omu, d, ru);
+		const R1 = ru[0];
+		const ud = ru[1];
 		const P = C.Pm + gFromMin(C, r, w);
 		if (!(P > 0) || !(R1 > 0)) return false;
 		const sq = Math.sqrt(P);

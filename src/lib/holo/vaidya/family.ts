@@ -160,17 +160,11 @@ export function surfaceAt(d: number, zstar: number, zeta: number, quadTol = QUAD
 	// R − 1 = (1 − u)·Σ_{j<n} u^j / u^n, a sum of positive terms, exact near the tip where 1 − u is small;
 	// (1 + X)^{−½} − 1 = −X/(r(1 + r)), r = √(1 + X), has no cancellation at early times where X is tiny.
 	const { d: dd, mu } = S;
+	const ru = new Float64Array(2);
 	const inner = (u: number, omu: number, jac: number, o: Float64Array): boolean => {
-		let sum = 0;
-		let pw = 1;
-		let ud1 = 1;
-		for (let j = 0; j < n; j++) {
-			sum += pw;
-			pw *= u;
-			if (j === dd - 2) ud1 = pw;
-		}
-		const R1 = (omu * sum) / pw;
-		const X = E2 / R1 - mu * ud1 * u; // (P − (R−1))/(R−1)
+		rMinus1(u, omu, dd, ru);
+		const R1 = ru[0];
+		const X = E2 / R1 - mu * ru[1]; // (P − (R−1))/(R−1)
 		if (!(X > -1)) return false;
 		const r = Math.sqrt(1 + X);
 		const sr = Math.sqrt(R1);
@@ -254,6 +248,25 @@ export function surfaceAt(d: number, zstar: number, zeta: number, quadTol = QUAD
 		tt += climb[2];
 	}
 	return surfaceFromParts(d, zstar, zeta, { dw, da, tt }, { E, a: S.a, zturn, behindHorizon: fmin < 0 });
+}
+
+/**
+ * R − 1 = u^{−n} − 1 as (1 − u)·Σ_{j<n} u^j / u^n (n = 2d − 2), a sum of positive terms, exact near u = 1 when
+ * 1 − u is given exactly (`omu`), with products only; out[0] = R − 1, out[1] = u^d. The integrands of this file
+ * and of climb.ts call it at every node.
+ */
+export function rMinus1(u: number, omu: number, d: number, out: Float64Array): void {
+	const n = 2 * d - 2;
+	let sum = 0;
+	let un = 1;
+	let ud = 1;
+	for (let j = 0; j < n; j++) {
+		sum += un;
+		un *= u;
+		if (j === d - 1) ud = un;
+	}
+	out[0] = (omu * sum) / un;
+	out[1] = ud;
 }
 
 /**
