@@ -41,6 +41,11 @@ export interface RunOptions {
 }
 
 export function runLine(input: string, ctx: PadContext, opts: RunOptions = {}): LineOutcome {
+	// the quench's family curves live for one line: a line's numbers are then a function of the line alone, to the
+	// last bit, whoever ran what before in this process (another member's lines, a replay, a fleet worker) — the
+	// curve's points and refinements otherwise depend on the times asked earlier, and the answers' last bits with
+	// them. A growth sweep still builds its curve once; a later line at the same width builds it again (ms).
+	engine.clearQuenchCache();
 	const limits = resolveLimits(opts.limits);
 	const env: LineEnv = {
 		ctx,

@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import * as holo from '../../../src/lib/holo/index';
 import type { RecordResult, ScalarResult, TableResult } from '../../../src/lib/lang/result';
+import { emptyContext, runLine } from '../../../src/lib/lang/evaluate';
 import { Pad } from './pad';
 
 describe('vaidya bulk and the key t', () => {
@@ -70,5 +71,22 @@ describe('growth', () => {
 	});
 	it('refuses a static bulk', () => {
 		expect(new Pad().fail('growth l=2').message).toMatch(/vaidya/);
+	});
+});
+
+describe('a quench line answers the same bits whatever ran before it (curves live for one line)', () => {
+	it('a growth sweep after other lines at the same width equals the same sweep run first', () => {
+		// the earlier lines refine the width's family curve at their own times; a later sweep would otherwise start
+		// from that curve (other brackets: last bits differed at most of these 40 times)
+		const sweep = 'use vaidya d=3 zh=1; sweep darea l=2 t=-0.5..3:40';
+		holo.clearQuenchCache(); // whatever the tests before left: the first run starts from nothing either way
+		const first = JSON.stringify(runLine(sweep, emptyContext()).results);
+		for (const other of [
+			'use vaidya d=3 zh=1; sweep dentropy l=2 t=0..3:24',
+			'use vaidya d=3 zh=1; sweep dentropy l=2 t=0,0.13043478260869565,0.2608695652173913,0.391304347826087,0.5217391304347826',
+			'use vaidya d=3 zh=1; sweep dentropy l=2 t=1.5,1.6304347826086956,1.7608695652173914,1.891304347826087'
+		])
+			runLine(other, emptyContext());
+		expect(JSON.stringify(runLine(sweep, emptyContext()).results)).toBe(first);
 	});
 });

@@ -35,8 +35,8 @@ describe('a split sweep merges to the whole line exactly', () => {
 		// a stateless script picks its bulk on the line itself: every chunk repeats the settings
 		['use brane d=3 zh=2; sweep darea l=0.1..1:40', emptyContext()],
 		['use boosted d=4 v=0.3; units geo G=2; sweep dentropy l=0.1..1:24', emptyContext()],
-		['use vaidya d=3 zh=1; sweep dentropy l=2 t=0..3:24', emptyContext()],
-		['use vaidya d=3 zh=1; sweep darea l=2 t=-0.5..3:40', emptyContext()]
+		// a quench sweep over widths: a family curve per width, nothing shared between points
+		['use vaidya d=3 zh=1; sweep darea l=1..3:16 t=1.5', emptyContext()]
 	])('%s', (input, ctx) => {
 		const { chunks, whole, merged } = wholeAndMerged(input, ctx);
 		expect(chunks.length).toBeGreaterThan(1);
@@ -97,7 +97,11 @@ describe('lines left whole', () => {
 		['a line that does not parse', 'sweep darea l=0.1..'],
 		['a macro', '@growth l=0.1..1:40'],
 		// each exact ball starts from the previous ones: chunks starting afresh would differ in the last bits
-		['a ball sweep', 'sweep darea ball R=0.1..2:200']
+		['a ball sweep', 'sweep darea ball R=0.1..2:200'],
+		// the times of a quench sweep share one family curve, refined for each time in turn: chunks would each build
+		// it and land within rounding of the whole line's numbers, not on them
+		['a quench sweep over t', 'use vaidya d=3 zh=1; sweep darea l=2 t=-0.5..3:40'],
+		['a quench sweep over t, in the pad’s bulk', 'sweep dentropy l=2 t=0..3:24']
 	])('%s', (_, input) => {
 		expect(splitSweep(input, 8)).toBeUndefined();
 	});

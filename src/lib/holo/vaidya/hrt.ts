@@ -44,7 +44,8 @@ const CACHE_MAX = 16;
 /** The brane strip of the saturated candidate per (d, zh, l): a growth sweep asks it at every late time. */
 const STATIC = new Map<string, ReturnType<typeof solveStrip>>();
 
-/** Forgets the cached family curves and static strips (benchmarks time cold points with it). */
+/** Forgets the cached family curves and static strips: at the start of every pad line (lang/evaluate.ts runLine,
+ * so a line's numbers do not depend on earlier lines), and in benchmarks that time cold points. */
 export function clearQuenchCache(): void {
 	CACHE.clear();
 	STATIC.clear();

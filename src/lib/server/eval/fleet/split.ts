@@ -8,7 +8,8 @@
  * swept key (not the order) whose list items or range ends and count are number literals, and exact values
  * only: a truncated order's table carries warnings merged over all its points (the largest l past the radius,
  * per order), which no chunk can say alone — and series sweeps are cheap, the heavy sweeps are exact ones
- * (quench growth, metric bulks; exact balls continue from point to point, so they stay whole). Anything else runs whole on one worker. Merging checks that every chunk answered the same table apart from its rows (label,
+ * (quench growth over widths, metric bulks; exact balls continue from point to point and a quench sweep over t shares one
+ * family curve, so those stay whole). Anything else runs whole on one worker. Merging checks that every chunk answered the same table apart from its rows (label,
  * columns, plot hints, warning, note, the pad's state); when they differ, or a chunk answers a language error
  * (its span points into the chunk's text), the caller runs the line whole instead — exactness over speed.
  */
@@ -88,6 +89,10 @@ export function splitSweep(input: string, target: number): Chunk[] | undefined {
 	const many = s.keys.filter((kv) => !isOrder(kv) && (kv.value.type === 'list' || kv.value.type === 'range'));
 	if (many.length !== 1) return undefined;
 	const swept = many[0]!;
+	// a quench sweep over t shares one family curve (holo/vaidya/curve.ts), refined for each time in turn: chunks would
+	// each build it (the work split is mostly the same build repeated) and land within rounding of the whole line's
+	// numbers, not on them. Sweeps over l (a curve per width) split as any other
+	if (swept.key === 't') return undefined;
 	const xs = valuesOf(swept.value);
 	const texts = xs?.map(written);
 	if (!xs || !texts || texts.some((t) => t === undefined)) return undefined;
