@@ -515,6 +515,7 @@ function newtonIn(curve: Curve, A: CurvePoint, B: CurvePoint, t: number): Surfac
 	if (!s) return null;
 	let f0 = Math.log(s.l) - lnl;
 	let f1 = s.t - t;
+	const atRounding = () => Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * Math.max(1, Math.abs(t));
 	for (let k = 0; k < 10; k++) {
 		if (Math.abs(f0) < 2e-15 && Math.abs(f1) < 2e-15 * Math.max(1, Math.abs(t))) return s;
 		// near the edge the difference step would straddle it: leave this bracket to the safe path
@@ -553,11 +554,11 @@ function newtonIn(curve: Curve, A: CurvePoint, B: CurvePoint, t: number): Surfac
 		}
 		// no descent: at the integrals' rounding (|F| ~ 1e−14; t itself carries a few ulps) that is convergence, as
 		// in climb.ts newtonCritical; else a dead end for the bracketed path
-		if (!next) return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * Math.max(1, Math.abs(t)) ? s : null;
+		if (!next) return atRounding() ? s : null;
 		s = next;
 	}
 	// steps that still "descend" at rounding level (the damped step takes any trial once it is short) end here
-	return Math.abs(f0) < NEWTON_TOL && Math.abs(f1) < NEWTON_TOL * Math.max(1, Math.abs(t)) ? s : null;
+	return atRounding() ? s : null;
 }
 
 /** The residual (ln of the width, time in zh) newtonIn accepts once its steps stop descending. */
