@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { analyseGrowth, hrtDeltaArea, hrtProfile, tsunamiVelocity } from '../../../src/lib/holo/index';
-import { criticalAt, criticalSurfaceAt, phiExp } from '../../../src/lib/holo/vaidya/climb';
+import { criticalAt, criticalSurfaceAt, phiPow } from '../../../src/lib/holo/vaidya/climb';
 import { minimumOfP, surfaceAt } from '../../../src/lib/holo/vaidya/family';
 import { surfaceForWidth } from '../../../src/lib/holo/vaidya/solve';
 import { expectAbs, expectRel } from './check';
@@ -76,16 +76,31 @@ describe('the width grows linearly in λ (no bound from the doubles)', () => {
 			expectRel('ζ', criticalAt(d, zstar, -30, branch)!.zeta, criticalAt(d, zstar, -3000, branch)!.zeta, 1e-12, 'e^{2λ} corrections');
 		});
 	}
-	it('φ(x) = eˣ − 1 − x keeps its relative accuracy for small x (series against expm1 where both are exact)', () => {
-		for (const x of [1e-12, -1e-8, 1e-4, -0.3, 0.49])
+	it('φ(x) = eˣ − 1 − x keeps its relative accuracy: the series for small x, and from a power of u/u_m beyond', () => {
+		for (const x of [1e-12, -1e-8, 1e-4, -0.3, 0.49, -0.99, 0.99])
 			expectRel(
-				`φ(${x})`,
+				`φ(${x}) against the Taylor polynomial`,
 				(x * x) / 2 + (x * x * x) / 6 + (x * x * x * x) / 24,
-				phiExp(x),
+				phiPow(x, NaN), // the series branch never reads eˣ
 				Math.max(1e-15, Math.pow(Math.abs(x), 3)),
 				'Taylor'
 			);
-		for (const x of [0.6, -2, 5]) expectRel(`φ(${x})`, Math.exp(x) - 1 - x, phiExp(x), 1e-14, 'definition');
+		for (const x of [-0.99, -0.5, 0.3, 0.99])
+			expectRel(`φ(${x})`, Math.expm1(x) - x, phiPow(x, NaN), 2e-15, 'expm1(x) − x, itself a few ulps off');
+		// beyond |x| = 1 the integrands pass eˣ as w^α formed by multiplication (α up to −10 at d = 6): within 1e−14
+		for (const [w, alpha] of [
+			[1.12, -10],
+			[0.9, -10],
+			[1.6, 6],
+			[0.3, 6],
+			[2.5, -4]
+		]) {
+			let ex = 1;
+			for (let k = 0; k < Math.abs(alpha); k++) ex *= w;
+			if (alpha < 0) ex = 1 / ex;
+			const x = alpha * Math.log(w);
+			expectRel(`φ(${x}) from w=${w}, α=${alpha}`, Math.expm1(x) - x, phiPow(x, ex), 1e-14, 'definition');
+		}
 	});
 	it('a tip solve reaches l = 20 zh on both branches (d = 3), where the (z*, ζ) edge stopped at 10–17', () => {
 		for (const zeta of [0.1, 0.3, 0.7, 0.9, 0.99]) {

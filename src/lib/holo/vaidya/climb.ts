@@ -50,17 +50,12 @@ function phiSeries(x: number): number {
 	return (q0 + q1 * x4 + (q2 + q3 * x4) * x8 + q4 * (x8 * x8)) * x2;
 }
 
-/** φ(x) = eˣ − 1 − x, to full relative accuracy (the series for |x| < 1). */
-export function phiExp(x: number): number {
-	return Math.abs(x) < 1 ? phiSeries(x) : Math.expm1(x) - x;
-}
-
 /**
  * φ(x) with eˣ already known as `ex` (a power of a ratio of u's, formed by multiplication, so the integrands need
  * no exp per term): the series for |x| < 1, where ex − 1 − x would cancel; beyond, ex − 1 − x loses at most
  * α·e/(e − 2) ≈ 4α ulps (α ≤ 10 the power's exponent, e^{±1} against φ(±1)), below the integrals' 1e−14.
  */
-function phiPow(x: number, ex: number): number {
+export function phiPow(x: number, ex: number): number {
 	return Math.abs(x) < 1 ? phiSeries(x) : ex - 1 - x;
 }
 
