@@ -25,17 +25,18 @@ function expectSurfacesOfRow(a: ReturnType<typeof hrtDeltaArea>, r: Row): void {
  * the runner found is found here too.
  */
 describe('quench against the mpmath runner (tests/fixtures/holo/vaidya_runner.py)', () => {
-	it('the fixture covers d = 2, 3, 4, widths 1–4 (and 6–10 at d = 3) and times where three surfaces compete', () => {
-		// all 19 of the runner's cases, with the strips whose competing surfaces climb behind the horizon next to the
-		// family's edge (d = 3, l = 4 and d = 4, l = 3 near saturation), d = 4, l = 4 early, and the wide strips of
-		// d = 3 (l = 6, 8, 10: early, linear regime, and three surfaces near saturation) whose winners are critical
-		// surfaces (climb.ts)
-		expect(fx.rows.length).toBe(19);
+	it('the fixture covers d = 2, 3, 4, widths 1–4 (and 5–10 at d = 3, 4) and times where three surfaces compete', () => {
+		// all 22 of the runner's cases, with the strips whose competing surfaces climb behind the horizon next to the
+		// family's edge (d = 3, l = 4 and d = 4, l = 3 near saturation), d = 4, l = 4 early, and the wide strips
+		// (d = 3: l = 6, 8, 10, early, linear regime and three surfaces near saturation; d = 4: l = 5, 6) whose
+		// winners are critical surfaces (climb.ts) in the linear regime
+		expect(fx.rows.length).toBe(22);
 		expect(fx.rows.some((r) => r.d === 4 && r.l === 4)).toBe(true);
 		expect(fx.rows.filter((r) => r.l >= 3 && r.count >= 3).length).toBeGreaterThanOrEqual(3);
-		expect(fx.rows.filter((r) => r.l >= 6).length).toBe(4);
+		expect(fx.rows.filter((r) => r.l >= 5).length).toBe(7);
+		expect(fx.rows.filter((r) => r.d === 4 && r.l >= 5).length).toBe(3);
 		expect([...new Set(fx.rows.map((r) => r.d))].sort()).toEqual([2, 3, 4]);
-		expect([...new Set(fx.rows.map((r) => r.l))].sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 6, 8, 10]);
+		expect([...new Set(fx.rows.map((r) => r.l))].sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5, 6, 8, 10]);
 		expect(fx.rows.filter((r) => r.count >= 3).length).toBeGreaterThanOrEqual(2);
 	});
 	it('the runner itself: its d = 2 static column is the thermal closed form, its t_sat is l/2', () => {
