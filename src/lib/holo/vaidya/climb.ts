@@ -297,9 +297,7 @@ export function criticalSurface(C: Critical, zstar: number, quadTol = QUAD_TOL):
 	// limits there (P = K ε² cosh²τ or K ε² sinh²τ up to a relative 1e−80, K = G″(u_m)/2), so that stretch
 	// is the limit times its length — the part of the width and time that grows linearly in −λ
 	const tauS = Math.max(0, -TAU_MODEL - lam);
-	let K = 0;
-	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
-	K /= 2 * um * um;
+	const K = halfCurvature(C);
 	const Rm = Math.exp(-n * Math.log(um));
 	const fm = -Math.expm1(C.lnmu + d * Math.log(um));
 	const sqK = Math.sqrt(K);
@@ -693,9 +691,7 @@ export function criticalTail(
 	const { n, E, um, zeta, lam } = C;
 	const eps = Math.exp(lam);
 	const R1 = (u: number) => Math.expm1(-n * Math.log(u));
-	let K = 0;
-	for (let k = 0; k < 3; k++) K += SIGN[k] * C.c[k] * C.alpha[k] * C.alpha[k];
-	K /= 2 * um * um;
+	const K = halfCurvature(C);
 	const sqK = Math.sqrt(K);
 	const R1m = R1(um);
 	const tauS = Math.max(0, -TAU_MODEL - lam);
